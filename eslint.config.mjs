@@ -1,0 +1,10 @@
+import nextCoreWebVitals from 'eslint-config-next/core-web-vitals';
+import nextTypescript from 'eslint-config-next/typescript';
+
+const config = [
+  ...nextCoreWebVitals,
+  ...nextTypescript,
+  { ignores: ['node_modules/**', '.next/**', '.data/**', 'next-env.d.ts', 'db/migrations/**'] },
+];
+
+export default config;

@@ -1,0 +1,11 @@
+#!/usr/bin/env bash
+# Local stand-ins for hosted services, on 127.0.0.1. Sourced after lib.sh.
+# Each is replaced by the real service through environment variables alone (README).
+
+start_local_services() {
+  if [ -z "${UPLOADTHING_TOKEN:-}" ] && [ -f "$ROOT/scripts/services/upload-fake.ts" ]; then
+    export UPLOAD_FAKE_PORT="${UPLOAD_FAKE_PORT:-3055}"
+    export UPLOAD_FAKE_URL="http://127.0.0.1:$UPLOAD_FAKE_PORT"
+    start_service upload-fake npx --no-install tsx "$ROOT/scripts/services/upload-fake.ts"
+  fi
+}

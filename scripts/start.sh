@@ -1,0 +1,40 @@
+#!/usr/bin/env bash
+# `npm start`: set everything up and serve Beadline. `npm run dev` (--dev) serves the dev server.
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+
+MODE="production"
+[ "${1:-}" = "--dev" ] && MODE="development"
+export PORT="${PORT:-3000}"
+export APP_URL="${APP_URL:-http://127.0.0.1:$PORT}"
+
+cleanup() {
+  trap - EXIT INT TERM
+  stop_services
+  stop_postgres
+}
+trap cleanup EXIT
+trap 'exit 130' INT TERM
+
+ensure_node_modules
+ensure_postgres
+source "$ROOT/scripts/services.sh"
+start_local_services
+migrate
+(cd "$ROOT" && npx --no-install tsx --conditions=react-server db/seed.ts) || die "seeding the demo failed"
+
+cd "$ROOT"
+if [ "$MODE" = "production" ]; then
+  if build_is_stale; then
+    log "building (next build); this takes a minute or two the first time"
+    NODE_ENV=production npx --no-install next build >"$DATA_DIR/build.log" 2>&1 ||
+      { tail -40 "$DATA_DIR/build.log"; die "next build failed; full log in .data/build.log"; }
+  fi
+  NODE_ENV=production npx --no-install next start -H 127.0.0.1 -p "$PORT" &
+else
+  npx --no-install next dev -H 127.0.0.1 -p "$PORT" &
+fi
+BEADLINE_PIDS+=("$!")
+wait_for_url "$APP_URL/api/health" "web"
+npx --no-install tsx scripts/print-welcome.ts
+wait "${BEADLINE_PIDS[-1]}"

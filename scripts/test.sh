@@ -1,0 +1,60 @@
+#!/usr/bin/env bash
+# `npm test`: set up what the tests need, then type check, lint, and run unit, integration
+# (real PostgreSQL) and end-to-end (Debian's Chromium) tests. Ends with the runner's summary.
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+
+export TEST_PORT="${TEST_PORT:-3100}"
+export E2E_BASE_URL="http://127.0.0.1:$TEST_PORT"
+export CHROMIUM_PATH="${CHROMIUM_PATH:-/usr/bin/chromium}"
+
+cleanup() {
+  trap - EXIT INT TERM
+  stop_services
+  stop_postgres
+}
+trap cleanup EXIT
+trap 'exit 130' INT TERM
+
+step() { printf '\n\033[1;35m==> %s\033[0m\n' "$*"; }
+
+ensure_node_modules
+if [ ! -x "$CHROMIUM_PATH" ]; then apt_install chromium; fi
+[ -x "$CHROMIUM_PATH" ] || die "Chromium not found at $CHROMIUM_PATH"
+
+step "Type check"
+(cd "$ROOT" && npx --no-install next typegen >/dev/null && npx --no-install tsc --noEmit)
+
+step "Lint"
+(cd "$ROOT" && npx --no-install eslint --max-warnings 0 .)
+
+step "Database and local services"
+PG_DATABASE=beadline_test ensure_postgres
+# A test database of its own, rebuilt on every run.
+TEST_DB="beadline_test"
+export DATABASE_URL="${DATABASE_URL%/*}/$TEST_DB"
+recreate_database "$TEST_DB"
+migrate
+(cd "$ROOT" && npx --no-install tsx --conditions=react-server db/seed.ts)
+export UPLOAD_FAKE_PORT="${TEST_UPLOAD_FAKE_PORT:-3155}"
+source "$ROOT/scripts/services.sh"
+start_local_services
+
+step "Production build"
+cd "$ROOT"
+if build_is_stale; then
+  NODE_ENV=production npx --no-install next build >"$DATA_DIR/build.log" 2>&1 ||
+    { tail -60 "$DATA_DIR/build.log"; die "next build failed; full log in .data/build.log"; }
+fi
+export APP_URL="$E2E_BASE_URL"
+NODE_ENV=production PORT="$TEST_PORT" npx --no-install next start -H 127.0.0.1 -p "$TEST_PORT" \
+  >"$DATA_DIR/test-server.log" 2>&1 &
+BEADLINE_PIDS+=("$!")
+wait_for_url "$E2E_BASE_URL/api/health" "test-server"
+
+step "Unit, integration and end-to-end tests"
+status=0
+npx --no-install vitest run --reporter=default --reporter=json \
+  --outputFile.json="$DATA_DIR/vitest-results.json" || status=$?
+node "$ROOT/scripts/test-summary.mjs" "$DATA_DIR/vitest-results.json" || status=1
+exit "$status"
