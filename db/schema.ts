@@ -1,6 +1,10 @@
 import {
   bigserial,
   boolean,
+  customType,
+  date,
+  doublePrecision,
+  integer,
   index,
   jsonb,
   pgEnum,
@@ -10,6 +14,8 @@ import {
   timestamp,
   uniqueIndex,
 } from 'drizzle-orm/pg-core';
+
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => 'bytea' });
 
 /** The four roles of the brief; what each may do is decided in lib/auth/permissions.ts. */
 export const roleEnum = pgEnum('role', ['admin', 'analyst', 'reviewer', 'viewer']);
@@ -142,3 +148,259 @@ export type Role = (typeof roleEnum.enumValues)[number];
 export type User = typeof users.$inferSelect;
 export type Organization = typeof organizations.$inferSelect;
 export type Membership = typeof memberships.$inferSelect;
+
+// ---------------------------------------------------------------------------------------------
+// Lab records: probe liquids, coatings and specs, batches, samples, sessions, photos, drops and
+// their analyses. Every organization-owned row carries organization_id; nothing crosses them.
+// `version` supports optimistic concurrency (a stale update gets 409); `archived_at` replaces
+// deletion once results exist.
+// ---------------------------------------------------------------------------------------------
+
+const updatedAt = () => timestamp('updated_at', { withTimezone: true }).notNull().defaultNow();
+const version = () => integer('version').notNull().default(1);
+const archivedAt = () => timestamp('archived_at', { withTimezone: true });
+const orgRef = () =>
+  text('organization_id')
+    .notNull()
+    .references(() => organizations.id, { onDelete: 'cascade' });
+const userRef = (name: string) => text(name).references(() => users.id, { onDelete: 'set null' });
+
+export const specScopeEnum = pgEnum('spec_scope', ['each-drop', 'mean']);
+export const reviewStatusEnum = pgEnum('review_status', ['draft', 'submitted', 'approved', 'rejected']);
+
+/**
+ * Probe liquids with their surface tension components (mN/m). organization_id null marks the
+ * built-in library seeded from published values; labs add their own.
+ */
+export const probeLiquids = pgTable(
+  'probe_liquids',
+  {
+    id: text('id').primaryKey(),
+    organizationId: text('organization_id').references(() => organizations.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    totalMnM: doublePrecision('total_mn_m').notNull(),
+    dispersiveMnM: doublePrecision('dispersive_mn_m'),
+    polarMnM: doublePrecision('polar_mn_m'),
+    lifshitzVanDerWaalsMnM: doublePrecision('lw_mn_m'),
+    acidMnM: doublePrecision('acid_mn_m'),
+    baseMnM: doublePrecision('base_mn_m'),
+    densityGPerCm3: doublePrecision('density_g_per_cm3'),
+    /** Where each value comes from, e.g. { total: 'Ström et al. 1987', density: '…' }. */
+    sources: jsonb('sources').$type<Record<string, string>>().notNull().default({}),
+    hazardNote: text('hazard_note'),
+    version: version(),
+    archivedAt: archivedAt(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index('probe_liquids_org_idx').on(t.organizationId)],
+);
+
+export const coatings = pgTable(
+  'coatings',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    code: text('code').notNull(),
+    name: text('name').notNull(),
+    description: text('description').notNull().default(''),
+    version: version(),
+    archivedAt: archivedAt(),
+    createdByUserId: userRef('created_by_user_id'),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex('coatings_org_code_unique').on(t.organizationId, t.code)],
+);
+
+/** Acceptance limits of a coating for one probe liquid. */
+export const specs = pgTable(
+  'specs',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    coatingId: text('coating_id')
+      .notNull()
+      .references(() => coatings.id, { onDelete: 'cascade' }),
+    probeLiquidId: text('probe_liquid_id')
+      .notNull()
+      .references(() => probeLiquids.id),
+    minDeg: doublePrecision('min_deg'),
+    maxDeg: doublePrecision('max_deg'),
+    scope: specScopeEnum('scope').notNull(),
+    minSurfaceEnergyMnM: doublePrecision('min_surface_energy_mn_m'),
+    maxSurfaceEnergyMnM: doublePrecision('max_surface_energy_mn_m'),
+    /** Results count only within this many days of treatment (e.g. plasma-treated film). */
+    maxDaysSinceTreatment: doublePrecision('max_days_since_treatment'),
+    note: text('note').notNull().default(''),
+    version: version(),
+    archivedAt: archivedAt(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index('specs_coating_idx').on(t.coatingId)],
+);
+
+export type ProcessParameters = {
+  cureTemperatureC?: number;
+  cureTimeMin?: number;
+  lineSpeedMPerMin?: number;
+  plasmaDoseWMinPerM2?: number;
+  coatWeightGPerM2?: number;
+};
+
+export const batches = pgTable(
+  'batches',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    coatingId: text('coating_id')
+      .notNull()
+      .references(() => coatings.id),
+    lotCode: text('lot_code').notNull(),
+    producedOn: date('produced_on', { mode: 'string' }).notNull(),
+    process: jsonb('process').$type<ProcessParameters>().notNull().default({}),
+    notes: text('notes').notNull().default(''),
+    version: version(),
+    archivedAt: archivedAt(),
+    createdByUserId: userRef('created_by_user_id'),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [
+    uniqueIndex('batches_org_lot_unique').on(t.organizationId, t.lotCode),
+    index('batches_coating_idx').on(t.coatingId, t.producedOn),
+  ],
+);
+
+export const samples = pgTable(
+  'samples',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    batchId: text('batch_id')
+      .notNull()
+      .references(() => batches.id),
+    label: text('label').notNull(),
+    substrate: text('substrate').notNull().default(''),
+    position: text('position').notNull().default(''),
+    treatedAt: timestamp('treated_at', { withTimezone: true }),
+    notes: text('notes').notNull().default(''),
+    version: version(),
+    archivedAt: archivedAt(),
+    createdByUserId: userRef('created_by_user_id'),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [
+    uniqueIndex('samples_batch_label_unique').on(t.batchId, t.label),
+    index('samples_org_idx').on(t.organizationId),
+  ],
+);
+
+/** One sitting at the instrument. */
+export const measurementSessions = pgTable(
+  'measurement_sessions',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    operatorName: text('operator_name').notNull(),
+    measuredAt: timestamp('measured_at', { withTimezone: true }).notNull(),
+    probeLiquidId: text('probe_liquid_id').references(() => probeLiquids.id),
+    temperatureC: doublePrecision('temperature_c'),
+    humidityPct: doublePrecision('humidity_pct'),
+    dropVolumeUl: doublePrecision('drop_volume_ul'),
+    scalePxPerMm: doublePrecision('scale_px_per_mm'),
+    instrumentNotes: text('instrument_notes').notNull().default(''),
+    version: version(),
+    archivedAt: archivedAt(),
+    createdByUserId: userRef('created_by_user_id'),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index('measurement_sessions_org_time_idx').on(t.organizationId, t.measuredAt)],
+);
+
+/** An uploaded drop photo, as checked on the server. */
+export const photos = pgTable(
+  'photos',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    uploadedByUserId: userRef('uploaded_by_user_id'),
+    fileKey: text('file_key').notNull(),
+    url: text('url').notNull(),
+    originalName: text('original_name').notNull(),
+    sizeBytes: integer('size_bytes').notNull(),
+    format: text('format').notNull(),
+    width: integer('width').notNull(),
+    height: integer('height').notNull(),
+    bitDepth: integer('bit_depth').notNull(),
+    sha256: text('sha256').notNull(),
+    thumbnailPng: bytea('thumbnail_png').notNull(),
+    /** Lossless PNG for the browser when it cannot decode the original (TIFF, 16-bit, BMP). */
+    workingPng: bytea('working_png'),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index('photos_org_time_idx').on(t.organizationId, t.createdAt),
+    uniqueIndex('photos_file_key_unique').on(t.fileKey),
+  ],
+);
+
+/** One drop of one probe liquid on one sample: a photo, or an angle read by hand (import). */
+export const drops = pgTable(
+  'drops',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    sampleId: text('sample_id')
+      .notNull()
+      .references(() => samples.id),
+    probeLiquidId: text('probe_liquid_id')
+      .notNull()
+      .references(() => probeLiquids.id),
+    sessionId: text('session_id').references(() => measurementSessions.id),
+    photoId: text('photo_id').references(() => photos.id),
+    source: text('source').$type<'photo' | 'import'>().notNull().default('photo'),
+    measuredAt: timestamp('measured_at', { withTimezone: true }).notNull().defaultNow(),
+    archivedAt: archivedAt(),
+    createdByUserId: userRef('created_by_user_id'),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index('drops_sample_idx').on(t.sampleId),
+    index('drops_org_time_idx').on(t.organizationId, t.measuredAt),
+  ],
+);
+
+/** A computed result for a drop. Every re-analysis is a new revision; none is overwritten. */
+export const analyses = pgTable(
+  'analyses',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    dropId: text('drop_id')
+      .notNull()
+      .references(() => drops.id, { onDelete: 'cascade' }),
+    revision: integer('revision').notNull(),
+    method: text('method').notNull(),
+    baseline: jsonb('baseline').$type<{ x1: number; y1: number; x2: number; y2: number } | null>(),
+    options: jsonb('options').$type<Record<string, unknown>>().notNull().default({}),
+    /** The engine's whole output (contact points, profile fit, warnings, …). */
+    result: jsonb('result').$type<Record<string, unknown>>().notNull(),
+    leftDeg: doublePrecision('left_deg').notNull(),
+    rightDeg: doublePrecision('right_deg').notNull(),
+    meanDeg: doublePrecision('mean_deg').notNull(),
+    leftUncertaintyDeg: doublePrecision('left_uncertainty_deg'),
+    rightUncertaintyDeg: doublePrecision('right_uncertainty_deg'),
+    softwareVersion: text('software_version').notNull(),
+    reviewStatus: reviewStatusEnum('review_status').notNull().default('draft'),
+    createdByUserId: userRef('created_by_user_id'),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('analyses_drop_revision_unique').on(t.dropId, t.revision),
+    index('analyses_org_idx').on(t.organizationId),
+  ],
+);
