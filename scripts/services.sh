@@ -6,6 +6,8 @@ start_local_services() {
   if [ -z "${UPLOADTHING_TOKEN:-}" ] && [ -f "$ROOT/scripts/services/upload-fake.ts" ]; then
     export UPLOAD_FAKE_PORT="${UPLOAD_FAKE_PORT:-3055}"
     export UPLOAD_FAKE_URL="http://127.0.0.1:$UPLOAD_FAKE_PORT"
-    start_service upload-fake npx --no-install tsx "$ROOT/scripts/services/upload-fake.ts"
+    # Run tsx directly (not through npx) so stopping it stops the server it runs.
+    start_service upload-fake "$ROOT/node_modules/.bin/tsx" "$ROOT/scripts/services/upload-fake.ts"
+    wait_for_url "$UPLOAD_FAKE_URL/health" upload-fake
   fi
 }

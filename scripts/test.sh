@@ -37,6 +37,8 @@ recreate_database "$TEST_DB"
 migrate
 (cd "$ROOT" && npx --no-install tsx --conditions=react-server db/seed.ts)
 export UPLOAD_FAKE_PORT="${TEST_UPLOAD_FAKE_PORT:-3155}"
+export MAIL_FAKE_SMTP_PORT="${TEST_MAIL_FAKE_SMTP_PORT:-1125}"
+export MAIL_FAKE_WEB_PORT="${TEST_MAIL_FAKE_WEB_PORT:-1180}"
 source "$ROOT/scripts/services.sh"
 start_local_services
 
@@ -47,7 +49,7 @@ if build_is_stale; then
     { tail -60 "$DATA_DIR/build.log"; die "next build failed; full log in .data/build.log"; }
 fi
 export APP_URL="$E2E_BASE_URL"
-NODE_ENV=production PORT="$TEST_PORT" npx --no-install next start -H 127.0.0.1 -p "$TEST_PORT" \
+NODE_ENV=production PORT="$TEST_PORT" "$ROOT/node_modules/.bin/next" start -H 127.0.0.1 -p "$TEST_PORT" \
   >"$DATA_DIR/test-server.log" 2>&1 &
 BEADLINE_PIDS+=("$!")
 wait_for_url "$E2E_BASE_URL/api/health" "test-server"
