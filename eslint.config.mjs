@@ -4,6 +4,14 @@ import nextTypescript from 'eslint-config-next/typescript';
 const config = [
   ...nextCoreWebVitals,
   ...nextTypescript,
+  {
+    rules: {
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_', destructuredArrayIgnorePattern: '^_' },
+      ],
+    },
+  },
   { ignores: ['node_modules/**', '.next/**', '.data/**', 'next-env.d.ts', 'db/migrations/**'] },
 ];
 

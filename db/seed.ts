@@ -2,6 +2,7 @@ import { eq } from 'drizzle-orm';
 import { hashPassword } from '@/lib/auth/password';
 import { closeDb, getDb } from './client';
 import { DEMO_ORGANIZATION, DEMO_PASSWORD, DEMO_USERS } from './demo';
+import { ensureProbeLiquidLibrary } from './probe-liquid-library';
 import { recordAudit } from './queries/audit';
 import { newId } from './queries/ids';
 import { memberships, organizations, users } from './schema';
@@ -9,6 +10,7 @@ import { memberships, organizations, users } from './schema';
 /** Seeds the demo organization once; a second run finds it and leaves everything as it is. */
 export async function seedDemo(): Promise<'created' | 'present'> {
   const db = getDb();
+  await ensureProbeLiquidLibrary(db);
   const existing = await db
     .select({ id: organizations.id })
     .from(organizations)

@@ -9,13 +9,16 @@ export class HttpError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: Record<string, string>,
+    /** Merged into the body next to `error`, e.g. `{ current }` with a 409 stale_version. */
+    readonly extra?: Record<string, unknown>,
   ) {
     super(message);
     this.name = 'HttpError';
   }
 
-  toBody(): ErrorBody {
+  toBody(): ErrorBody & Record<string, unknown> {
     return {
+      ...this.extra,
       error: { code: this.code, message: this.message, ...(this.fields ? { fields: this.fields } : {}) },
     };
   }
