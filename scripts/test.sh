@@ -35,12 +35,13 @@ TEST_DB="beadline_test"
 export DATABASE_URL="${DATABASE_URL%/*}/$TEST_DB"
 recreate_database "$TEST_DB"
 migrate
-(cd "$ROOT" && npx --no-install tsx --conditions=react-server db/seed.ts)
 export UPLOAD_FAKE_PORT="${TEST_UPLOAD_FAKE_PORT:-3155}"
 export MAIL_FAKE_SMTP_PORT="${TEST_MAIL_FAKE_SMTP_PORT:-1125}"
 export MAIL_FAKE_WEB_PORT="${TEST_MAIL_FAKE_WEB_PORT:-1180}"
 source "$ROOT/scripts/services.sh"
 start_local_services
+# The demo organization, its drop photos rendered and analysed by lib/analysis (about a minute).
+(cd "$ROOT" && npx --no-install tsx --conditions=react-server db/seed.ts)
 
 step "Production build"
 cd "$ROOT"

@@ -1,0 +1,128 @@
+import 'server-only';
+import { and, desc, eq, inArray, isNull } from 'drizzle-orm';
+import { getDb } from '../client';
+import { drops, photos } from '../schema';
+import { recordAudit } from './audit';
+import { newId } from './ids';
+
+export type NewPhoto = {
+  organizationId: string;
+  uploadedByUserId: string;
+  fileKey: string;
+  url: string;
+  originalName: string;
+  sizeBytes: number;
+  format: string;
+  width: number;
+  height: number;
+  bitDepth: number;
+  sha256: string;
+  thumbnailPng: Buffer;
+  workingPng: Buffer | null;
+};
+
+export async function insertPhoto(input: NewPhoto): Promise<{ photoId: string }> {
+  const photoId = newId();
+  await getDb().transaction(async (tx) => {
+    await tx.insert(photos).values({ id: photoId, ...input });
+    await recordAudit(tx, {
+      actorUserId: input.uploadedByUserId,
+      organizationId: input.organizationId,
+      action: 'photo.upload',
+      entityType: 'photo',
+      entityId: photoId,
+      after: {
+        name: input.originalName,
+        format: input.format,
+        width: input.width,
+        height: input.height,
+        sha256: input.sha256,
+      },
+    });
+  });
+  return { photoId };
+}
+
+const photoSummaryColumns = {
+  id: photos.id,
+  originalName: photos.originalName,
+  format: photos.format,
+  width: photos.width,
+  height: photos.height,
+  bitDepth: photos.bitDepth,
+  sizeBytes: photos.sizeBytes,
+  sha256: photos.sha256,
+  createdAt: photos.createdAt,
+  uploadedByUserId: photos.uploadedByUserId,
+};
+
+export type PhotoSummary = {
+  id: string;
+  originalName: string;
+  format: string;
+  width: number;
+  height: number;
+  bitDepth: number;
+  sizeBytes: number;
+  sha256: string;
+  createdAt: Date;
+  uploadedByUserId: string | null;
+};
+
+export async function getPhoto(organizationId: string, photoId: string): Promise<PhotoSummary | null> {
+  const rows = await getDb()
+    .select(photoSummaryColumns)
+    .from(photos)
+    .where(and(eq(photos.organizationId, organizationId), eq(photos.id, photoId)))
+    .limit(1);
+  return rows[0] ?? null;
+}
+
+/** Where the bytes are: the stored original's URL and, when kept, the browser-friendly PNG. */
+export async function getPhotoSource(organizationId: string, photoId: string) {
+  const rows = await getDb()
+    .select({ url: photos.url, format: photos.format, workingPng: photos.workingPng })
+    .from(photos)
+    .where(and(eq(photos.organizationId, organizationId), eq(photos.id, photoId)))
+    .limit(1);
+  return rows[0] ?? null;
+}
+
+export async function getPhotoThumbnail(organizationId: string, photoId: string) {
+  const rows = await getDb()
+    .select({ thumbnailPng: photos.thumbnailPng, sha256: photos.sha256 })
+    .from(photos)
+    .where(and(eq(photos.organizationId, organizationId), eq(photos.id, photoId)))
+    .limit(1);
+  return rows[0] ?? null;
+}
+
+/**
+ * Photos this user uploaded that are not saved to a sample yet: the workspace's strip after a
+ * reload.
+ */
+export async function listUnsavedPhotos(organizationId: string, userId: string, limit = 50) {
+  return getDb()
+    .select(photoSummaryColumns)
+    .from(photos)
+    .leftJoin(drops, and(eq(drops.photoId, photos.id), isNull(drops.archivedAt)))
+    .where(
+      and(
+        eq(photos.organizationId, organizationId),
+        eq(photos.uploadedByUserId, userId),
+        isNull(drops.id),
+      ),
+    )
+    .orderBy(desc(photos.createdAt))
+    .limit(limit);
+}
+
+/** Photos of the organization by id, in the order asked for (unknown ids are skipped). */
+export async function listPhotosByIds(organizationId: string, ids: string[]): Promise<PhotoSummary[]> {
+  if (ids.length === 0) return [];
+  const rows = await getDb()
+    .select(photoSummaryColumns)
+    .from(photos)
+    .where(and(eq(photos.organizationId, organizationId), inArray(photos.id, ids)));
+  return ids.flatMap((id) => rows.filter((r) => r.id === id));
+}

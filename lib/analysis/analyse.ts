@@ -1,0 +1,264 @@
+/**
+ * The drop-analysis entry point: grayscale pixels in, contact angles with uncertainty out.
+ * Pure TypeScript plus OpenCV (wasm); runs unchanged in a worker, in Node and in tests.
+ */
+import { loadOpenCv, type OpenCv } from './opencv';
+import { toFloatImage, validateImage } from './image';
+import { computeEdgeMaps, detectBaseline, detectMirrorBaseline, extractProfile } from './detect';
+import { BaselineFrame } from './frame';
+import { fitterFor } from './fits';
+import { rms, type FramePoints, type ProfileFit, type ProfileFitter } from './fits/types';
+import { angleStandardErrors } from './uncertainty';
+import {
+  AnalysisError,
+  DEFAULT_METHOD,
+  type AnalyseOptions,
+  type AnalysisResult,
+  type AnalysisWarning,
+  type Baseline,
+  type GrayImage,
+  type Point,
+} from './types';
+
+const now = (): number => (typeof performance !== 'undefined' ? performance.now() : Date.now());
+
+/** Loads OpenCV (once) and analyses one drop photo. */
+export async function analyseDrop(
+  image: GrayImage,
+  options: AnalyseOptions = {},
+): Promise<AnalysisResult> {
+  const { cv } = await loadOpenCv();
+  return analyseDropWith(cv, image, options);
+}
+
+/** Points of the profile at least `margin` px above the baseline, in the baseline frame. */
+export function toFramePoints(points: Point[], frame: BaselineFrame, margin: number): FramePoints {
+  const us: number[] = [];
+  const vs: number[] = [];
+  let minU = Infinity;
+  let maxU = -Infinity;
+  for (const [x, y] of points) {
+    const [u, v] = frame.toFrame(x, y);
+    if (v < margin) continue;
+    us.push(u);
+    vs.push(v);
+    minU = Math.min(minU, u);
+    maxU = Math.max(maxU, u);
+  }
+  const axisU = (minU + maxU) / 2;
+  const side = Int8Array.from(us, (u) => (u < axisU ? -1 : 1));
+  return { u: Float64Array.from(us), v: Float64Array.from(vs), side, axisU };
+}
+
+function warning(code: AnalysisWarning['code'], message: string): AnalysisWarning {
+  return { code, message };
+}
+
+/** Analysis with an already loaded OpenCV instance (the worker and the CLI keep one). */
+export function analyseDropWith(
+  cv: OpenCv,
+  input: GrayImage,
+  options: AnalyseOptions = {},
+): AnalysisResult {
+  const started = now();
+  validateImage(input);
+  const method = options.method ?? DEFAULT_METHOD;
+  const fitter = fitterFor(method);
+  if (!fitter) throw new AnalysisError('bad-input', `Unknown method "${method}".`);
+  const { image, offsetX, offsetY } = toFloatImage(input, options.roi);
+  const warnings: AnalysisWarning[] = [];
+
+  const maps = computeEdgeMaps(cv, image);
+  const contrast = maps.brightLevel - maps.darkLevel;
+  if (contrast < 40 || contrast < 10 * maps.noise) {
+    warnings.push(
+      warning(
+        'low-contrast',
+        'The drop stands out only weakly from the backlight; check lighting and exposure.',
+      ),
+    );
+  }
+
+  let baseline: Baseline | null;
+  let baselineSource: AnalysisResult['baselineSource'];
+  if (options.baseline) {
+    const b = options.baseline;
+    baseline = { x1: b.x1 - offsetX, y1: b.y1 - offsetY, x2: b.x2 - offsetX, y2: b.y2 - offsetY };
+    baselineSource = 'given';
+  } else {
+    baseline = detectBaseline(maps, image);
+    baselineSource = 'automatic';
+    if (!baseline) {
+      baseline = detectMirrorBaseline(cv, maps, image);
+      if (baseline) {
+        warnings.push(
+          warning(
+            'baseline-not-found',
+            'No substrate line was visible; the baseline was placed where the drop meets its reflection. Check it and drag it if needed.',
+          ),
+        );
+      }
+    }
+    if (!baseline) {
+      throw new AnalysisError(
+        'baseline-not-found',
+        'No substrate line was found beside the drop; drag the baseline onto the substrate surface and analyse again.',
+      );
+    }
+  }
+  const frame = new BaselineFrame(baseline);
+  const profile = extractProfile(cv, maps, image, frame);
+  if (!profile || profile.points.length < 10) {
+    throw new AnalysisError(
+      'no-drop-found',
+      'No drop silhouette was found resting on the baseline.',
+    );
+  }
+  if (profile.needleInContact) {
+    warnings.push(
+      warning(
+        'needle-in-contact',
+        'The needle still touches the drop; its top is hidden and the shape may be pulled.',
+      ),
+    );
+  }
+  if (profile.touchesBorder) {
+    warnings.push(
+      warning(
+        'drop-cut-by-border',
+        'The drop reaches the image border; part of its outline is missing.',
+      ),
+    );
+  }
+
+  const baseMargin = Math.max(3, 2.5 * profile.edgeSpread);
+  let margin = baseMargin;
+  const fitAt = (
+    f: BaselineFrame,
+    previous?: ProfileFit,
+  ): { fit: ProfileFit; points: FramePoints } => {
+    const pts = toFramePoints(profile.points, f, margin);
+    return { fit: runFit(fitter, pts, previous), points: pts };
+  };
+  let { fit, points } = fitAt(frame);
+  // Above 90° the edge normal near the contact points down into the thin bright wedge between drop
+  // and substrate, so the substrate edge enters the sub-pixel window; keep further off the baseline.
+  const firstAngle = (fit.angles().leftDeg + fit.angles().rightDeg) / 2;
+  const extra =
+    (baseMargin + 2) * Math.sin(((Math.min(Math.max(firstAngle, 90), 180) - 90) * Math.PI) / 180);
+  // The polynomial tangent is local and would lose its nearest points, so it keeps the base margin.
+  if (extra > 0.5 && method !== 'polynomial') {
+    margin = baseMargin + extra;
+    ({ fit, points } = fitAt(frame, fit));
+  }
+  let leftCount = 0;
+  for (let i = 0; i < points.side.length; i++) if (points.side[i] < 0) leftCount++;
+  const rightCount = points.side.length - leftCount;
+  if (leftCount < 15 || rightCount < 15) {
+    warnings.push(
+      warning(
+        'too-few-edge-points',
+        `Only ${leftCount} left and ${rightCount} right edge points were usable; the angles are uncertain.`,
+      ),
+    );
+  }
+  if (!fit.converged)
+    warnings.push(
+      warning(
+        'fit-did-not-converge',
+        'The profile fit did not converge; treat the angles with care.',
+      ),
+    );
+
+  const angles = fit.angles();
+  if (!Number.isFinite(angles.leftDeg) || !Number.isFinite(angles.rightDeg)) {
+    throw new AnalysisError(
+      'fit-failed',
+      'The fitted profile does not meet the baseline; check the baseline position.',
+    );
+  }
+  const up = fitAt(frame.shifted(1), fit).fit.angles();
+  const down = fitAt(frame.shifted(-1), fit).fit.angles();
+  const shiftPart = (a: number, b: number, c: number) =>
+    Math.sqrt(((b - a) ** 2 + (c - a) ** 2) / 2);
+  const baselineShiftDeg = {
+    left: shiftPart(angles.leftDeg, up.leftDeg, down.leftDeg),
+    right: shiftPart(angles.rightDeg, up.rightDeg, down.rightDeg),
+  };
+  const se = angleStandardErrors(fit);
+  // An angle that barely depends on the data gives a huge or undefined standard error: cap it at
+  // 90° and say that this fit is not to be trusted.
+  const capped = (value: number) => (Number.isFinite(value) ? Math.min(value, 90) : 90);
+  const fitStandardErrorDeg = { left: capped(se.left), right: capped(se.right) };
+  if (fit.converged && (fitStandardErrorDeg.left > 30 || fitStandardErrorDeg.right > 30)) {
+    warnings.push(
+      warning(
+        'fit-did-not-converge',
+        'The fit leaves the angle almost undetermined; try another method or check the baseline.',
+      ),
+    );
+  }
+  if (Math.abs(angles.leftDeg - angles.rightDeg) > 2) {
+    warnings.push(
+      warning(
+        'left-right-disagree',
+        `Left and right angles differ by ${Math.abs(angles.leftDeg - angles.rightDeg).toFixed(1)}°; check the baseline and the drop's symmetry.`,
+      ),
+    );
+  }
+
+  const shape = fit.shape();
+  const toImage = (u: number, v: number): Point => {
+    const [x, y] = frame.toImage(u, v);
+    return [x + offsetX, y + offsetY];
+  };
+  const contactLeft = toImage(angles.leftU, 0);
+  const contactRight = toImage(angles.rightU, 0);
+  const scale = options.scalePxPerMm;
+  const left: Point[] = [];
+  const right: Point[] = [];
+  for (let i = 0; i < points.u.length; i++)
+    (points.side[i] < 0 ? left : right).push(toImage(points.u[i], points.v[i]));
+  const meanDeg = (angles.leftDeg + angles.rightDeg) / 2;
+  return {
+    method,
+    leftDeg: angles.leftDeg,
+    rightDeg: angles.rightDeg,
+    meanDeg,
+    leftUncertaintyDeg: Math.hypot(baselineShiftDeg.left, fitStandardErrorDeg.left),
+    rightUncertaintyDeg: Math.hypot(baselineShiftDeg.right, fitStandardErrorDeg.right),
+    uncertaintyParts: { baselineShiftDeg, fitStandardErrorDeg },
+    baseline: {
+      x1: baseline.x1 + offsetX,
+      y1: baseline.y1 + offsetY,
+      x2: baseline.x2 + offsetX,
+      y2: baseline.y2 + offsetY,
+    },
+    baselineSource,
+    contactLeft,
+    contactRight,
+    baseDiameterPx: Math.abs(angles.rightU - angles.leftU),
+    heightPx: shape.heightPx,
+    apexRadiusPx: shape.apexRadiusPx,
+    bond: shape.bond,
+    volumePx3: shape.volumePx3,
+    surfaceAreaPx2: shape.surfaceAreaPx2,
+    volumeUl: scale && shape.volumePx3 !== null ? shape.volumePx3 / scale ** 3 : null,
+    surfaceAreaMm2:
+      scale && shape.surfaceAreaPx2 !== null ? shape.surfaceAreaPx2 / scale ** 2 : null,
+    rmsResidualPx: rms(fit.residuals()),
+    edgePointCount: points.u.length,
+    edgePoints: { left, right },
+    warnings,
+    timeMs: now() - started,
+  };
+}
+
+function runFit(fitter: ProfileFitter, points: FramePoints, previous?: ProfileFit): ProfileFit {
+  if (points.u.length < 8)
+    throw new AnalysisError(
+      'no-drop-found',
+      'Too few edge points above the baseline to fit a profile.',
+    );
+  return fitter.fit(points, previous);
+}

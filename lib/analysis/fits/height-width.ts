@@ -1,0 +1,68 @@
+/**
+ * Height–width (θ/2) method: for a spherical cap tan(θ/2) = h / a, with h the drop height and a
+ * half the base width. A cross-check rather than a primary method. The base width comes from the
+ * polynomial tangent fit's contact points; the height from a cap fitted to the top fifth of the
+ * profile, so it also works when a needle hides the apex. Its standard error covers the height only.
+ */
+import { fitCircle, capShape } from './circle';
+import {
+  DEG,
+  type ContactAngles,
+  type DropShape,
+  type FramePoints,
+  type ProfileFit,
+  type ProfileFitter,
+} from './types';
+
+class HeightWidthFit implements ProfileFit {
+  readonly method = 'height-width' as const;
+  readonly parameterNames = ['apexCentreU', 'apexCentreV', 'apexRadius'] as const;
+  readonly parameters: readonly number[];
+  readonly parameterSteps: readonly number[];
+  readonly converged = true;
+  constructor(
+    private readonly apex: ProfileFit,
+    private readonly leftU: number,
+    private readonly rightU: number,
+  ) {
+    this.parameters = apex.parameters;
+    this.parameterSteps = apex.parameterSteps;
+  }
+  residuals(p: readonly number[] = this.parameters): Float64Array {
+    return this.apex.residuals(p);
+  }
+  angles(p: readonly number[] = this.parameters): ContactAngles {
+    const height = p[1] + p[2];
+    const half = (this.rightU - this.leftU) / 2;
+    const theta = 2 * Math.atan2(height, half) * DEG;
+    return { leftDeg: theta, rightDeg: theta, leftU: this.leftU, rightU: this.rightU };
+  }
+  shape(): DropShape {
+    const height = this.parameters[1] + this.parameters[2];
+    const half = (this.rightU - this.leftU) / 2;
+    // The spherical cap with this height and base: R = (a² + h²) / 2h.
+    const r = (half * half + height * height) / (2 * height);
+    return capShape({ cu: 0, cv: height - r, r });
+  }
+}
+
+export function fitHeightWidth(points: FramePoints): ProfileFit {
+  const contacts = fitCircle(points).angles();
+  let maxV = 0;
+  for (let i = 0; i < points.v.length; i++) maxV = Math.max(maxV, points.v[i]);
+  const keep: number[] = [];
+  for (let i = 0; i < points.v.length; i++) if (points.v[i] >= 0.8 * maxV) keep.push(i);
+  const top: FramePoints = {
+    u: Float64Array.from(keep, (i) => points.u[i]),
+    v: Float64Array.from(keep, (i) => points.v[i]),
+    side: Int8Array.from(keep, (i) => points.side[i]),
+    axisU: points.axisU,
+  };
+  const apex = keep.length >= 8 ? fitCircle(top) : fitCircle(points);
+  return new HeightWidthFit(apex, contacts.leftU, contacts.rightU);
+}
+
+export const heightWidthFitter: ProfileFitter = {
+  method: 'height-width',
+  fit: (points) => fitHeightWidth(points),
+};

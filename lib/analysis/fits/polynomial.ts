@@ -1,0 +1,234 @@
+/**
+ * Polynomial tangent fit: on each side, the profile points within a short arc of the contact point
+ * are fitted by a quadratic n = c₀ + c₁ s + c₂ s² in a local frame whose s axis follows the
+ * expected tangent there (from a first circle fit). In that frame the profile stays single-valued
+ * for any angle, also near and beyond 90°, unlike y(x) or x(y) fits. The contact point is where the
+ * polynomial meets the baseline; the angle is that of its tangent there.
+ */
+import { polynomialLeastSquares } from './least-squares';
+import { fitCircle } from './circle';
+import {
+  DEG,
+  type ContactAngles,
+  type DropShape,
+  type FramePoints,
+  type ProfileFit,
+  type ProfileFitter,
+} from './types';
+
+const DEGREE = 2;
+
+interface SideFrame {
+  side: -1 | 1;
+  /** Origin on the baseline (u, 0) and the local axes. */
+  origin: number;
+  e1: [number, number];
+  e2: [number, number];
+  s: Float64Array;
+  n: Float64Array;
+}
+
+function polyValue(c: readonly number[], s: number): number {
+  let value = 0;
+  for (let k = c.length - 1; k >= 0; k--) value = value * s + c[k];
+  return value;
+}
+
+function polySlope(c: readonly number[], s: number): number {
+  let value = 0;
+  for (let k = c.length - 1; k >= 1; k--) value = value * s + k * c[k];
+  return value;
+}
+
+/** Contact (s where the curve meets v = 0) and the angle there. */
+function sideAngle(frame: SideFrame, c: readonly number[]): { angleDeg: number; u: number } {
+  const [e1u, e1v] = frame.e1;
+  const [e2u, e2v] = frame.e2;
+  let s = 0;
+  for (let k = 0; k < 30; k++) {
+    const g = s * e1v + polyValue(c, s) * e2v;
+    const dg = e1v + polySlope(c, s) * e2v;
+    if (Math.abs(dg) < 1e-12) break;
+    const step = g / dg;
+    s -= step;
+    if (Math.abs(step) < 1e-10) break;
+  }
+  const slope = polySlope(c, s);
+  // Tangent along increasing s, i.e. up the profile; beyond 180° or below 0° it is clamped.
+  const tu = e1u + slope * e2u;
+  const tv = e1v + slope * e2v;
+  let angle = Math.atan2(tv, frame.side < 0 ? tu : -tu) * DEG;
+  if (angle < -90) angle = 180;
+  return {
+    angleDeg: Math.min(180, Math.max(0, angle)),
+    u: frame.origin + s * e1u + polyValue(c, s) * e2u,
+  };
+}
+
+class PolynomialFit implements ProfileFit {
+  readonly method = 'polynomial' as const;
+  readonly parameterNames: readonly string[];
+  readonly parameters: readonly number[];
+  readonly parameterSteps: readonly number[];
+  readonly converged = true;
+  constructor(
+    private readonly frames: [SideFrame, SideFrame],
+    parameters: number[],
+    private readonly heightPx: number,
+  ) {
+    this.parameters = parameters;
+    this.parameterNames = ['left', 'right'].flatMap((side) =>
+      Array.from({ length: DEGREE + 1 }, (_, k) => `${side}C${k}`),
+    );
+    this.parameterSteps = parameters.map((p) => 1e-6 * Math.max(Math.abs(p), 1e-3));
+  }
+  private split(p: readonly number[]): [readonly number[], readonly number[]] {
+    return [p.slice(0, DEGREE + 1), p.slice(DEGREE + 1)];
+  }
+  residuals(p: readonly number[] = this.parameters): Float64Array {
+    const coefficients = this.split(p);
+    const out: number[] = [];
+    this.frames.forEach((frame, k) => {
+      for (let i = 0; i < frame.s.length; i++)
+        out.push(frame.n[i] - polyValue(coefficients[k], frame.s[i]));
+    });
+    return Float64Array.from(out);
+  }
+  angles(p: readonly number[] = this.parameters): ContactAngles {
+    const [cl, cr] = this.split(p);
+    const left = sideAngle(this.frames[0], cl);
+    const right = sideAngle(this.frames[1], cr);
+    return { leftDeg: left.angleDeg, rightDeg: right.angleDeg, leftU: left.u, rightU: right.u };
+  }
+  shape(): DropShape {
+    return {
+      heightPx: this.heightPx,
+      apexRadiusPx: null,
+      bond: null,
+      volumePx3: null,
+      surfaceAreaPx2: null,
+    };
+  }
+}
+
+/**
+ * One side. The arc length L balances truncation against noise: a quadratic's slope error grows
+ * about as 0.12 (L/R)³ on a circle of radius R (measured on exact arcs), the noise error about as
+ * 10 σ / L^1.5 for points one pixel apart with scatter σ (least-squares slope at the window end).
+ * σ comes from a fit over a long window; exact data thus gets a short window, noisy data a long one.
+ */
+function fitSide(
+  points: FramePoints,
+  side: -1 | 1,
+  startU: number,
+  startTheta: number,
+  radius: number,
+  lowestV: number,
+) {
+  const minLength = lowestV / Math.max(Math.sin(startTheta), 0.1) + 6;
+  // A quartic over the long window leaves mostly noise in its residuals.
+  const longest = fitWindow(
+    points,
+    side,
+    startU,
+    startTheta,
+    Math.max(0.33 * radius, minLength + 10),
+    4,
+  );
+  if (!longest) throw new Error('Too few edge points near a contact point for the polynomial fit.');
+  const sigma = longest.residualSd;
+  let bestLength = minLength;
+  let bestError = Infinity;
+  for (let length = minLength; length <= 0.33 * radius + 1e-9; length *= 1.08) {
+    const bias = 0.12 * (length / radius) ** 3;
+    const noise = (10 * sigma) / length ** 1.5;
+    const error = Math.hypot(bias, noise);
+    if (error < bestError) {
+      bestError = error;
+      bestLength = length;
+    }
+  }
+  let chosen = fitWindow(points, side, startU, startTheta, bestLength);
+  // Too few points in a very short window: lengthen it until the fit is determined.
+  for (let length = bestLength * 1.2; !chosen && length <= 0.5 * radius; length *= 1.2) {
+    chosen = fitWindow(points, side, startU, startTheta, length);
+  }
+  if (!chosen) throw new Error('Too few edge points near a contact point for the polynomial fit.');
+  return chosen;
+}
+
+function fitWindow(
+  points: FramePoints,
+  side: -1 | 1,
+  startU: number,
+  startTheta: number,
+  length: number,
+  degree = DEGREE,
+) {
+  let origin = startU;
+  let angle = startTheta;
+  let result: {
+    frame: SideFrame;
+    coefficients: number[];
+    angle: number;
+    residualSd: number;
+  } | null = null;
+  // Re-centre the frame on the found contact point and tangent once.
+  for (let pass = 0; pass < 2; pass++) {
+    const e1: [number, number] =
+      side < 0 ? [Math.cos(angle), Math.sin(angle)] : [-Math.cos(angle), Math.sin(angle)];
+    const e2: [number, number] = [-e1[1], e1[0]];
+    const s: number[] = [];
+    const n: number[] = [];
+    for (let i = 0; i < points.u.length; i++) {
+      if (points.side[i] !== side) continue;
+      const du = points.u[i] - origin;
+      const dv = points.v[i];
+      if (Math.hypot(du, dv) > length) continue;
+      s.push(du * e1[0] + dv * e1[1]);
+      n.push(du * e2[0] + dv * e2[1]);
+    }
+    if (s.length < degree + 6) return result;
+    const fit = polynomialLeastSquares(s, n, degree);
+    const frame: SideFrame = {
+      side,
+      origin,
+      e1,
+      e2,
+      s: Float64Array.from(s),
+      n: Float64Array.from(n),
+    };
+    const found = sideAngle(frame, fit.coefficients);
+    if (!Number.isFinite(found.u) || !Number.isFinite(found.angleDeg)) return result;
+    result = {
+      frame,
+      coefficients: fit.coefficients,
+      angle: found.angleDeg,
+      residualSd: fit.residualSd,
+    };
+    origin = found.u;
+    angle = Math.min(Math.max(found.angleDeg, 1), 179) / DEG;
+  }
+  return result;
+}
+
+export function fitPolynomial(points: FramePoints): ProfileFit {
+  const circle = fitCircle(points);
+  const start = circle.angles();
+  const radius = circle.parameters[2];
+  const theta = (start.leftDeg / DEG + start.rightDeg / DEG) / 2;
+  let lowestV = Infinity;
+  for (let i = 0; i < points.v.length; i++) lowestV = Math.min(lowestV, points.v[i]);
+  const left = fitSide(points, -1, start.leftU, theta, radius, lowestV);
+  const right = fitSide(points, 1, start.rightU, theta, radius, lowestV);
+  return new PolynomialFit(
+    [left.frame, right.frame],
+    [...left.coefficients, ...right.coefficients],
+    circle.shape().heightPx,
+  );
+}
+
+export const polynomialFitter: ProfileFitter = {
+  method: 'polynomial',
+  fit: (points) => fitPolynomial(points),
+};

@@ -1,0 +1,67 @@
+import type { FitMethod } from '../types';
+
+/**
+ * Profile points in the baseline frame: u along the baseline (to the right), v perpendicular to it
+ * (up, into the drop). The baseline is v = 0. `side` is −1 for the left branch, +1 for the right.
+ */
+export interface FramePoints {
+  u: Float64Array;
+  v: Float64Array;
+  side: Int8Array;
+  /** Estimate of the drop axis (u). */
+  axisU: number;
+}
+
+export interface ContactAngles {
+  leftDeg: number;
+  rightDeg: number;
+  /** Where the fitted profile meets the baseline (u; v = 0). */
+  leftU: number;
+  rightU: number;
+}
+
+export interface DropShape {
+  heightPx: number;
+  apexRadiusPx: number | null;
+  bond: number | null;
+  volumePx3: number | null;
+  surfaceAreaPx2: number | null;
+}
+
+/**
+ * A fitted profile model: parameters, residuals and the angle at the contact points. Every method
+ * has this same shape so methods are interchangeable and can be tested side by side.
+ */
+export interface ProfileFit {
+  readonly method: FitMethod;
+  readonly parameterNames: readonly string[];
+  readonly parameters: readonly number[];
+  /** Finite-difference steps per parameter, for the standard-error estimate. */
+  readonly parameterSteps: readonly number[];
+  readonly converged: boolean;
+  /** Signed distances (px) of the fitted points from the model with these (default: fitted) parameters. */
+  residuals(parameters?: readonly number[]): Float64Array;
+  /** Contact angles and contact points for these (default: fitted) parameters. */
+  angles(parameters?: readonly number[]): ContactAngles;
+  shape(): DropShape;
+}
+
+export interface ProfileFitter {
+  readonly method: FitMethod;
+  /** `previous` (e.g. a fit of the same drop with a shifted baseline) may seed iterative fits. */
+  fit(points: FramePoints, previous?: ProfileFit): ProfileFit;
+}
+
+export const DEG = 180 / Math.PI;
+
+export function rms(values: ArrayLike<number>): number {
+  let s = 0;
+  for (let i = 0; i < values.length; i++) s += values[i] * values[i];
+  return Math.sqrt(s / Math.max(values.length, 1));
+}
+
+/** Angle inside the liquid at a contact point, from the profile tangent t (pointing up the profile). */
+export function angleFromTangent(tu: number, tv: number, side: -1 | 1): number {
+  const [au, av] = tv < 0 ? [-tu, -tv] : [tu, tv];
+  return Math.atan2(av, side === -1 ? au : -au) * DEG;
+}

@@ -1,0 +1,115 @@
+/**
+ * Public types of the drop-analysis engine. Everything here is plain data so it can cross a
+ * worker boundary (structured clone) unchanged.
+ *
+ * Coordinates: image pixels, origin at the top-left pixel centre, x right, y down. Pixel (i, j)
+ * covers [i − ½, i + ½] × [j − ½, j + ½].
+ */
+
+/** Grayscale pixels, row-major. 8-bit (0–255) or 16-bit (0–65535) samples; colour is converted by the caller. */
+export interface GrayImage {
+  width: number;
+  height: number;
+  data: Uint8Array | Uint8ClampedArray | Uint16Array;
+}
+
+export type FitMethod = 'circle' | 'polynomial' | 'ellipse' | 'young-laplace' | 'height-width';
+
+export const FIT_METHODS: readonly FitMethod[] = [
+  'circle',
+  'polynomial',
+  'ellipse',
+  'young-laplace',
+  'height-width',
+];
+
+/** The method used when none is asked for (the most accurate one on the generated fixtures). */
+export const DEFAULT_METHOD: FitMethod = 'young-laplace';
+
+/** A baseline as two image points (the substrate line through them). */
+export interface Baseline {
+  x1: number;
+  y1: number;
+  x2: number;
+  y2: number;
+}
+
+export interface RegionOfInterest {
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+}
+
+export interface AnalyseOptions {
+  method?: FitMethod;
+  /** Used exactly as given (e.g. the user's drag); found automatically when absent. */
+  baseline?: Baseline;
+  /** Only this rectangle of the image is analysed; results stay in full-image pixels. */
+  roi?: RegionOfInterest;
+  /** Camera scale; when given, volume and area are also reported in µL and mm². */
+  scalePxPerMm?: number;
+}
+
+export type WarningCode =
+  | 'left-right-disagree'
+  | 'low-contrast'
+  | 'drop-cut-by-border'
+  | 'needle-in-contact'
+  | 'too-few-edge-points'
+  | 'baseline-not-found'
+  | 'fit-did-not-converge';
+
+export interface AnalysisWarning {
+  code: WarningCode;
+  message: string;
+}
+
+export type AnalysisErrorCode = 'no-drop-found' | 'baseline-not-found' | 'fit-failed' | 'bad-input';
+
+/** Thrown by `analyseDrop` when no result can be produced at all. */
+export class AnalysisError extends Error {
+  readonly code: AnalysisErrorCode;
+  constructor(code: AnalysisErrorCode, message: string) {
+    super(message);
+    this.name = 'AnalysisError';
+    this.code = code;
+  }
+}
+
+export type Point = [number, number];
+
+export interface AnalysisResult {
+  method: FitMethod;
+  leftDeg: number;
+  rightDeg: number;
+  meanDeg: number;
+  /** Combined standard uncertainty: ±1 px baseline shift and the fit's standard error, in quadrature. */
+  leftUncertaintyDeg: number;
+  rightUncertaintyDeg: number;
+  /** The two parts of the uncertainty, for display. */
+  uncertaintyParts: {
+    baselineShiftDeg: { left: number; right: number };
+    fitStandardErrorDeg: { left: number; right: number };
+  };
+  baseline: Baseline;
+  baselineSource: 'automatic' | 'given';
+  contactLeft: Point;
+  contactRight: Point;
+  baseDiameterPx: number;
+  heightPx: number;
+  apexRadiusPx: number | null;
+  /** Bond number β = Δρ g b² / γ (apex radius b), only for the Young–Laplace fit. */
+  bond: number | null;
+  volumePx3: number | null;
+  surfaceAreaPx2: number | null;
+  volumeUl: number | null;
+  surfaceAreaMm2: number | null;
+  rmsResidualPx: number;
+  edgePointCount: number;
+  /** Sub-pixel edge points used by the fit (image pixels), for overlays. */
+  edgePoints: { left: Point[]; right: Point[] };
+  warnings: AnalysisWarning[];
+  /** Milliseconds from decoded pixels to result. */
+  timeMs: number;
+}

@@ -1,0 +1,116 @@
+import { readFile } from 'node:fs/promises';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeDb, getDb } from '@/db/client';
+import { ensureProbeLiquidLibrary } from '@/db/probe-liquid-library';
+import { newId } from '@/db/queries/ids';
+import { insertPhoto } from '@/db/queries/photos';
+import { auditEvents, batches, coatings, samples } from '@/db/schema';
+import { GET, POST } from '@/app/api/photos/[id]/drop/route';
+import { analyseDrop } from '@/lib/analysis';
+import { decodeImageBytes } from '@/lib/analysis/node/decode';
+import { eq } from 'drizzle-orm';
+import { apiRequest } from '../support/request';
+import { createMember, createOrganization } from '../support/fixtures';
+
+const FIXTURE = path.resolve(__dirname, '../../../fixtures/drops/cap-60-noisy.png');
+let lab: { id: string };
+let analyst: Awaited<ReturnType<typeof createMember>>;
+let viewer: Awaited<ReturnType<typeof createMember>>;
+let reviewer: Awaited<ReturnType<typeof createMember>>;
+let sampleId: string;
+let photoId: string;
+let bytes: Buffer;
+
+beforeAll(async () => {
+  const db = getDb();
+  await ensureProbeLiquidLibrary(db);
+  lab = await createOrganization();
+  analyst = await createMember(lab.id, 'analyst');
+  viewer = await createMember(lab.id, 'viewer');
+  reviewer = await createMember(lab.id, 'reviewer');
+  const coatingId = newId();
+  const batchId = newId();
+  sampleId = newId();
+  await db.insert(coatings).values({ id: coatingId, organizationId: lab.id, code: 'T-1', name: 'Test coat' });
+  await db.insert(batches).values({ id: batchId, organizationId: lab.id, coatingId, lotCode: 'L-1', producedOn: '2026-11-01' });
+  await db.insert(samples).values({ id: sampleId, organizationId: lab.id, batchId, label: 'S1' });
+  bytes = await readFile(FIXTURE);
+  // The photo's bytes are kept in the row (as for a TIFF's PNG copy), so no upload service is needed.
+  ({ photoId } = await insertPhoto({
+    organizationId: lab.id,
+    uploadedByUserId: analyst.userId,
+    fileKey: `test-${newId()}`,
+    url: 'http://127.0.0.1:9/unused',
+    originalName: 'cap-60-noisy.png',
+    sizeBytes: bytes.length,
+    format: 'png',
+    width: 640,
+    height: 480,
+    bitDepth: 8,
+    sha256: 'test',
+    thumbnailPng: bytes,
+    workingPng: bytes,
+  }));
+});
+
+afterAll(async () => {
+  await closeDb();
+});
+
+const save = (sessionId: string, body: Record<string, unknown>) =>
+  POST(
+    apiRequest(`/api/photos/${photoId}/drop`, { method: 'POST', sessionId, body }),
+    { params: Promise.resolve({ id: photoId }) },
+  );
+
+describe('saving a drop analysis', () => {
+  const baseline = { x1: 0, y1: 328, x2: 639, y2: 331 };
+
+  it('stores exactly what lib/analysis gives for the same photo, method and baseline', async () => {
+    const response = await save(analyst.sessionId, {
+      sampleId,
+      probeLiquidId: 'liquid-water',
+      method: 'circle',
+      baseline,
+    });
+    expect(response.status).toBe(201);
+    const saved = await response.json();
+    expect(saved.revision).toBe(1);
+    const expected = await analyseDrop(await decodeImageBytes(bytes), { method: 'circle', baseline });
+    expect(saved.result.leftDeg).toBe(expected.leftDeg);
+    expect(saved.result.rightDeg).toBe(expected.rightDeg);
+    expect(saved.result.baseline).toEqual(baseline);
+  });
+
+  it('every later save is a new revision; earlier ones are kept', async () => {
+    const second = await save(analyst.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'young-laplace', baseline: null });
+    expect((await second.json()).revision).toBe(2);
+    const listed = await GET(apiRequest(`/api/photos/${photoId}/drop`, { sessionId: analyst.sessionId }), {
+      params: Promise.resolve({ id: photoId }),
+    });
+    const { drop } = await listed.json();
+    expect(drop.revisions.map((r: { revision: number }) => r.revision)).toEqual([2, 1]);
+    expect(drop.revisions[1].method).toBe('circle');
+    const audit = await getDb().select().from(auditEvents).where(eq(auditEvents.entityId, drop.id));
+    expect(audit.map((a) => a.action)).toContain('drop.create');
+  });
+
+  it('refuses viewers and reviewers (403) and names a bad field (400)', async () => {
+    for (const member of [viewer, reviewer]) {
+      const refused = await save(member.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null });
+      expect(refused.status).toBe(403);
+    }
+    const invalid = await save(analyst.sessionId, { sampleId: '', probeLiquidId: 'liquid-water', method: 'guess', baseline: null });
+    expect(invalid.status).toBe(400);
+    const body = await invalid.json();
+    expect(Object.keys(body.error.fields)).toEqual(expect.arrayContaining(['sampleId', 'method']));
+  });
+
+  it('a sample of another organization is not found', async () => {
+    const other = await createOrganization();
+    const outsider = await createMember(other.id, 'analyst');
+    const response = await save(outsider.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null });
+    expect(response.status).toBe(404);
+  });
+});
