@@ -12,7 +12,7 @@ const config = [
       ],
     },
   },
-  { ignores: ['node_modules/**', '.next/**', '.data/**', 'next-env.d.ts', 'db/migrations/**'] },
+  { ignores: ['node_modules/**', '.next/**', '.next-*/**', '.data/**', 'next-env.d.ts', 'db/migrations/**'] },
 ];
 
 export default config;

@@ -9,7 +9,13 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
+        test: {
+          name: 'unit',
+          include: ['tests/unit/**/*.test.ts'],
+          environment: 'node',
+          // Rendering and analysing photos takes seconds on a busy 2-core machine; not a speed check.
+          testTimeout: 120_000,
+        },
       },
       {
         resolve: { alias },
@@ -19,7 +25,7 @@ export default defineConfig({
           setupFiles: ['tests/integration/setup.ts'],
           environment: 'node',
           fileParallelism: false,
-          testTimeout: 30_000,
+          testTimeout: 120_000,
           hookTimeout: 60_000,
         },
       },

@@ -1,6 +1,7 @@
 import {
   bigserial,
   boolean,
+  check,
   customType,
   date,
   doublePrecision,
@@ -14,6 +15,7 @@ import {
   timestamp,
   uniqueIndex,
 } from 'drizzle-orm/pg-core';
+import { sql } from 'drizzle-orm';
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => 'bytea' });
 
@@ -403,4 +405,145 @@ export const analyses = pgTable(
     uniqueIndex('analyses_drop_revision_unique').on(t.dropId, t.revision),
     index('analyses_org_idx').on(t.organizationId),
   ],
+);
+
+// ---------------------------------------------------------------------------------------------
+// Account tokens sent by e-mail. Only the SHA-256 of each single-use token is stored; the token
+// itself is only ever in the mail.
+// ---------------------------------------------------------------------------------------------
+
+/** "Forgot password?": valid for one hour, used once. */
+export const passwordResetTokens = pgTable(
+  'password_reset_tokens',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    tokenHash: text('token_hash').notNull(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('password_reset_tokens_token_hash_unique').on(t.tokenHash),
+    index('password_reset_tokens_user_idx').on(t.userId),
+  ],
+);
+
+/** Confirms that the user owns the e-mail address they signed up with. */
+export const emailVerificationTokens = pgTable(
+  'email_verification_tokens',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    /** The address the link was sent to; verifying only counts while the user still has it. */
+    email: text('email').notNull(),
+    tokenHash: text('token_hash').notNull(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('email_verification_tokens_token_hash_unique').on(t.tokenHash),
+    index('email_verification_tokens_user_idx').on(t.userId),
+  ],
+);
+
+// ---------------------------------------------------------------------------------------------
+// Review and sign-off: an analyst submits a sample's or a batch's results; a reviewer approves
+// (signing with their password) or rejects with a comment. The analyses reviewed are listed, so
+// a later re-analysis is a new revision that needs review again.
+// ---------------------------------------------------------------------------------------------
+
+export const reviewScopeEnum = pgEnum('review_scope', ['sample', 'batch']);
+export const reviewOutcomeEnum = pgEnum('review_outcome', ['submitted', 'approved', 'rejected', 'withdrawn']);
+
+export const reviews = pgTable(
+  'reviews',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    scope: reviewScopeEnum('scope').notNull(),
+    batchId: text('batch_id')
+      .notNull()
+      .references(() => batches.id),
+    /** Set when the scope is one sample. */
+    sampleId: text('sample_id').references(() => samples.id),
+    /** The analysis revisions under review, frozen at submission. */
+    analysisIds: jsonb('analysis_ids').$type<string[]>().notNull(),
+    status: reviewOutcomeEnum('status').notNull().default('submitted'),
+    submittedByUserId: userRef('submitted_by_user_id'),
+    submittedAt: timestamp('submitted_at', { withTimezone: true }).notNull().defaultNow(),
+    submitNote: text('submit_note').notNull().default(''),
+    decidedByUserId: userRef('decided_by_user_id'),
+    decidedAt: timestamp('decided_at', { withTimezone: true }),
+    decisionComment: text('decision_comment').notNull().default(''),
+    /** Who signed, when, how, and a digest of exactly what was signed. */
+    signature: jsonb('signature').$type<{
+      name: string;
+      email: string;
+      signedAt: string;
+      method: 'password-reconfirmed';
+      digest: string;
+    } | null>(),
+  },
+  (t) => [
+    index('reviews_org_status_idx').on(t.organizationId, t.status, t.submittedAt),
+    index('reviews_batch_idx').on(t.batchId),
+  ],
+);
+
+// ---------------------------------------------------------------------------------------------
+// Surface energy and tensiometry results, each stored with the inputs it was computed from.
+// ---------------------------------------------------------------------------------------------
+
+/** A surface free energy computed for one sample or one batch (exactly one of the two). */
+export const surfaceEnergyResults = pgTable(
+  'surface_energy_results',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    sampleId: text('sample_id').references(() => samples.id),
+    batchId: text('batch_id').references(() => batches.id),
+    /** Methods chosen and the liquids used: mean angle, SD, n and the components with their source. */
+    inputs: jsonb('inputs').$type<Record<string, unknown>>().notNull(),
+    /** Per method: components with standard uncertainties, warnings; errors of methods that failed. */
+    outputs: jsonb('outputs').$type<Record<string, unknown>>().notNull(),
+    createdByUserId: userRef('created_by_user_id'),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index('surface_energy_results_sample_idx').on(t.sampleId, t.createdAt),
+    index('surface_energy_results_batch_idx').on(t.batchId, t.createdAt),
+    index('surface_energy_results_org_idx').on(t.organizationId, t.createdAt),
+    check(
+      'surface_energy_results_one_subject',
+      sql`(${t.sampleId} is null) <> (${t.batchId} is null)`,
+    ),
+  ],
+);
+
+export const tensiometryKindEnum = pgEnum('tensiometry_kind', [
+  'wilhelmy-tension',
+  'wilhelmy-angle',
+  'water-check',
+  'pendant-drop',
+]);
+
+/** A tensiometry calculation (Wilhelmy plate, water probe check, pendant drop) with its inputs. */
+export const tensiometryResults = pgTable(
+  'tensiometry_results',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    kind: tensiometryKindEnum('kind').notNull(),
+    inputs: jsonb('inputs').$type<Record<string, unknown>>().notNull(),
+    outputs: jsonb('outputs').$type<Record<string, unknown>>().notNull(),
+    createdByUserId: userRef('created_by_user_id'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('tensiometry_results_org_idx').on(t.organizationId, t.kind, t.createdAt)],
 );

@@ -6,6 +6,7 @@ import { revalidatePath } from 'next/cache';
 import { eq } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { sessions } from '@/db/schema';
+import { deleteSessionWithAudit } from '@/db/queries/sessions';
 import { findMembership, renameOrganization as renameOrganizationQuery } from '@/db/queries/organizations';
 import { HttpError, unauthorized } from '@/lib/api/errors';
 import { getAuthContext } from '@/lib/auth/context';
@@ -18,7 +19,14 @@ export async function signOut(): Promise<void> {
   if (!isSameOrigin(await headers())) redirect('/dashboard');
   const ctx = await getAuthContext();
   const lucia = getLucia();
-  if (ctx) await lucia.invalidateSession(ctx.sessionId);
+  // Ends the session and writes the sign-out's audit row in one transaction.
+  if (ctx) {
+    await deleteSessionWithAudit({
+      sessionId: ctx.sessionId,
+      userId: ctx.user.id,
+      organizationId: ctx.organization?.id ?? null,
+    });
+  }
   const blank = lucia.createBlankSessionCookie();
   (await cookies()).set(blank.name, blank.value, blank.attributes);
   redirect('/sign-in');

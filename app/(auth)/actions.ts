@@ -4,9 +4,12 @@ import { cookies, headers } from 'next/headers';
 import { redirect } from 'next/navigation';
 import { createUserWithOrganization, EmailTakenError } from '@/db/queries/users';
 import { listMembershipsOfUser } from '@/db/queries/organizations';
+import { sendEmailVerification } from '@/db/queries/account-tokens';
+import { createSessionWithAudit } from '@/db/queries/sessions';
 import { getLucia } from '@/lib/auth/lucia';
 import { clientAddress, isSameOrigin } from '@/lib/auth/origin';
 import { hashPassword } from '@/lib/auth/password';
+import { startSession } from '@/lib/auth/session';
 import { checkCredentials } from '@/lib/auth/sign-in';
 import { fieldErrors, signInSchema, signUpSchema } from '@/lib/validation/auth';
 import type { FormState } from '@/components/auth/form-state';
@@ -14,13 +17,6 @@ import type { FormState } from '@/components/auth/form-state';
 const BAD_ORIGIN: FormState = {
   message: 'This form did not come from a Beadline page. Reload the page and try again.',
 };
-
-async function startSession(userId: string, organizationId: string | null) {
-  const lucia = getLucia();
-  const session = await lucia.createSession(userId, { activeOrganizationId: organizationId });
-  const cookie = lucia.createSessionCookie(session.id);
-  (await cookies()).set(cookie.name, cookie.value, cookie.attributes);
-}
 
 function safeNext(value: FormDataEntryValue | null): string {
   const next = typeof value === 'string' ? value : '';
@@ -42,7 +38,14 @@ export async function signIn(_previous: FormState, formData: FormData): Promise<
   });
   if (!outcome.ok) return { message: outcome.message, code: outcome.code, values };
   const memberships = await listMembershipsOfUser(outcome.userId);
-  await startSession(outcome.userId, memberships[0]?.organizationId ?? null);
+  // The session and the sign-in's audit row are written in one transaction.
+  const sessionId = await createSessionWithAudit({
+    userId: outcome.userId,
+    organizationId: memberships[0]?.organizationId ?? null,
+    ipAddress: clientAddress(requestHeaders),
+  });
+  const cookie = getLucia().createSessionCookie(sessionId);
+  (await cookies()).set(cookie.name, cookie.value, cookie.attributes);
   redirect(safeNext(formData.get('next')));
 }
 
@@ -69,6 +72,10 @@ export async function signUp(_previous: FormState, formData: FormData): Promise<
       passwordHash: await hashPassword(parsed.data.password),
     });
     await startSession(userId, organizationId);
+    // The confirmation mail is queued; sign-up never waits on it or fails for it.
+    await sendEmailVerification(userId).catch((error: unknown) =>
+      console.error('[sign-up] could not queue the confirmation mail', error),
+    );
   } catch (error) {
     if (error instanceof EmailTakenError) {
       return { fields: { email: error.message }, values };

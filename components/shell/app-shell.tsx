@@ -11,11 +11,15 @@ export function AppShell({ ctx, children }: { ctx: OrgContext; children: React.R
     { href: '/dashboard', label: 'Dashboard' },
     { href: '/coatings', label: 'Coatings' },
     { href: '/batches', label: 'Batches' },
+    { href: '/probe-liquids', label: 'Probe liquids' },
+    { href: '/sessions', label: 'Sessions' },
     ...(can(ctx.organization.role, 'records:write') ? [{ href: '/measure', label: 'Measure' }] : []),
     { href: '/compare', label: 'Compare' },
     { href: '/surface-energy', label: 'Surface energy' },
+    { href: '/tensiometry', label: 'Tensiometry' },
     { href: '/reviews', label: 'Reviews' },
     ...(can(ctx.organization.role, 'team:manage') ? [{ href: '/team', label: 'Team' }] : []),
+    ...(can(ctx.organization.role, 'audit:read') ? [{ href: '/audit', label: 'Audit log' }] : []),
   ];
   return (
     <div className="min-h-screen md:flex">

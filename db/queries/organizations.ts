@@ -1,7 +1,7 @@
 import 'server-only';
 import { and, asc, eq } from 'drizzle-orm';
 import { getDb } from '../client';
-import { memberships, organizations, users, type Role } from '../schema';
+import { memberships, organizations, sessions, users, type Role } from '../schema';
 import { recordAudit } from './audit';
 
 export type MembershipSummary = {
@@ -72,4 +72,9 @@ export async function findMembership(userId: string, organizationId: string) {
     .where(and(eq(memberships.userId, userId), eq(memberships.organizationId, organizationId)))
     .limit(1);
   return rows[0] ?? null;
+}
+
+/** Makes `organizationId` the session's active organization (after joining it, say). */
+export async function setActiveOrganization(sessionId: string, organizationId: string): Promise<void> {
+  await getDb().update(sessions).set({ activeOrganizationId: organizationId }).where(eq(sessions.id, sessionId));
 }

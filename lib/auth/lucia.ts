@@ -6,11 +6,13 @@ import { sessions, users } from '@/db/schema';
 import { appUrl } from '@/lib/config';
 
 export const SESSION_COOKIE_NAME = 'beadline_session';
+/** How long a session lives without use; db/queries/sessions.ts creates sessions with it too. */
+export const SESSION_LIFETIME = new TimeSpan(30, 'd');
 
 function createLucia() {
   const adapter = new DrizzlePostgreSQLAdapter(getDb(), sessions, users);
   return new Lucia(adapter, {
-    sessionExpiresIn: new TimeSpan(30, 'd'),
+    sessionExpiresIn: SESSION_LIFETIME,
     sessionCookie: {
       name: SESSION_COOKIE_NAME,
       attributes: {

@@ -1,15 +1,79 @@
 import type { Metadata } from 'next';
-import { EmptyState, PageHeader } from '@/components/ui/empty-state';
+import { listBatches } from '@/db/queries/batches';
+import { listCoatings } from '@/db/queries/coatings';
+import { BatchForm, BatchesTable } from '@/components/records/batches';
+import {
+  exportHref,
+  listQueryFromPage,
+  type PageSearchParams,
+} from '@/components/records/list-query';
+import { PageHeader } from '@/components/ui/empty-state';
+import { ListFilters } from '@/components/ui/list-filters';
 import { requirePage } from '@/lib/auth/guard';
+import { can } from '@/lib/auth/permissions';
+import {
+  MAX_PAGE_SIZE,
+  batchListQuerySchema,
+  coatingListQuerySchema,
+} from '@/lib/validation/records';
 
 export const metadata: Metadata = { title: 'Batches' };
 
-export default async function Page() {
-  await requirePage('organization:read');
+export default async function Page({ searchParams }: { searchParams: Promise<PageSearchParams> }) {
+  const ctx = await requirePage('organization:read');
+  const query = listQueryFromPage(batchListQuerySchema, await searchParams);
+  const [list, coatings] = await Promise.all([
+    listBatches(ctx.organization.id, query),
+    listCoatings(ctx.organization.id, coatingListQuerySchema.parse({ pageSize: MAX_PAGE_SIZE })),
+  ]);
+  const role = ctx.organization.role;
+  const coatingChoices = coatings.items.map((c) => ({
+    value: c.id,
+    label: `${c.code} · ${c.name}`,
+  }));
   return (
     <>
-      <PageHeader title="Batches" lead="Production and trial lots, their process parameters and samples." />
-      <EmptyState title="No batches yet">Batches will be listed here once they are recorded.</EmptyState>
+      <PageHeader
+        title="Batches"
+        lead="Production and trial lots, their process parameters and samples."
+      />
+      <ListFilters
+        label="Filter batches"
+        fields={[
+          {
+            name: 'coatingId',
+            label: 'Coating',
+            type: 'select',
+            options: coatingChoices,
+            all: 'All coatings',
+          },
+          { name: 'q', label: 'Lot code or notes', type: 'text', placeholder: 'B-0412' },
+          { name: 'producedFrom', label: 'Produced from', type: 'date' },
+          { name: 'producedTo', label: 'Produced to', type: 'date' },
+          { name: 'includeArchived', label: 'Show archived', type: 'checkbox' },
+        ]}
+      />
+      <BatchesTable
+        rows={list.items}
+        total={list.total}
+        page={list.page}
+        pageSize={list.pageSize}
+        sort={query.sort}
+        dir={query.dir}
+        exportHref={
+          can(role, 'results:export')
+            ? exportHref('/api/batches/export.csv', batchListQuerySchema, query)
+            : null
+        }
+      />
+      {can(role, 'records:write') ? (
+        <details className="card mt-6" id="new-batch" open={Boolean(query.coatingId) || undefined}>
+          <summary className="cursor-pointer font-semibold">Add a batch</summary>
+          <div className="mt-3">
+            <BatchForm coatings={coatingChoices} defaultCoatingId={query.coatingId} />
+          </div>
+        </details>
+      ) : null}
     </>
   );
 }

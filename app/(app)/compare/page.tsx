@@ -1,15 +1,138 @@
 import type { Metadata } from 'next';
+import { CompareControls } from '@/components/compare/compare-controls';
+import { ComparisonView } from '@/components/compare/comparison-view';
 import { EmptyState, PageHeader } from '@/components/ui/empty-state';
+import {
+  DEFAULT_BATCH_COUNT,
+  findComparisonCoating,
+  listComparisonCoatings,
+  loadComparison,
+} from '@/db/queries/comparison';
 import { requirePage } from '@/lib/auth/guard';
+import { can } from '@/lib/auth/permissions';
+import { buildComparison } from '@/lib/compare/build';
+import { compareSearch, parseCompareQuery } from '@/lib/compare/query';
+import './print.css';
 
 export const metadata: Metadata = { title: 'Compare' };
 
-export default async function Page() {
-  await requirePage('organization:read');
+export default async function ComparePage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
+  const ctx = await requirePage('organization:read');
+  const orgId = ctx.organization.id;
+  const role = ctx.organization.role;
+  const query = parseCompareQuery(await searchParams);
+  const coatings = await listComparisonCoatings(orgId);
+  const header = (
+    <PageHeader
+      title="Compare"
+      lead="Batches side by side against their specs, with the statistics behind each verdict."
+    />
+  );
+
+  if (coatings.length === 0) {
+    return (
+      <div className="compare-page">
+        {header}
+        <EmptyState title="Nothing to compare yet">
+          Comparisons need a coating with batches and measured drops. Add a coating and its batches first.
+        </EmptyState>
+      </div>
+    );
+  }
+
+  const coating = query.coating ? await findComparisonCoating(orgId, query.coating) : null;
+  const approvedOnly = !can(role, 'results:read-all');
+  const data = coating
+    ? await loadComparison(orgId, coating.id, { batches: query.batches, approvedOnly })
+    : null;
+  const known = new Set(data?.allBatches.flatMap((b) => [b.id, b.lotCode]) ?? []);
+  const unknownBatches = query.batches.filter((b) => !known.has(b));
+  const reference = data?.batches.find((b) => b.id === query.ref || b.lotCode === query.ref) ?? null;
+  const comparison =
+    data && coating
+      ? buildComparison({
+          batches: data.batches,
+          liquids: data.liquids,
+          specs: data.specs,
+          drops: data.drops,
+          referenceBatchId: reference?.id ?? null,
+        })
+      : null;
+  const chosenLots = data?.batches.map((b) => b.lotCode) ?? [];
+  const exportHref =
+    coating && data && data.drops.length > 0 && can(role, 'results:export')
+      ? `/api/compare/drops.csv${compareSearch({ coating: coating.code, batches: chosenLots, ref: null })}`
+      : null;
+
   return (
-    <>
-      <PageHeader title="Compare" lead="Batches side by side against their specs, with the statistics behind each verdict." />
-      <EmptyState title="Nothing to compare yet">Comparisons need batches with measured drops.</EmptyState>
-    </>
+    <div className="compare-page">
+      {header}
+      <CompareControls
+        key={`${coating?.id ?? ''}|${chosenLots.join(',')}|${reference?.lotCode ?? ''}`}
+        coatings={coatings}
+        coatingCode={coating?.code ?? null}
+        batches={data?.allBatches ?? []}
+        chosen={chosenLots}
+        reference={reference?.lotCode ?? null}
+      />
+
+      {query.coating && !coating ? (
+        <p role="alert" className="mb-4 rounded-md border border-coral-500 bg-coral-50 px-4 py-3 text-sm text-coral-900">
+          There is no coating &ldquo;{query.coating}&rdquo; in {ctx.organization.name}. Choose one from the list.
+        </p>
+      ) : null}
+      {unknownBatches.length > 0 ? (
+        <p role="alert" className="mb-4 rounded-md border border-amber-500 bg-amber-50 px-4 py-3 text-sm text-amber-900">
+          Not batches of {coating?.code}: {unknownBatches.join(', ')}. They are left out; tick the batches to compare above.
+        </p>
+      ) : null}
+      {query.ref && coating && !reference ? (
+        <p role="alert" className="mb-4 rounded-md border border-amber-500 bg-amber-50 px-4 py-3 text-sm text-amber-900">
+          The reference batch &ldquo;{query.ref}&rdquo; is not among the compared batches, so no batch is tested against it.
+        </p>
+      ) : null}
+
+      {!coating || !data || !comparison ? (
+        <EmptyState title="Choose a coating">
+          Pick a coating above; its newest {DEFAULT_BATCH_COUNT} batches are compared unless you tick others.
+        </EmptyState>
+      ) : data.batches.length === 0 ? (
+        <EmptyState title="No batches yet">{coating.code} has no batches to compare yet.</EmptyState>
+      ) : (
+        <>
+          <div className="mb-4 flex flex-wrap items-baseline justify-between gap-3">
+            <p className="text-sm text-ink-700">
+              <span className="font-medium">
+                {coating.code} — {coating.name}
+              </span>
+              : {data.batches.length} batch{data.batches.length === 1 ? '' : 'es'}, {data.drops.length} drop
+              {data.drops.length === 1 ? '' : 's'}
+              {reference ? `, reference batch ${reference.lotCode}` : ''}.
+              {approvedOnly ? ' Approved results only.' : ' Latest analysis of every drop, whatever its review status.'}
+            </p>
+            <div className="print-hidden flex gap-2">
+              {exportHref ? (
+                <a className="btn-quiet" href={exportHref} download>
+                  Raw drops (CSV)
+                </a>
+              ) : null}
+            </div>
+          </div>
+          {data.drops.length === 0 ? (
+            <EmptyState title="No drops to compare">
+              {approvedOnly
+                ? 'None of these batches has approved results yet. Results appear here once a reviewer approves them.'
+                : 'None of these batches has measured drops yet. Measure drops on their samples first.'}
+            </EmptyState>
+          ) : (
+            <ComparisonView comparison={comparison} />
+          )}
+        </>
+      )}
+    </div>
   );
 }

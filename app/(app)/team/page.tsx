@@ -1,15 +1,24 @@
 import type { Metadata } from 'next';
 import { PageHeader } from '@/components/ui/empty-state';
+import { InvitationRow } from '@/components/team/invitation-row';
+import { InviteForm } from '@/components/team/invite-form';
+import { MemberRow } from '@/components/team/member-row';
 import { RenameOrganizationForm } from '@/components/team/rename-organization-form';
 import { listMembers } from '@/db/queries/organizations';
+import { listOpenInvitations } from '@/db/queries/team';
 import { requirePage } from '@/lib/auth/guard';
 import { ROLE_LABELS } from '@/lib/auth/permissions';
 
 export const metadata: Metadata = { title: 'Team' };
 
+const day = (date: Date) => date.toISOString().slice(0, 10);
+
 export default async function TeamPage() {
   const ctx = await requirePage('team:manage');
-  const members = await listMembers(ctx.organization.id);
+  const [members, invitations] = await Promise.all([
+    listMembers(ctx.organization.id),
+    listOpenInvitations(ctx.organization.id),
+  ]);
   return (
     <>
       <PageHeader title="Team" lead="Who belongs to this organization and what each role may do." />
@@ -19,24 +28,91 @@ export default async function TeamPage() {
           <table className="w-full text-left text-sm">
             <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
               <tr>
-                <th scope="col" className="py-2 pr-4 font-medium">Name</th>
-                <th scope="col" className="py-2 pr-4 font-medium">E-mail</th>
-                <th scope="col" className="py-2 pr-4 font-medium">Role</th>
+                <th scope="col" className="py-2 pr-4 font-medium">
+                  Name
+                </th>
+                <th scope="col" className="py-2 pr-4 font-medium">
+                  E-mail
+                </th>
+                <th scope="col" className="py-2 pr-4 font-medium">
+                  Role
+                </th>
+                <th scope="col" className="py-2 font-medium">
+                  <span className="sr-only">Actions</span>
+                </th>
               </tr>
             </thead>
             <tbody>
               {members.map((member) => (
-                <tr key={member.userId} className="border-b border-ink-100 last:border-0">
-                  <td className="py-2 pr-4 font-medium text-ink-900">{member.name}</td>
-                  <td className="py-2 pr-4 text-ink-700">{member.email}</td>
-                  <td className="py-2 pr-4">
-                    <span title={ROLE_LABELS[member.role].summary}>{ROLE_LABELS[member.role].name}</span>
-                  </td>
-                </tr>
+                <MemberRow
+                  key={member.userId}
+                  userId={member.userId}
+                  name={member.name}
+                  email={member.email}
+                  role={member.role}
+                  isYou={member.userId === ctx.user.id}
+                />
               ))}
             </tbody>
           </table>
         </div>
+        <p className="mt-3 text-xs text-ink-500">
+          Every organization keeps at least one admin.{' '}
+          {Object.values(ROLE_LABELS)
+            .map((r) => `${r.name}: ${r.summary}.`)
+            .join(' ')}
+        </p>
+      </section>
+      <section className="card mb-6 max-w-2xl">
+        <h2 className="mb-1">Invite someone</h2>
+        <p className="mb-3 text-sm text-ink-600">
+          They get a mail with a link that works once, for 7 days. It must be accepted with the same
+          e-mail address.
+        </p>
+        <InviteForm />
+      </section>
+      <section className="card mb-6">
+        <h2 className="mb-3">Open invitations</h2>
+        {invitations.length === 0 ? (
+          <p className="text-sm text-ink-600">No open invitations.</p>
+        ) : (
+          <div className="overflow-x-auto">
+            <table className="w-full text-left text-sm">
+              <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
+                <tr>
+                  <th scope="col" className="py-2 pr-4 font-medium">
+                    E-mail
+                  </th>
+                  <th scope="col" className="py-2 pr-4 font-medium">
+                    Role
+                  </th>
+                  <th scope="col" className="py-2 pr-4 font-medium">
+                    Invited by
+                  </th>
+                  <th scope="col" className="py-2 pr-4 font-medium">
+                    Link
+                  </th>
+                  <th scope="col" className="py-2 font-medium">
+                    <span className="sr-only">Actions</span>
+                  </th>
+                </tr>
+              </thead>
+              <tbody>
+                {invitations.map((invitation) => (
+                  <InvitationRow
+                    key={invitation.id}
+                    id={invitation.id}
+                    email={invitation.email}
+                    roleName={ROLE_LABELS[invitation.role].name}
+                    invitedBy={invitation.invitedBy}
+                    expiresOn={day(invitation.expiresAt)}
+                    expired={invitation.status === 'expired'}
+                  />
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
       </section>
       <section className="card max-w-lg">
         <h2 className="mb-3">Organization name</h2>

@@ -2,6 +2,13 @@
  * Circle (spherical cap) fit: the algebraic fit of Kåsa (I. Kåsa, "A circle fitting procedure and
  * its error analysis", IEEE Trans. Instrum. Meas. 25, 1976) as the starting point, refined by
  * geometric least squares (orthogonal distances) with Levenberg–Marquardt.
+ *
+ * The angle is read from a cap fitted to the part of the profile next to the contact line (common
+ * practice for drops that gravity flattens: the cap is only asked to match the profile where the
+ * angle is read). First the whole profile is fitted; then, twice, only the points within
+ * d₀ + 0.2 R of each contact point are refitted (d₀ the distance from the contact point to the
+ * nearest visible edge point on that side, R the previous radius). On an exact spherical cap every
+ * window gives the same circle. Height, volume and area come from the whole-profile cap.
  */
 import { linearLeastSquares } from './least-squares';
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
@@ -107,6 +114,8 @@ class CircleFit implements ProfileFit {
   constructor(
     private readonly points: FramePoints,
     circle: Circle,
+    /** The cap through the whole profile, for height, volume and area. */
+    private readonly whole: Circle = circle,
   ) {
     this.parameters = [circle.cu, circle.cv, circle.r];
     this.parameterSteps = [1e-4 * circle.r, 1e-4 * circle.r, 1e-4 * circle.r];
@@ -122,14 +131,70 @@ class CircleFit implements ProfileFit {
     return circleAngles({ cu: p[0], cv: p[1], r: p[2] });
   }
   shape(): DropShape {
-    return capShape({ cu: this.parameters[0], cv: this.parameters[1], r: this.parameters[2] });
+    return capShape(this.whole);
   }
 }
 
-export function fitCircle(points: FramePoints): ProfileFit {
+/** Cap through the whole profile (Kåsa start, geometric refinement). */
+export function fitWholeCircle(points: FramePoints): Circle {
   const start = kasaCircle(points.u, points.v);
-  const { circle } = refineCircle(points.u, points.v, start);
-  return new CircleFit(points, circle);
+  return refineCircle(points.u, points.v, start).circle;
+}
+
+/** Share of the radius, beyond the nearest visible point, that the contact-line window reaches. */
+export const CONTACT_WINDOW = 0.2;
+/** Fewest points per side in a contact-line window; with fewer the whole profile is used. */
+const MIN_WINDOW_POINTS = 12;
+
+/** The points within d₀ + CONTACT_WINDOW · R of each contact point of `circle`, or null if too few. */
+function contactWindow(points: FramePoints, circle: Circle): FramePoints | null {
+  const { leftU, rightU } = circleAngles(circle);
+  if (!Number.isFinite(leftU) || !Number.isFinite(rightU)) return null;
+  const n = points.u.length;
+  const distance = new Float64Array(n);
+  const nearest = [Infinity, Infinity];
+  for (let i = 0; i < n; i++) {
+    const k = points.side[i] < 0 ? 0 : 1;
+    distance[i] = Math.hypot(points.u[i] - (k === 0 ? leftU : rightU), points.v[i]);
+    nearest[k] = Math.min(nearest[k], distance[i]);
+  }
+  const keep: number[] = [];
+  const counts = [0, 0];
+  for (let i = 0; i < n; i++) {
+    const k = points.side[i] < 0 ? 0 : 1;
+    if (distance[i] <= nearest[k] + CONTACT_WINDOW * circle.r) {
+      keep.push(i);
+      counts[k]++;
+    }
+  }
+  if (counts[0] < MIN_WINDOW_POINTS || counts[1] < MIN_WINDOW_POINTS) return null;
+  return {
+    u: Float64Array.from(keep, (i) => points.u[i]),
+    v: Float64Array.from(keep, (i) => points.v[i]),
+    side: Int8Array.from(keep, (i) => points.side[i]),
+    axisU: points.axisU,
+  };
+}
+
+/** The whole-profile cap as a ProfileFit (e.g. for the apex cap of the height–width method). */
+export function fitCircleToAll(points: FramePoints): ProfileFit {
+  return new CircleFit(points, fitWholeCircle(points));
+}
+
+export function fitCircle(points: FramePoints): ProfileFit {
+  const whole = fitWholeCircle(points);
+  let circle = whole;
+  let fitted = points;
+  for (let pass = 0; pass < 2; pass++) {
+    const window = contactWindow(points, circle);
+    if (!window) break;
+    // Started from the previous cap, which is already close: no algebraic start needed.
+    const next = refineCircle(window.u, window.v, circle).circle;
+    if (!Number.isFinite(next.r) || next.r <= 0) break;
+    circle = next;
+    fitted = window;
+  }
+  return new CircleFit(fitted, circle, whole);
 }
 
 export const circleFitter: ProfileFitter = { method: 'circle', fit: (points) => fitCircle(points) };

@@ -1,10 +1,13 @@
 /**
  * Height–width (θ/2) method: for a spherical cap tan(θ/2) = h / a, with h the drop height and a
  * half the base width. A cross-check rather than a primary method. The base width comes from the
- * polynomial tangent fit's contact points; the height from a cap fitted to the top fifth of the
- * profile, so it also works when a needle hides the apex. Its standard error covers the height only.
+ * polynomial tangent fit's contact points (where the profile itself meets the baseline; the
+ * contact-line circle's where that tangent saturates near 180°); the height from a cap fitted to the
+ * top fifth of the profile, so it also works when a needle hides the apex. Its standard error
+ * covers the height only.
  */
-import { fitCircle, capShape } from './circle';
+import { fitCircle, fitCircleToAll, capShape } from './circle';
+import { fitPolynomial } from './polynomial';
 import {
   DEG,
   type ContactAngles,
@@ -47,7 +50,14 @@ class HeightWidthFit implements ProfileFit {
 }
 
 export function fitHeightWidth(points: FramePoints): ProfileFit {
-  const contacts = fitCircle(points).angles();
+  // The base from where the profile itself meets the baseline (the polynomial tangent's contact
+  // points), not from a model of the whole drop.
+  let contacts = fitPolynomial(points).angles();
+  // Where the polynomial's extrapolated tangent passes the horizontal (near 180°) its contact point
+  // is unreliable; the contact-line cap gives the base there instead.
+  const saturated = (deg: number) => !Number.isFinite(deg) || deg >= 179.5 || deg <= 0.5;
+  if (saturated(contacts.leftDeg) || saturated(contacts.rightDeg))
+    contacts = fitCircle(points).angles();
   let maxV = 0;
   for (let i = 0; i < points.v.length; i++) maxV = Math.max(maxV, points.v[i]);
   const keep: number[] = [];
@@ -58,7 +68,7 @@ export function fitHeightWidth(points: FramePoints): ProfileFit {
     side: Int8Array.from(keep, (i) => points.side[i]),
     axisU: points.axisU,
   };
-  const apex = keep.length >= 8 ? fitCircle(top) : fitCircle(points);
+  const apex = keep.length >= 8 ? fitCircleToAll(top) : fitCircleToAll(points);
   return new HeightWidthFit(apex, contacts.leftU, contacts.rightU);
 }
 

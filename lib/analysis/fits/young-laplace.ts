@@ -13,7 +13,7 @@ import {
   findDepthIndex,
   type YoungLaplaceProfile,
 } from '../young-laplace';
-import { fitCircle } from './circle';
+import { fitWholeCircle } from './circle';
 import {
   DEG,
   type ContactAngles,
@@ -197,8 +197,8 @@ export function fitYoungLaplace(points: FramePoints, previous?: ProfileFit): Pro
   if (previous && previous.method === 'young-laplace') {
     start = [...previous.parameters];
   } else {
-    const c = fitCircle(points).parameters;
-    start = [c[0], c[1] + c[2], c[2], 0];
+    const c = fitWholeCircle(points);
+    start = [c.cu, c.cv + c.r, c.r, 0];
   }
   let depthHint = start[1] / start[2];
   const cache = new ProfileCache(() => depthHint);

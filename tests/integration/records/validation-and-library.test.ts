@@ -97,6 +97,7 @@ describe('validation', () => {
       method: 'POST',
       headers: {
         origin: APP_ORIGIN,
+        host: new URL(APP_ORIGIN).host,
         cookie: `beadline_session=${admin}`,
         'content-type': 'application/json',
       },

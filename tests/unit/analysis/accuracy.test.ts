@@ -34,19 +34,36 @@ describe('accuracy on generated photos, 10°–170°', () => {
     expect(given.maeDeg).toBeLessThanOrEqual(Math.min(0.5, auto.maeDeg + 0.05));
   }, 120_000);
 
-  it('circle, automatic and true baseline, small drops (β ≤ 0.01): MAE ≤ 1°', () => {
-    // The spherical cap is only right where gravity is negligible; at β = 0.1 the circle is off by
-    // 1–18° above 90° (see docs/analysis-accuracy.md), a limit of the model, not of the pipeline.
-    for (const baseline of ['automatic', 'true'] as const) {
-      const s = evaluate(cv, small, 'circle', baseline);
-      expect(s.failures).toBe(0);
-      expect(s.maeDeg).toBeLessThanOrEqual(1);
-    }
+  it('circle, automatic and true baseline, small drops (β ≤ 0.1), 10°–170°: MAE ≤ 1°', () => {
+    // The target. The cap is fitted next to the contact line, so gravity's flattening near
+    // the apex no longer enters; what is left at β = 0.1 is the change of curvature between the
+    // contact point and the first visible edge points (≈ 10° at 170°, see docs/analysis.md).
+    const smallDrops = [...small, ...gravity.slice(0, 9)];
+    const auto = evaluate(cv, smallDrops, 'circle', 'automatic');
+    const given = evaluate(cv, smallDrops, 'circle', 'true');
+    expect(auto.failures).toBe(0);
+    expect(given.failures).toBe(0);
+    expect(auto.maeDeg).toBeLessThanOrEqual(1);
+    // "With the true baseline given, at least as good" (within 0.05° of rounding).
+    expect(given.maeDeg).toBeLessThanOrEqual(Math.min(1, auto.maeDeg + 0.05));
+  }, 240_000);
+
+  it('circle on β ≤ 0.01 (negligible gravity) is within 0.5° MAE', () => {
+    const s = evaluate(cv, small, 'circle', 'automatic');
+    expect(s.maeDeg).toBeLessThanOrEqual(0.5);
   }, 120_000);
 
-  it('circle on β = 0.1 stays within 1° up to 90°', () => {
-    const s = evaluate(cv, gravity.slice(0, 5), 'circle', 'automatic');
-    expect(s.maxDeg).toBeLessThanOrEqual(1.5);
-    expect(s.maeDeg).toBeLessThanOrEqual(1);
+  it('circle on β = 0.1 stays within 1° up to 110°', () => {
+    const s = evaluate(cv, gravity.slice(0, 6), 'circle', 'automatic');
+    expect(s.maxDeg).toBeLessThanOrEqual(1);
   }, 120_000);
+
+  it('polynomial tangent, automatic baseline, 10°–150°, β 0–1: MAE ≤ 1°', () => {
+    // Local, so free of the shape assumption but noise-sensitive; at 170° its extrapolated tangent
+    // can pass the horizontal (see docs/analysis-accuracy.md), so 170° is left out here.
+    const cases = [...small, ...gravity].filter((r) => r.truth.contactAngleDeg <= 150);
+    const s = evaluate(cv, cases, 'polynomial', 'automatic');
+    expect(s.failures).toBe(0);
+    expect(s.maeDeg).toBeLessThanOrEqual(1);
+  }, 240_000);
 });

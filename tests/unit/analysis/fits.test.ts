@@ -101,11 +101,10 @@ describe('fits on exact synthetic points', () => {
 
     it(`polynomial tangent recovers ${thetaDeg}° on both sides`, () => {
       const a = fitPolynomial(capPoints(thetaDeg, capRadius(thetaDeg))).angles();
-      // Points start 3 px above the baseline; above 120° the extrapolation across that gap is long
-      // (3 px / sin θ of arc), and a quadratic's truncation shows: measured 0.034° at 150°, 0.26° at 170°.
-      const tolerance = thetaDeg <= 120 ? 0.01 : thetaDeg <= 150 ? 0.05 : 0.3;
-      expect(Math.abs(a.leftDeg - thetaDeg)).toBeLessThan(tolerance);
-      expect(Math.abs(a.rightDeg - thetaDeg)).toBeLessThan(tolerance);
+      // Above 140° the exact (scatter-free) points select the quartic: measured 0.0003° at 150°,
+      // 0.007° at 170° (a quadratic gave 0.02° and 0.26°).
+      expect(Math.abs(a.leftDeg - thetaDeg)).toBeLessThan(0.01);
+      expect(Math.abs(a.rightDeg - thetaDeg)).toBeLessThan(0.01);
     });
 
     it(`height–width recovers ${thetaDeg}° on a cap (tan(θ/2) = h/a, derivable)`, () => {

@@ -1,0 +1,285 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { EmptyState, PageHeader } from '@/components/ui/empty-state';
+import {
+  AUDIT_PAGE_SIZE,
+  auditFilterOptions,
+  listAuditEvents,
+  type AuditFilters,
+} from '@/db/queries/audit';
+import { requirePage } from '@/lib/auth/guard';
+
+export const metadata: Metadata = { title: 'Audit log' };
+
+type Search = {
+  action?: string;
+  entity?: string;
+  actor?: string;
+  from?: string;
+  to?: string;
+  page?: string;
+};
+
+const DATE = /^\d{4}-\d{2}-\d{2}$/;
+
+function parseDay(value: string | undefined): Date | null | undefined {
+  if (!value) return undefined;
+  if (!DATE.test(value)) return null;
+  const date = new Date(`${value}T00:00:00Z`);
+  return Number.isNaN(date.getTime()) ? null : date;
+}
+
+/** Reads the filters from the URL; bad dates are reported, not silently dropped. */
+function readFilters(search: Search): { filters: AuditFilters; errors: string[] } {
+  const errors: string[] = [];
+  const from = parseDay(search.from);
+  const to = parseDay(search.to);
+  if (from === null)
+    errors.push(`“From” must be a date like 2026-12-01; “${search.from}” was ignored.`);
+  if (to === null) errors.push(`“To” must be a date like 2026-12-01; “${search.to}” was ignored.`);
+  const filters: AuditFilters = {
+    action: search.action || undefined,
+    entityType: search.entity || undefined,
+    actorUserId: search.actor || undefined,
+    from: from ?? undefined,
+    // "To" includes the whole day.
+    to: to ? new Date(to.getTime() + 24 * 60 * 60 * 1000) : undefined,
+  };
+  if (filters.from && filters.to && filters.from >= filters.to) {
+    errors.push('“From” is after “To”; swap them to see events in that range.');
+  }
+  return { filters, errors };
+}
+
+function describe(value: unknown): string {
+  if (value === null || value === undefined) return '';
+  return Object.entries(value as Record<string, unknown>)
+    .map(([key, v]) => `${key}: ${typeof v === 'object' ? JSON.stringify(v) : String(v)}`)
+    .join(', ');
+}
+
+function timestamp(date: Date): string {
+  return date.toISOString().slice(0, 19).replace('T', ' ') + ' UTC';
+}
+
+export default async function AuditPage({ searchParams }: { searchParams: Promise<Search> }) {
+  const ctx = await requirePage('audit:read');
+  const search = await searchParams;
+  const { filters, errors } = readFilters(search);
+  const page = Math.max(1, Math.floor(Number(search.page) || 1));
+  const [{ rows, total }, options] = await Promise.all([
+    listAuditEvents(ctx.organization.id, filters, page),
+    auditFilterOptions(ctx.organization.id),
+  ]);
+  const pages = Math.max(1, Math.ceil(total / AUDIT_PAGE_SIZE));
+  const pageHref = (n: number) => {
+    const params = new URLSearchParams();
+    for (const key of ['action', 'entity', 'actor', 'from', 'to'] as const) {
+      const value = search[key];
+      if (value) params.set(key, value);
+    }
+    if (n > 1) params.set('page', String(n));
+    const query = params.toString();
+    return query ? `/audit?${query}` : '/audit';
+  };
+  return (
+    <>
+      <PageHeader
+        title="Audit log"
+        lead="Who changed what in this organization, newest first. Entries are never changed or deleted."
+      />
+      <form
+        method="get"
+        action="/audit"
+        className="card mb-6 grid gap-3 sm:grid-cols-2 lg:grid-cols-3 lg:items-end 2xl:grid-cols-6"
+      >
+        <div>
+          <label htmlFor="audit-action" className="field-label">
+            Action
+          </label>
+          <select
+            id="audit-action"
+            name="action"
+            defaultValue={search.action ?? ''}
+            className="field-input"
+          >
+            <option value="">Any</option>
+            {options.actions.map((a) => (
+              <option key={a} value={a}>
+                {a}
+              </option>
+            ))}
+          </select>
+        </div>
+        <div>
+          <label htmlFor="audit-entity" className="field-label">
+            Record type
+          </label>
+          <select
+            id="audit-entity"
+            name="entity"
+            defaultValue={search.entity ?? ''}
+            className="field-input"
+          >
+            <option value="">Any</option>
+            {options.entityTypes.map((e) => (
+              <option key={e} value={e}>
+                {e}
+              </option>
+            ))}
+          </select>
+        </div>
+        <div>
+          <label htmlFor="audit-actor" className="field-label">
+            Who
+          </label>
+          <select
+            id="audit-actor"
+            name="actor"
+            defaultValue={search.actor ?? ''}
+            className="field-input"
+          >
+            <option value="">Anyone</option>
+            {options.actors.map((a) => (
+              <option key={a.id} value={a.id}>
+                {a.name} ({a.email})
+              </option>
+            ))}
+          </select>
+        </div>
+        <div>
+          <label htmlFor="audit-from" className="field-label">
+            From
+          </label>
+          <input
+            id="audit-from"
+            name="from"
+            type="date"
+            defaultValue={search.from ?? ''}
+            className="field-input"
+          />
+        </div>
+        <div>
+          <label htmlFor="audit-to" className="field-label">
+            To
+          </label>
+          <input
+            id="audit-to"
+            name="to"
+            type="date"
+            defaultValue={search.to ?? ''}
+            className="field-input"
+          />
+        </div>
+        <div className="flex gap-2">
+          <button type="submit" className="btn-primary">
+            Filter
+          </button>
+          <Link href="/audit" className="btn-quiet">
+            Clear
+          </Link>
+        </div>
+        {errors.length ? (
+          <div role="alert" className="field-error sm:col-span-2 lg:col-span-3 2xl:col-span-6">
+            {errors.map((e) => (
+              <p key={e}>{e}</p>
+            ))}
+          </div>
+        ) : null}
+      </form>
+      {rows.length === 0 ? (
+        <EmptyState title="No audit entries">
+          No entries match these filters. Clear them to see the whole log.
+        </EmptyState>
+      ) : (
+        <section className="card">
+          <p className="mb-3 text-sm text-ink-600">
+            {total} {total === 1 ? 'entry' : 'entries'} · page {page} of {pages}
+          </p>
+          <div className="overflow-x-auto">
+            <table className="w-full text-left text-sm">
+              <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
+                <tr>
+                  <th scope="col" className="py-2 pr-4 font-medium">
+                    When
+                  </th>
+                  <th scope="col" className="py-2 pr-4 font-medium">
+                    Who
+                  </th>
+                  <th scope="col" className="py-2 pr-4 font-medium">
+                    Action
+                  </th>
+                  <th scope="col" className="py-2 pr-4 font-medium">
+                    Record
+                  </th>
+                  <th scope="col" className="py-2 font-medium">
+                    Details
+                  </th>
+                </tr>
+              </thead>
+              <tbody>
+                {rows.map((row) => (
+                  <tr key={row.id} className="border-b border-ink-100 align-top last:border-0">
+                    <td className="whitespace-nowrap py-2 pr-4 font-mono text-xs text-ink-700">
+                      {timestamp(row.createdAt)}
+                    </td>
+                    <td className="py-2 pr-4">
+                      {row.actorName ? (
+                        <>
+                          <span className="text-ink-900">{row.actorName}</span>
+                          <span className="block text-xs text-ink-500">{row.actorEmail}</span>
+                        </>
+                      ) : (
+                        <span className="text-ink-500">
+                          {row.actorUserId ? 'deleted account' : 'system'}
+                        </span>
+                      )}
+                    </td>
+                    <td className="py-2 pr-4 font-mono text-xs text-ink-900">{row.action}</td>
+                    <td className="py-2 pr-4 text-ink-700">
+                      {row.entityType}
+                      {row.entityId ? (
+                        <span className="block font-mono text-xs text-ink-500">{row.entityId}</span>
+                      ) : null}
+                    </td>
+                    <td className="max-w-md py-2 text-xs text-ink-700 [overflow-wrap:anywhere]">
+                      {row.before ? (
+                        <p>
+                          <span className="text-ink-500">before</span> {describe(row.before)}
+                        </p>
+                      ) : null}
+                      {row.after ? (
+                        <p>
+                          <span className="text-ink-500">after</span> {describe(row.after)}
+                        </p>
+                      ) : null}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          <nav
+            aria-label="Audit log pages"
+            className="mt-4 flex items-center justify-between text-sm"
+          >
+            {page > 1 ? (
+              <Link href={pageHref(page - 1)} className="btn-quiet">
+                Newer
+              </Link>
+            ) : (
+              <span />
+            )}
+            {page < pages ? (
+              <Link href={pageHref(page + 1)} className="btn-quiet">
+                Older
+              </Link>
+            ) : (
+              <span />
+            )}
+          </nav>
+        </section>
+      )}
+    </>
+  );
+}

@@ -1,0 +1,61 @@
+import type { Metadata } from 'next';
+import { listProbeLiquids } from '@/db/queries/probe-liquids';
+import {
+  exportHref,
+  listQueryFromPage,
+  type PageSearchParams,
+} from '@/components/records/list-query';
+import { ProbeLiquidsPanel } from '@/components/records/probe-liquids';
+import { PageHeader } from '@/components/ui/empty-state';
+import { ListFilters } from '@/components/ui/list-filters';
+import { requirePage } from '@/lib/auth/guard';
+import { can } from '@/lib/auth/permissions';
+import { probeLiquidListQuerySchema } from '@/lib/validation/records';
+
+export const metadata: Metadata = { title: 'Probe liquids' };
+
+export default async function Page({ searchParams }: { searchParams: Promise<PageSearchParams> }) {
+  const ctx = await requirePage('organization:read');
+  const query = listQueryFromPage(probeLiquidListQuerySchema, await searchParams);
+  const list = await listProbeLiquids(ctx.organization.id, query);
+  const role = ctx.organization.role;
+  return (
+    <>
+      <PageHeader
+        title="Probe liquids"
+        lead="Surface tension and its components, in mN/m, for each test liquid. The built-in library carries published values with their sources; add your own liquids with yours."
+      />
+      <ListFilters
+        label="Filter probe liquids"
+        fields={[
+          { name: 'q', label: 'Name', type: 'text', placeholder: 'Water' },
+          {
+            name: 'origin',
+            label: 'Origin',
+            type: 'select',
+            all: 'Library and own',
+            options: [
+              { value: 'built-in', label: 'Built-in library' },
+              { value: 'own', label: 'Your organization' },
+            ],
+          },
+          { name: 'includeArchived', label: 'Show archived', type: 'checkbox' },
+        ]}
+      />
+      <ProbeLiquidsPanel
+        canManage={can(role, 'catalog:manage')}
+        rows={list.items}
+        total={list.total}
+        page={list.page}
+        pageSize={list.pageSize}
+        sort={query.sort}
+        dir={query.dir}
+        exportHref={
+          can(role, 'results:export')
+            ? exportHref('/api/probe-liquids/export.csv', probeLiquidListQuerySchema, query)
+            : null
+        }
+      />
+    </>
+  );
+}

@@ -1,0 +1,94 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { ReviewDecisionForm } from '@/components/reviews/decision-form';
+import { PageHeader } from '@/components/ui/empty-state';
+import { getReview } from '@/db/queries/reviews';
+import { requirePage } from '@/lib/auth/guard';
+import { can } from '@/lib/auth/permissions';
+
+export const metadata: Metadata = { title: 'Review' };
+
+export default async function ReviewPage({ params }: { params: Promise<{ id: string }> }) {
+  const ctx = await requirePage('results:read-all');
+  const { id } = await params;
+  const review = await getReview(ctx.organization.id, id);
+  if (!review) notFound();
+  const title = `${review.coatingCode} · ${review.lotCode}${review.sampleLabel ? ` / ${review.sampleLabel}` : ''}`;
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <Link href="/reviews" className="text-lagoon-700 hover:underline">
+          ← Reviews
+        </Link>
+      </p>
+      <PageHeader
+        title={`Review of ${title}`}
+        lead={`Submitted by ${review.submittedBy ?? 'a former member'} on ${review.submittedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC. Status: ${review.status}.`}
+      />
+      {review.submitNote ? <p className="mb-4 rounded-md bg-white px-3 py-2 text-sm">Note: {review.submitNote}</p> : null}
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+        <section className="card overflow-x-auto">
+          <h2 className="mb-3">Results under review</h2>
+          {review.supersededCount > 0 ? (
+            <p className="mb-3 rounded-md bg-amber-50 px-3 py-2 text-sm text-amber-900">
+              {review.supersededCount} of the submitted results were re-analysed since submission; they need a new review.
+            </p>
+          ) : null}
+          <table className="w-full text-left text-sm" data-testid="review-rows">
+            <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
+              <tr>
+                <th scope="col" className="py-2 pr-3 font-medium">Sample</th>
+                <th scope="col" className="py-2 pr-3 font-medium">Liquid</th>
+                <th scope="col" className="py-2 pr-3 font-medium">Method</th>
+                <th scope="col" className="py-2 pr-3 text-right font-medium">Left (°)</th>
+                <th scope="col" className="py-2 pr-3 text-right font-medium">Right (°)</th>
+                <th scope="col" className="py-2 pr-3 text-right font-medium">Mean (°)</th>
+              </tr>
+            </thead>
+            <tbody>
+              {review.rows.map((r) => (
+                <tr key={r.analysisId} className="border-b border-ink-100 last:border-0">
+                  <td className="py-1.5 pr-3">{r.sampleLabel}</td>
+                  <td className="py-1.5 pr-3">{r.liquidName}</td>
+                  <td className="py-1.5 pr-3 text-xs">
+                    {r.method} r{r.revision}
+                  </td>
+                  <td className="py-1.5 pr-3 text-right font-mono">{r.leftDeg.toFixed(1)}</td>
+                  <td className="py-1.5 pr-3 text-right font-mono">{r.rightDeg.toFixed(1)}</td>
+                  <td className="py-1.5 pr-3 text-right font-mono">{r.meanDeg.toFixed(1)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </section>
+        <section className="card h-fit">
+          {review.status === 'submitted' ? (
+            can(ctx.organization.role, 'review:decide') ? (
+              <>
+                <h2 className="mb-3">Decision</h2>
+                <ReviewDecisionForm reviewId={review.id} />
+              </>
+            ) : (
+              <p className="text-sm text-ink-600">Waiting for a reviewer.</p>
+            )
+          ) : (
+            <div className="space-y-2 text-sm" data-testid="review-outcome">
+              <h2>{review.status === 'approved' ? 'Approved and signed' : 'Rejected'}</h2>
+              <p>
+                By {review.decidedBy ?? '—'} on {review.decidedAt?.toISOString().slice(0, 16).replace('T', ' ')} UTC
+              </p>
+              {review.decisionComment ? <p>Comment: {review.decisionComment}</p> : null}
+              {review.signature ? (
+                <p className="break-all text-xs text-ink-500">
+                  Signature: {review.signature.name} ({review.signature.email}), password reconfirmed; digest{' '}
+                  {review.signature.digest.slice(0, 16)}…
+                </p>
+              ) : null}
+            </div>
+          )}
+        </section>
+      </div>
+    </>
+  );
+}

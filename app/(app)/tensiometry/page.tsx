@@ -1,0 +1,25 @@
+import type { Metadata } from 'next';
+import { TensiometryWorkspace } from '@/components/tensiometry/workspace';
+import { PageHeader } from '@/components/ui/empty-state';
+import { listTensiometryResults } from '@/db/queries/tensiometry';
+import { requirePage } from '@/lib/auth/guard';
+import { can } from '@/lib/auth/permissions';
+
+export const metadata: Metadata = { title: 'Tensiometry' };
+
+export default async function TensiometryPage() {
+  const ctx = await requirePage('organization:read');
+  const saved = await listTensiometryResults(ctx.organization.id, { limit: 30 });
+  return (
+    <>
+      <PageHeader
+        title="Tensiometry"
+        lead="Surface tension or contact angle from a Wilhelmy plate reading, and a check of the probe water against its published surface tension."
+      />
+      <TensiometryWorkspace
+        canSave={can(ctx.organization.role, 'records:write')}
+        initialSaved={saved.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }))}
+      />
+    </>
+  );
+}

@@ -1,0 +1,45 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { passwordResetTokenStatus, resetTokenError } from '@/db/queries/account-tokens';
+import { ResetPasswordForm } from '@/components/auth/reset-password-form';
+
+export const metadata: Metadata = { title: 'Set a new password' };
+
+export default async function ResetPasswordPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ token?: string }>;
+}) {
+  const { token = '' } = await searchParams;
+  const status = await passwordResetTokenStatus(token);
+  return (
+    <>
+      <h1 className="mb-1">Set a new password</h1>
+      {status === 'valid' ? (
+        <>
+          <p className="mb-6 text-sm text-ink-600">
+            Choose a new password. You will be signed out everywhere and can then sign in with it.
+          </p>
+          <ResetPasswordForm token={token} />
+        </>
+      ) : (
+        <>
+          <p
+            role="alert"
+            className="mt-4 rounded-md border border-coral-100 bg-coral-50 px-3 py-2 text-sm text-coral-900"
+          >
+            {resetTokenError(status).message}
+          </p>
+          <p className="mt-6 text-sm">
+            <Link
+              href="/forgot-password"
+              className="font-medium text-lagoon-700 underline-offset-2 hover:underline"
+            >
+              Ask for a new link
+            </Link>
+          </p>
+        </>
+      )}
+    </>
+  );
+}

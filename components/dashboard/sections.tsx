@@ -1,0 +1,115 @@
+import Link from 'next/link';
+import type { OutOfSpecBatch, RecentDrop } from '@/db/queries/dashboard';
+
+const STATUS: Record<RecentDrop['reviewStatus'], string> = {
+  draft: 'Draft',
+  submitted: 'Submitted',
+  approved: 'Approved',
+  rejected: 'Rejected',
+};
+
+const when = (iso: string) =>
+  new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }).format(
+    new Date(iso),
+  ) + ' UTC';
+
+export function RecentDrops({ drops, approvedOnly }: { drops: RecentDrop[]; approvedOnly: boolean }) {
+  return (
+    <section className="card lg:col-span-2" aria-labelledby="recent-drops">
+      <h2 id="recent-drops">Recent drops</h2>
+      {drops.length === 0 ? (
+        <p className="mt-2 text-sm text-ink-600">
+          {approvedOnly
+            ? 'No approved results yet. Drops appear here once a reviewer approves them.'
+            : 'No drop photos have been measured in this organization yet.'}
+        </p>
+      ) : (
+        <div className="mt-3 overflow-x-auto">
+          <table className="w-full min-w-[36rem] text-sm" data-testid="recent-drops">
+            <thead>
+              <tr className="text-left text-xs uppercase tracking-wide text-ink-500">
+                <th scope="col" className="py-1.5 pr-3">Sample</th>
+                <th scope="col" className="py-1.5 pr-3">Liquid</th>
+                <th scope="col" className="py-1.5 pr-3 text-right">Mean angle</th>
+                <th scope="col" className="py-1.5 pr-3">When</th>
+                <th scope="col" className="py-1.5 pr-3">Who</th>
+                <th scope="col" className="py-1.5">Status</th>
+              </tr>
+            </thead>
+            <tbody>
+              {drops.map((d) => (
+                <tr key={d.dropId} className="border-t border-ink-100">
+                  <td className="py-1.5 pr-3">
+                    <span className="font-mono">{d.lotCode}</span> · {d.sampleLabel}
+                    <span className="block text-xs text-ink-500">{d.coatingCode}</span>
+                  </td>
+                  <td className="py-1.5 pr-3">{d.liquidName}</td>
+                  <td className="py-1.5 pr-3 text-right tabular-nums">{d.meanDeg.toFixed(1)}°</td>
+                  <td className="py-1.5 pr-3 whitespace-nowrap">{when(d.measuredAt)}</td>
+                  <td className="py-1.5 pr-3">{d.measuredBy ?? 'Former member'}</td>
+                  <td className="py-1.5">{STATUS[d.reviewStatus]}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </section>
+  );
+}
+
+export function PendingReviews({ count }: { count: number | null }) {
+  return (
+    <section className="card" aria-labelledby="pending-reviews">
+      <h2 id="pending-reviews">Pending reviews</h2>
+      {count === null ? (
+        <p className="mt-2 text-sm text-ink-600">Reviews are handled by reviewers; you see results once they are approved.</p>
+      ) : (
+        <>
+          <p className="mt-2 text-3xl font-semibold tabular-nums text-ink-950" data-testid="pending-reviews-count">
+            {count}
+          </p>
+          <p className="text-sm text-ink-600">
+            {count === 0
+              ? 'Nothing is waiting for review.'
+              : `${count === 1 ? 'result is' : 'results are'} submitted and waiting for a reviewer.`}
+          </p>
+        </>
+      )}
+    </section>
+  );
+}
+
+export function OutOfSpec({ batches }: { batches: OutOfSpecBatch[] }) {
+  return (
+    <section className="card lg:col-span-3" aria-labelledby="out-of-spec">
+      <h2 id="out-of-spec">Batches out of spec</h2>
+      {batches.length === 0 ? (
+        <p className="mt-2 text-sm text-ink-600">
+          No batch fails its spec among each coating&apos;s newest 12 batches.
+        </p>
+      ) : (
+        <ul className="mt-2 divide-y divide-ink-100 text-sm" data-testid="out-of-spec">
+          {batches.map((b) => (
+            <li key={`${b.coatingCode}-${b.lotCode}-${b.liquidName}`} className="py-2">
+              <Link
+                className="font-mono font-medium text-lagoon-700 underline"
+                href={`/compare?coating=${encodeURIComponent(b.coatingCode)}`}
+              >
+                {b.coatingCode} {b.lotCode}
+              </Link>{' '}
+              <span className="text-ink-500">({b.producedOn}, {b.liquidName})</span>
+              <span className="block text-ink-700">
+                Fails: {b.rule}. {b.reason}
+              </span>
+            </li>
+          ))}
+        </ul>
+      )}
+      <p className="mt-2 text-xs text-ink-600">
+        Results that release product for safety-relevant uses must follow the lab&apos;s validated procedure and qualified
+        sign-off.
+      </p>
+    </section>
+  );
+}

@@ -1,0 +1,39 @@
+import type { z } from 'zod';
+import { listQueryToSearchParams, searchParamsToObject } from '@/lib/validation/records';
+
+export type PageSearchParams = Record<string, string | string[] | undefined>;
+
+/**
+ * A page's list query from its URL. A bad parameter (hand-edited link) falls back to the
+ * default for that parameter instead of failing the page.
+ */
+export function listQueryFromPage<Schema extends z.ZodType>(
+  schema: Schema,
+  searchParams: PageSearchParams,
+  prefix = '',
+): z.output<Schema> {
+  const raw = searchParamsToObject(searchParams);
+  const input: Record<string, string> = {};
+  for (const [key, value] of Object.entries(raw)) {
+    if (!prefix) input[key] = value;
+    else if (key.startsWith(prefix) && key.length > prefix.length)
+      input[key[prefix.length].toLowerCase() + key.slice(prefix.length + 1)] = value;
+  }
+  const parsed = schema.safeParse(input);
+  if (parsed.success) return parsed.data;
+  const bad = new Set(parsed.error.issues.map((issue) => String(issue.path[0])));
+  return schema.parse(Object.fromEntries(Object.entries(input).filter(([key]) => !bad.has(key))));
+}
+
+/** The export link of a list: the same filters and sort, without the page. */
+export function exportHref<Schema extends z.ZodType>(
+  path: string,
+  schema: Schema,
+  query: Partial<z.output<Schema>>,
+): string {
+  const params = listQueryToSearchParams(schema, query);
+  params.delete('page');
+  params.delete('pageSize');
+  const search = params.toString();
+  return search ? `${path}?${search}` : path;
+}

@@ -1,0 +1,100 @@
+'use client';
+
+import { usePathname, useRouter, useSearchParams } from 'next/navigation';
+
+export type FilterField =
+  | { name: string; label: string; type: 'text' | 'date'; placeholder?: string }
+  | {
+      name: string;
+      label: string;
+      type: 'select';
+      options: { value: string; label: string }[];
+      all: string;
+    }
+  | { name: string; label: string; type: 'checkbox' };
+
+/**
+ * The filter bar of a list: its values are the URL's search params, so applying a filter makes
+ * a link that can be shared. Applying returns to the first page; sort and hidden columns stay.
+ */
+export function ListFilters({ fields, label }: { fields: FilterField[]; label: string }) {
+  const router = useRouter();
+  const pathname = usePathname();
+  const searchParams = useSearchParams();
+
+  const apply = (data: FormData) => {
+    const params = new URLSearchParams(searchParams.toString());
+    for (const field of fields) {
+      const value =
+        field.type === 'checkbox'
+          ? data.get(field.name)
+            ? 'true'
+            : ''
+          : String(data.get(field.name) ?? '').trim();
+      if (value) params.set(field.name, value);
+      else params.delete(field.name);
+    }
+    params.delete('page');
+    const query = params.toString();
+    router.push(query ? `${pathname}?${query}` : pathname);
+  };
+
+  return (
+    <form
+      aria-label={label}
+      className="mb-4 flex flex-wrap items-end gap-3"
+      onSubmit={(event) => {
+        event.preventDefault();
+        apply(new FormData(event.currentTarget));
+      }}
+      key={searchParams.toString()}
+    >
+      {fields.map((field) => {
+        const id = `filter-${field.name}`;
+        const value = searchParams.get(field.name) ?? '';
+        if (field.type === 'checkbox') {
+          return (
+            <label key={field.name} htmlFor={id} className="flex items-center gap-2 pb-2 text-sm">
+              <input
+                id={id}
+                name={field.name}
+                type="checkbox"
+                defaultChecked={value === 'true' || value === '1'}
+              />
+              {field.label}
+            </label>
+          );
+        }
+        return (
+          <div key={field.name}>
+            <label htmlFor={id} className="field-label">
+              {field.label}
+            </label>
+            {field.type === 'select' ? (
+              <select id={id} name={field.name} defaultValue={value} className="field-input">
+                <option value="">{field.all}</option>
+                {field.options.map((option) => (
+                  <option key={option.value} value={option.value}>
+                    {option.label}
+                  </option>
+                ))}
+              </select>
+            ) : (
+              <input
+                id={id}
+                name={field.name}
+                type={field.type}
+                defaultValue={value}
+                placeholder={field.type === 'text' ? field.placeholder : undefined}
+                className="field-input"
+              />
+            )}
+          </div>
+        );
+      })}
+      <button type="submit" className="btn-quiet">
+        Apply filters
+      </button>
+    </form>
+  );
+}

@@ -1,0 +1,220 @@
+import 'server-only';
+import { and, asc, desc, eq, inArray, isNull, or, sql } from 'drizzle-orm';
+import type {
+  ComparisonBatchInput,
+  ComparisonDropInput,
+  ComparisonLiquidInput,
+  ComparisonSpecInput,
+} from '@/lib/compare/types';
+import { getDb } from '../client';
+import { batches, coatings, probeLiquids, specs } from '../schema';
+
+/** Batches compared when none are chosen: the coating's newest ones. */
+export const DEFAULT_BATCH_COUNT = 12;
+
+export interface ComparisonCoating {
+  id: string;
+  code: string;
+  name: string;
+}
+
+/** A drop of the comparison with what the CSV export also needs. */
+export interface ComparisonDropRow extends ComparisonDropInput {
+  lotCode: string;
+  producedOn: string;
+  analysisId: string;
+  revision: number;
+  reviewStatus: 'draft' | 'submitted' | 'approved' | 'rejected';
+}
+
+export interface ComparisonData {
+  coating: ComparisonCoating;
+  /** Every live batch of the coating, newest first (for the picker). */
+  allBatches: ComparisonBatchInput[];
+  /** The batches compared, newest first. */
+  batches: ComparisonBatchInput[];
+  specs: ComparisonSpecInput[];
+  liquids: ComparisonLiquidInput[];
+  drops: ComparisonDropRow[];
+}
+
+/** Live coatings of the organization, by code. */
+export async function listComparisonCoatings(organizationId: string): Promise<ComparisonCoating[]> {
+  return getDb()
+    .select({ id: coatings.id, code: coatings.code, name: coatings.name })
+    .from(coatings)
+    .where(and(eq(coatings.organizationId, organizationId), isNull(coatings.archivedAt)))
+    .orderBy(asc(coatings.code));
+}
+
+/** A coating of the organization by id or by code; null when there is none. */
+export async function findComparisonCoating(
+  organizationId: string,
+  idOrCode: string,
+): Promise<ComparisonCoating | null> {
+  const [row] = await getDb()
+    .select({ id: coatings.id, code: coatings.code, name: coatings.name })
+    .from(coatings)
+    .where(
+      and(
+        eq(coatings.organizationId, organizationId),
+        isNull(coatings.archivedAt),
+        or(eq(coatings.id, idOrCode), eq(coatings.code, idOrCode)),
+      ),
+    )
+    .limit(1);
+  return row ?? null;
+}
+
+type DropSqlRow = {
+  drop_id: string;
+  analysis_id: string;
+  revision: number;
+  review_status: ComparisonDropRow['reviewStatus'];
+  batch_id: string;
+  lot_code: string;
+  produced_on: string;
+  sample_id: string;
+  sample_label: string;
+  treated_at: Date | string | null;
+  measured_at: Date | string;
+  probe_liquid_id: string;
+  left_deg: number;
+  right_deg: number;
+  mean_deg: number;
+};
+
+const iso = (v: Date | string) => (v instanceof Date ? v : new Date(v)).toISOString();
+
+/**
+ * Every live drop of the given batches with its latest analysis (highest revision). With
+ * `approvedOnly` a drop counts only when that latest revision is approved — a newer draft
+ * replaces an approved result until it is approved in turn. One query; the lateral subquery
+ * walks analyses_drop_revision_unique (drop_id, revision) backwards, drops come through
+ * drops_sample_idx and samples through samples_batch_label_unique.
+ */
+export async function comparisonDrops(
+  organizationId: string,
+  batchIds: readonly string[],
+  options: { approvedOnly: boolean },
+): Promise<ComparisonDropRow[]> {
+  if (batchIds.length === 0) return [];
+  const ids = sql.join(
+    batchIds.map((id) => sql`${id}`),
+    sql`, `,
+  );
+  const rows = await getDb().execute<DropSqlRow>(sql`
+    select d.id as drop_id, a.id as analysis_id, a.revision, a.review_status,
+           b.id as batch_id, b.lot_code, b.produced_on::text as produced_on,
+           s.id as sample_id, s.label as sample_label, s.treated_at,
+           d.measured_at, d.probe_liquid_id, a.left_deg, a.right_deg, a.mean_deg
+    from batches b
+    join samples s on s.batch_id = b.id and s.organization_id = b.organization_id
+                  and s.archived_at is null
+    join drops d on d.sample_id = s.id and d.organization_id = b.organization_id
+                and d.archived_at is null
+    join lateral (
+      select x.id, x.revision, x.review_status, x.left_deg, x.right_deg, x.mean_deg
+      from analyses x
+      where x.drop_id = d.id
+      order by x.revision desc
+      limit 1
+    ) a on true
+    where b.organization_id = ${organizationId}
+      and b.id in (${ids})
+      and b.archived_at is null
+      ${options.approvedOnly ? sql`and a.review_status = 'approved'` : sql``}
+    order by b.produced_on, b.lot_code, s.label, d.measured_at, d.id
+  `);
+  return rows.map((r) => ({
+    dropId: r.drop_id,
+    analysisId: r.analysis_id,
+    revision: Number(r.revision),
+    reviewStatus: r.review_status,
+    batchId: r.batch_id,
+    lotCode: r.lot_code,
+    producedOn: r.produced_on,
+    sampleId: r.sample_id,
+    sampleLabel: r.sample_label,
+    probeLiquidId: r.probe_liquid_id,
+    measuredAt: iso(r.measured_at),
+    treatedAt: r.treated_at === null ? null : iso(r.treated_at),
+    leftDeg: Number(r.left_deg),
+    rightDeg: Number(r.right_deg),
+    meanDeg: Number(r.mean_deg),
+  }));
+}
+
+/**
+ * What a comparison of one coating needs: its batches (the chosen ones, by id or lot code,
+ * or else the newest twelve), its live specs, the probe liquids involved and every drop's
+ * latest analysis (approved ones only for roles that may not read every result).
+ */
+export async function loadComparison(
+  organizationId: string,
+  coatingId: string,
+  options: { batches?: readonly string[]; approvedOnly: boolean },
+): Promise<Omit<ComparisonData, 'coating'>> {
+  const db = getDb();
+  const [allBatches, specRows] = await Promise.all([
+    db
+      .select({ id: batches.id, lotCode: batches.lotCode, producedOn: batches.producedOn })
+      .from(batches)
+      .where(
+        and(
+          eq(batches.organizationId, organizationId),
+          eq(batches.coatingId, coatingId),
+          isNull(batches.archivedAt),
+        ),
+      )
+      .orderBy(desc(batches.producedOn), desc(batches.lotCode)),
+    db
+      .select({
+        id: specs.id,
+        probeLiquidId: specs.probeLiquidId,
+        minDeg: specs.minDeg,
+        maxDeg: specs.maxDeg,
+        scope: specs.scope,
+        maxDaysSinceTreatment: specs.maxDaysSinceTreatment,
+        note: specs.note,
+      })
+      .from(specs)
+      .where(
+        and(
+          eq(specs.organizationId, organizationId),
+          eq(specs.coatingId, coatingId),
+          isNull(specs.archivedAt),
+        ),
+      )
+      .orderBy(asc(specs.createdAt), asc(specs.id)),
+  ]);
+  const wanted = new Set(options.batches ?? []);
+  const chosen =
+    wanted.size > 0
+      ? allBatches.filter((b) => wanted.has(b.id) || wanted.has(b.lotCode))
+      : allBatches.slice(0, DEFAULT_BATCH_COUNT);
+  const drops = await comparisonDrops(
+    organizationId,
+    chosen.map((b) => b.id),
+    { approvedOnly: options.approvedOnly },
+  );
+  const liquidIds = [
+    ...new Set([...drops.map((d) => d.probeLiquidId), ...specRows.map((s) => s.probeLiquidId)]),
+  ];
+  const liquids =
+    liquidIds.length === 0
+      ? []
+      : await db
+          .select({ id: probeLiquids.id, name: probeLiquids.name })
+          .from(probeLiquids)
+          .where(
+            and(
+              inArray(probeLiquids.id, liquidIds),
+              or(
+                isNull(probeLiquids.organizationId),
+                eq(probeLiquids.organizationId, organizationId),
+              ),
+            ),
+          );
+  return { allBatches, batches: chosen, specs: specRows, liquids, drops };
+}

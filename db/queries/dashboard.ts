@@ -1,0 +1,115 @@
+import 'server-only';
+import { sql } from 'drizzle-orm';
+import { batchesOutOfSpec, buildComparison } from '@/lib/compare/build';
+import { getDb } from '../client';
+import { listComparisonCoatings, loadComparison } from './comparison';
+
+export interface RecentDrop {
+  dropId: string;
+  sampleLabel: string;
+  lotCode: string;
+  coatingCode: string;
+  liquidName: string;
+  meanDeg: number;
+  measuredAt: string;
+  /** Who recorded the drop; null when that account is gone. */
+  measuredBy: string | null;
+  reviewStatus: 'draft' | 'submitted' | 'approved' | 'rejected';
+}
+
+type RecentRow = {
+  drop_id: string;
+  sample_label: string;
+  lot_code: string;
+  coating_code: string;
+  liquid_name: string;
+  mean_deg: number;
+  measured_at: Date | string;
+  measured_by: string | null;
+  review_status: RecentDrop['reviewStatus'];
+};
+
+/**
+ * The newest drops of the organization with their latest analysis (approved ones only when
+ * `approvedOnly`). Walks drops_org_time_idx backwards.
+ */
+export async function recentDrops(
+  organizationId: string,
+  options: { approvedOnly: boolean; limit?: number },
+): Promise<RecentDrop[]> {
+  const rows = await getDb().execute<RecentRow>(sql`
+    select d.id as drop_id, s.label as sample_label, b.lot_code, c.code as coating_code,
+           l.name as liquid_name, a.mean_deg, d.measured_at, u.name as measured_by, a.review_status
+    from drops d
+    join samples s on s.id = d.sample_id
+    join batches b on b.id = s.batch_id
+    join coatings c on c.id = b.coating_id
+    join probe_liquids l on l.id = d.probe_liquid_id
+    join lateral (
+      select x.mean_deg, x.review_status from analyses x
+      where x.drop_id = d.id order by x.revision desc limit 1
+    ) a on true
+    left join users u on u.id = d.created_by_user_id
+    where d.organization_id = ${organizationId}
+      and d.archived_at is null
+      ${options.approvedOnly ? sql`and a.review_status = 'approved'` : sql``}
+    order by d.measured_at desc, d.id desc
+    limit ${options.limit ?? 10}
+  `);
+  return rows.map((r) => ({
+    dropId: r.drop_id,
+    sampleLabel: r.sample_label,
+    lotCode: r.lot_code,
+    coatingCode: r.coating_code,
+    liquidName: r.liquid_name,
+    meanDeg: Number(r.mean_deg),
+    measuredAt: (r.measured_at instanceof Date ? r.measured_at : new Date(r.measured_at)).toISOString(),
+    measuredBy: r.measured_by,
+    reviewStatus: r.review_status,
+  }));
+}
+
+/** Drops whose latest analysis is submitted for review. */
+export async function pendingReviewCount(organizationId: string): Promise<number> {
+  const [row] = await getDb().execute<{ n: number | string }>(sql`
+    select count(*) as n
+    from analyses a
+    where a.organization_id = ${organizationId}
+      and a.review_status = 'submitted'
+      and a.revision = (select max(x.revision) from analyses x where x.drop_id = a.drop_id)
+  `);
+  return Number(row?.n ?? 0);
+}
+
+export interface OutOfSpecBatch {
+  coatingCode: string;
+  lotCode: string;
+  producedOn: string;
+  liquidName: string;
+  rule: string;
+  reason: string;
+}
+
+/** Batches (each coating's newest twelve) whose comparison verdict is fail for some liquid. */
+export async function outOfSpecBatches(
+  organizationId: string,
+  options: { approvedOnly: boolean },
+): Promise<OutOfSpecBatch[]> {
+  const coatings = await listComparisonCoatings(organizationId);
+  const perCoating = await Promise.all(
+    coatings.map(async (coating) => {
+      const data = await loadComparison(organizationId, coating.id, {
+        approvedOnly: options.approvedOnly,
+      });
+      return batchesOutOfSpec(buildComparison(data)).map((b) => ({
+        coatingCode: coating.code,
+        lotCode: b.batch.lotCode,
+        producedOn: b.batch.producedOn,
+        liquidName: b.liquidName,
+        rule: b.rule,
+        reason: b.reason,
+      }));
+    }),
+  );
+  return perCoating.flat().sort((a, b) => b.producedOn.localeCompare(a.producedOn));
+}

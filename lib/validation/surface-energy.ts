@@ -1,0 +1,421 @@
+import { z } from 'zod';
+import {
+  owrk,
+  wettingEnvelope,
+  surfaceEnergyWithUncertainty,
+  SurfaceEnergyInputError,
+  type AngleMeasurement,
+  type SurfaceEnergyMethod,
+  type ValueWithUncertainty,
+} from '@/lib/surface-energy';
+
+/*
+ * Surface energy: the request shapes (shared by the page and the route handlers) and the one
+ * place that decides which methods a liquid set allows and runs them with their uncertainty.
+ */
+
+export const SURFACE_ENERGY_METHOD_KEYS = [
+  'owrk',
+  'wu',
+  'fowkes',
+  'zisman',
+  'neumann',
+  'acid-base',
+] as const satisfies readonly SurfaceEnergyMethod[];
+
+export const METHOD_LABELS: Record<SurfaceEnergyMethod, string> = {
+  owrk: 'OWRK (Owens–Wendt–Rabel–Kaelble)',
+  wu: 'Wu harmonic mean',
+  fowkes: 'Fowkes (dispersive only)',
+  zisman: 'Zisman critical surface tension',
+  neumann: 'Neumann equation of state',
+  'acid-base': 'van Oss–Chaudhury–Good acid–base',
+};
+
+/** Readable names of the result components, mN/m. */
+export const COMPONENT_LABELS: Record<string, string> = {
+  gammaTotal: 'Total',
+  gammaDispersive: 'Dispersive',
+  gammaPolar: 'Polar',
+  criticalSurfaceTension: 'Critical surface tension γc',
+  gammaSolid: 'Solid surface tension γS',
+  gammaLW: 'Lifshitz–van der Waals',
+  gammaPlus: 'Acid γ+',
+  gammaMinus: 'Base γ−',
+  gammaAB: 'Acid–base',
+};
+
+/**
+ * What the uncertainty describes: 'mean' propagates the standard error of each mean angle
+ * (SD/√n, the uncertainty of the sample's value); 'single' propagates the SD itself (the spread
+ * of results from single drops).
+ */
+export const UNCERTAINTY_BASES = ['mean', 'single'] as const;
+export type UncertaintyBasis = (typeof UNCERTAINTY_BASES)[number];
+
+const tension = (label: string) =>
+  z
+    .number({ error: `Enter the ${label} in mN/m.` })
+    .finite(`Enter the ${label} in mN/m.`)
+    .min(0, `The ${label} cannot be negative.`)
+    .max(1000, `The ${label} must be at most 1000 mN/m.`);
+
+export const liquidAngleSchema = z.object({
+  probeLiquidId: z.string().trim().max(100).optional(),
+  name: z.string().trim().min(1, 'Name the liquid.').max(120, 'Use at most 120 characters.'),
+  gammaTotal: tension('total surface tension').positive(
+    'The total surface tension must be above 0.',
+  ),
+  gammaDispersive: tension('dispersive component'),
+  gammaPolar: tension('polar component'),
+  gammaLW: tension('Lifshitz–van der Waals component').optional(),
+  gammaPlus: tension('acid component').optional(),
+  gammaMinus: tension('base component').optional(),
+  angleDeg: z
+    .number({ error: 'Enter the mean contact angle in degrees.' })
+    .finite('Enter the mean contact angle in degrees.')
+    .min(0, 'A contact angle is between 0° and 180°.')
+    .max(180, 'A contact angle is between 0° and 180°.'),
+  angleSdDeg: z
+    .number({ error: 'Enter the standard deviation of the angle in degrees.' })
+    .finite('Enter the standard deviation of the angle in degrees.')
+    .min(0, 'The standard deviation cannot be negative.')
+    .max(90, 'The standard deviation must be at most 90°.')
+    .optional(),
+  n: z
+    .number({ error: 'Enter the number of drops.' })
+    .int('The number of drops is a whole number.')
+    .min(1, 'At least one drop.')
+    .max(10_000, 'At most 10 000 drops.')
+    .optional(),
+});
+export type LiquidAngle = z.output<typeof liquidAngleSchema>;
+
+const methodsSchema = z
+  .array(
+    z.enum(SURFACE_ENERGY_METHOD_KEYS, {
+      error: `Choose methods among ${SURFACE_ENERGY_METHOD_KEYS.join(', ')}.`,
+    }),
+  )
+  .min(1, 'Choose at least one method.')
+  .max(SURFACE_ENERGY_METHOD_KEYS.length)
+  .default(['owrk'])
+  .transform((methods) => [...new Set(methods)]);
+
+const optionsShape = {
+  methods: methodsSchema,
+  uncertaintyBasis: z.enum(UNCERTAINTY_BASES).default('mean'),
+  /** Contact angle of the wetting envelope, degrees (0 = the liquids that spread completely). */
+  envelopeAngleDeg: z
+    .number({ error: 'Enter the envelope angle in degrees.' })
+    .finite()
+    .min(0, 'The envelope angle is between 0° and 179°.')
+    .max(179, 'The envelope angle is between 0° and 179°.')
+    .default(0),
+};
+
+/** POST /api/surface-energy/calculate */
+export const surfaceEnergyCalculateSchema = z
+  .object({
+    liquids: z
+      .array(liquidAngleSchema, { error: 'Send the liquids as a list.' })
+      .min(1, 'Enter at least one liquid with its angle.')
+      .max(20, 'At most 20 liquids.'),
+    ...optionsShape,
+  })
+  .superRefine((body, ctx) => {
+    const seen = new Set<string>();
+    body.liquids.forEach((liquid, i) => {
+      const key = liquid.name.toLowerCase();
+      if (seen.has(key))
+        ctx.addIssue({
+          code: 'custom',
+          path: ['liquids', i, 'name'],
+          message: 'This liquid is listed twice; give each liquid once with its mean angle.',
+        });
+      seen.add(key);
+      if (Math.abs(liquid.gammaDispersive + liquid.gammaPolar - liquid.gammaTotal) > 0.5)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['liquids', i, 'gammaTotal'],
+          message:
+            'Dispersive + polar should equal the total (within 0.5 mN/m). Correct the components.',
+        });
+    });
+  });
+export type SurfaceEnergyCalculate = z.output<typeof surfaceEnergyCalculateSchema>;
+
+/** POST /api/samples/[id]/surface-energy; GET takes the same fields as a query (methods=owrk,wu). */
+export const sampleSurfaceEnergySchema = z.object(optionsShape);
+export type SampleSurfaceEnergyOptions = z.output<typeof sampleSurfaceEnergySchema>;
+
+export const sampleSurfaceEnergyQuerySchema = z.object({
+  methods: z
+    .string()
+    .optional()
+    .transform((v) =>
+      v
+        ? v
+            .split(',')
+            .map((m) => m.trim())
+            .filter(Boolean)
+        : undefined,
+    )
+    .pipe(methodsSchema),
+  uncertaintyBasis: z.enum(UNCERTAINTY_BASES).default('mean'),
+  envelopeAngleDeg: z.coerce.number().finite().min(0).max(179).default(0),
+});
+
+// ---------------------------------------------------------------------------------------------
+// Which methods a liquid set allows
+// ---------------------------------------------------------------------------------------------
+
+const hasAcidBase = (l: LiquidAngle) =>
+  l.gammaLW !== undefined && l.gammaPlus !== undefined && l.gammaMinus !== undefined;
+const isApolar = (l: LiquidAngle) => l.gammaPolar <= 0.5 && l.gammaDispersive > 0;
+
+export type MethodAvailability = {
+  method: SurfaceEnergyMethod;
+  available: boolean;
+  reason: string | null;
+};
+
+/** For each method: can it run on these liquids, and if not, why (in words for the page). */
+export function methodAvailability(liquids: readonly LiquidAngle[]): MethodAvailability[] {
+  const split = liquids.filter((l) => l.gammaDispersive > 0);
+  const ratios = new Set(split.map((l) => (l.gammaPolar / l.gammaDispersive).toFixed(3)));
+  const acidBaseLiquids = liquids.filter(hasAcidBase);
+  const polarAcidBase = acidBaseLiquids.filter((l) => (l.gammaPlus ?? 0) + (l.gammaMinus ?? 0) > 0);
+  const tensions = new Set(liquids.map((l) => l.gammaTotal.toFixed(2)));
+  const check = (method: SurfaceEnergyMethod, reason: string | null): MethodAvailability => ({
+    method,
+    available: reason === null,
+    reason,
+  });
+  return [
+    check(
+      'owrk',
+      split.length < 2
+        ? 'OWRK needs at least two liquids with known dispersive and polar components.'
+        : ratios.size < 2
+          ? 'OWRK needs liquids of different polarity, e.g. water with diiodomethane.'
+          : null,
+    ),
+    check(
+      'wu',
+      split.length !== 2 || liquids.length !== 2 || ratios.size < 2
+        ? `Wu's harmonic mean takes exactly two liquids of different polarity (this sample has ${liquids.length}).`
+        : null,
+    ),
+    check(
+      'fowkes',
+      liquids.some(isApolar)
+        ? null
+        : 'Fowkes needs an apolar liquid (polar component 0), such as diiodomethane.',
+    ),
+    check(
+      'zisman',
+      liquids.length < 2 || tensions.size < 2
+        ? 'Zisman needs at least two liquids of different surface tension (three or more recommended).'
+        : null,
+    ),
+    check('neumann', liquids.length < 1 ? 'The Neumann equation of state needs one liquid.' : null),
+    check(
+      'acid-base',
+      acidBaseLiquids.length < 3
+        ? `The van Oss–Chaudhury–Good method needs three liquids with known γLW, γ+ and γ− (this sample has ${acidBaseLiquids.length}); add e.g. formamide or ethylene glycol to water and diiodomethane.`
+        : polarAcidBase.length < 2
+          ? 'The van Oss–Chaudhury–Good method needs two polar liquids with different acid/base balance, e.g. water and formamide.'
+          : null,
+    ),
+  ];
+}
+
+// ---------------------------------------------------------------------------------------------
+// Running the methods
+// ---------------------------------------------------------------------------------------------
+
+export type MethodOutcome = {
+  method: SurfaceEnergyMethod;
+  label: string;
+  /** Names of the liquids this result was computed from. */
+  liquidsUsed: string[];
+  status: 'ok' | 'unavailable' | 'failed';
+  /** Why the method was not run or failed. */
+  reason: string | null;
+  components: Record<string, ValueWithUncertainty>;
+  warnings: string[];
+};
+
+export type OwrkPlot = {
+  points: { liquid: string; x: number; y: number; fittedY: number }[];
+  slope: number;
+  intercept: number;
+  rSquared: number;
+};
+
+export type EnvelopePlot = {
+  angleDeg: number;
+  points: { gammaDispersive: number; gammaPolar: number }[];
+  liquids: { name: string; gammaDispersive: number; gammaPolar: number }[];
+};
+
+export type SurfaceEnergyOutputs = {
+  uncertainty: {
+    basis: UncertaintyBasis;
+    propagation: 'monte-carlo';
+    draws: number;
+    seed: string;
+    note: string;
+  };
+  results: MethodOutcome[];
+  owrkPlot: OwrkPlot | null;
+  envelope: EnvelopePlot | null;
+};
+
+const DRAWS = 2000;
+const SEED = 'beadline';
+
+function toMeasurement(liquid: LiquidAngle, basis: UncertaintyBasis): AngleMeasurement {
+  const sd = liquid.angleSdDeg ?? 0;
+  const spread = basis === 'mean' && liquid.n && liquid.n > 1 ? sd / Math.sqrt(liquid.n) : sd;
+  return {
+    liquid: {
+      name: liquid.name,
+      gammaTotal: liquid.gammaTotal,
+      gammaDispersive: liquid.gammaDispersive,
+      gammaPolar: liquid.gammaPolar,
+      gammaLW: liquid.gammaLW,
+      gammaPlus: liquid.gammaPlus,
+      gammaMinus: liquid.gammaMinus,
+    },
+    angleDeg: liquid.angleDeg,
+    angleSdDeg: spread,
+  };
+}
+
+function run(
+  method: SurfaceEnergyMethod,
+  used: readonly LiquidAngle[],
+  basis: UncertaintyBasis,
+): MethodOutcome {
+  const base = { method, label: METHOD_LABELS[method], liquidsUsed: used.map((l) => l.name) };
+  try {
+    const result = surfaceEnergyWithUncertainty(
+      method,
+      used.map((l) => toMeasurement(l, basis)),
+      { draws: DRAWS, seed: SEED },
+    );
+    return {
+      ...base,
+      status: 'ok',
+      reason: null,
+      components: result.components as Record<string, ValueWithUncertainty>,
+      warnings: result.warnings,
+    };
+  } catch (error) {
+    if (error instanceof SurfaceEnergyInputError)
+      return { ...base, status: 'failed', reason: error.message, components: {}, warnings: [] };
+    throw error;
+  }
+}
+
+/**
+ * Runs the chosen methods on the liquids' mean angles, each with the standard uncertainty of
+ * its components propagated from the angles' spread (Monte Carlo, seeded, so a saved result
+ * can be recomputed exactly). Fowkes uses the most apolar liquid; Neumann runs once per liquid.
+ */
+export function computeSurfaceEnergy(
+  liquids: readonly LiquidAngle[],
+  options: Pick<SampleSurfaceEnergyOptions, 'methods' | 'uncertaintyBasis' | 'envelopeAngleDeg'>,
+): SurfaceEnergyOutputs {
+  const availability = new Map(methodAvailability(liquids).map((a) => [a.method, a]));
+  const results: MethodOutcome[] = [];
+  for (const method of options.methods) {
+    const check = availability.get(method);
+    if (!check?.available) {
+      results.push({
+        method,
+        label: METHOD_LABELS[method],
+        liquidsUsed: [],
+        status: 'unavailable',
+        reason: check?.reason ?? 'Not available for these liquids.',
+        components: {},
+        warnings: [],
+      });
+      continue;
+    }
+    if (method === 'owrk')
+      results.push(
+        run(
+          method,
+          liquids.filter((l) => l.gammaDispersive > 0),
+          options.uncertaintyBasis,
+        ),
+      );
+    else if (method === 'fowkes') {
+      const apolar = [...liquids].filter(isApolar).sort((a, b) => a.gammaPolar - b.gammaPolar)[0];
+      results.push(run(method, [apolar], options.uncertaintyBasis));
+    } else if (method === 'neumann') {
+      for (const liquid of liquids) results.push(run(method, [liquid], options.uncertaintyBasis));
+    } else if (method === 'acid-base')
+      results.push(run(method, liquids.filter(hasAcidBase), options.uncertaintyBasis));
+    else results.push(run(method, liquids, options.uncertaintyBasis));
+  }
+
+  let owrkPlot: OwrkPlot | null = null;
+  let envelope: EnvelopePlot | null = null;
+  if (availability.get('owrk')?.available) {
+    try {
+      const fit = owrk(
+        liquids.filter((l) => l.gammaDispersive > 0).map((l) => toMeasurement(l, 'single')),
+      );
+      owrkPlot = {
+        points: fit.points,
+        slope: fit.slope,
+        intercept: fit.intercept,
+        rSquared: fit.rSquared,
+      };
+      envelope = {
+        ...wettingEnvelope(
+          { gammaDispersive: fit.gammaDispersive, gammaPolar: fit.gammaPolar },
+          { angleDeg: options.envelopeAngleDeg, steps: 90 },
+        ),
+        liquids: liquids.map((l) => ({
+          name: l.name,
+          gammaDispersive: l.gammaDispersive,
+          gammaPolar: l.gammaPolar,
+        })),
+      };
+    } catch (error) {
+      if (!(error instanceof SurfaceEnergyInputError)) throw error;
+    }
+  }
+
+  return {
+    uncertainty: {
+      basis: options.uncertaintyBasis,
+      propagation: 'monte-carlo',
+      draws: DRAWS,
+      seed: SEED,
+      note:
+        options.uncertaintyBasis === 'mean'
+          ? 'Standard uncertainty propagated from the standard error of each mean angle (SD/√n), Monte Carlo per JCGM 101:2008.'
+          : 'Standard uncertainty propagated from the SD of single drops, Monte Carlo per JCGM 101:2008.',
+    },
+    results,
+    owrkPlot,
+    envelope,
+  };
+}
+
+/** The total of a result set for spec checks: OWRK total, else Wu, else acid–base. */
+export function headlineTotal(
+  outputs: Pick<SurfaceEnergyOutputs, 'results'>,
+): MethodOutcome | null {
+  for (const method of ['owrk', 'wu', 'acid-base'] as const) {
+    const found = outputs.results.find((r) => r.method === method && r.status === 'ok');
+    if (found?.components.gammaTotal) return found;
+  }
+  return null;
+}
