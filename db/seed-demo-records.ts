@@ -183,7 +183,7 @@ export async function seedDemoRecords(
             });
             const photoId = newId();
             const dropId = newId();
-            const { edgePoints: _edgePoints, ...kept } = result;
+            const { edgePoints: _edgePoints, profile: _profile, ...kept } = result;
             {
               const tx = db;
               await tx.insert(photos).values({

@@ -148,8 +148,8 @@ export function DropCanvas(props: Props) {
                 {result.edgePoints.left.concat(result.edgePoints.right).map(([x, y], i) => (
                   <Rect key={i} x={x - 0.6 / scale} y={y - 0.6 / scale} width={1.2 / scale} height={1.2 / scale} fill={COLORS.edge} />
                 ))}
-                {'profile' in result && Array.isArray((result as { profile?: Point[] }).profile) ? (
-                  <Line points={flat((result as { profile: Point[] }).profile)} stroke={COLORS.profile} strokeWidth={stroke * 1.4} />
+                {result.profile ? (
+                  <Line points={flat(result.profile)} stroke={COLORS.profile} strokeWidth={stroke * 1.4} />
                 ) : null}
                 {tangents ? (
                   <>

@@ -2,6 +2,7 @@
  * The drop-analysis entry point: grayscale pixels in, contact angles with uncertainty out.
  * Pure TypeScript plus OpenCV (wasm); runs unchanged in a worker, in Node and in tests.
  */
+import { fittedCurve } from './profile-curve';
 import { loadOpenCv, type OpenCv } from './opencv';
 import { toFloatImage, validateImage } from './image';
 import { computeEdgeMaps, detectBaseline, detectMirrorBaseline, extractProfile } from './detect';
@@ -250,6 +251,7 @@ export function analyseDropWith(
     rmsResidualPx: rms(fit.residuals()),
     edgePointCount: points.u.length,
     edgePoints: { left, right },
+    profile: fittedCurve(fit)?.map(([u, v]) => toImage(u, v)) ?? null,
     warnings,
     timeMs: now() - started,
   };

@@ -109,6 +109,8 @@ export interface AnalysisResult {
   edgePointCount: number;
   /** Sub-pixel edge points used by the fit (image pixels), for overlays. */
   edgePoints: { left: Point[]; right: Point[] };
+  /** The fitted profile (image pixels), left contact over the apex to the right contact; null for local fits. */
+  profile: Point[] | null;
   warnings: AnalysisWarning[];
   /** Milliseconds from decoded pixels to result. */
   timeMs: number;

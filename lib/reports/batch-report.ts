@@ -131,7 +131,7 @@ export async function buildBatchReport(ctx: OrgContext, batchId: string): Promis
         });
         representative = {
           png: drawn.png,
-          caption: `${first.liquid.name} drop on sample ${candidate.sampleLabel} (closest to the batch mean): left ${drawn.result.leftDeg.toFixed(1)}°, right ${drawn.result.rightDeg.toFixed(1)}° by ${row.method}, revision ${row.revision}. Dots: edge points; dashed line: baseline; red: tangents.`,
+          caption: `${first.liquid.name} drop on sample ${candidate.sampleLabel} (closest to the batch mean): left ${drawn.result.leftDeg.toFixed(1)}°, right ${drawn.result.rightDeg.toFixed(1)}° by ${row.method}, revision ${row.revision}. Dots: edge points; orange: fitted profile; dashed line: baseline; red: tangents.`,
         };
         break;
       } catch {

@@ -43,6 +43,7 @@ export async function drawAnalysedDrop(input: {
     .join('');
   const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}">
 ${dots}
+${result.profile ? `<polyline points="${result.profile.map(([x, y]) => `${x.toFixed(1)},${y.toFixed(1)}`).join(' ')}" fill="none" stroke="#e08a0b" stroke-width="1.5"/>` : ''}
 <line x1="0" y1="${yAt(0).toFixed(1)}" x2="${width}" y2="${yAt(width).toFixed(1)}" stroke="#ecfbfa" stroke-width="3" opacity="0.7"/>
 <line x1="0" y1="${yAt(0).toFixed(1)}" x2="${width}" y2="${yAt(width).toFixed(1)}" stroke="#134f52" stroke-width="1.5" stroke-dasharray="8 5"/>
 <line x1="${result.contactLeft[0]}" y1="${result.contactLeft[1]}" x2="${lt[0]}" y2="${lt[1]}" stroke="#b32f1d" stroke-width="2"/>

@@ -43,7 +43,7 @@ export const POST = route<Params>(
       }
       throw error;
     }
-    const { edgePoints: _edgePoints, ...kept } = result;
+    const { edgePoints: _edgePoints, profile: _profile, ...kept } = result;
     const saved = await saveDropAnalysis({
       organizationId: ctx.organization.id,
       userId: ctx.user.id,
