@@ -124,6 +124,14 @@ describe('lab records pages', () => {
     expect(row[header.indexOf('Sample label')]).toBe('P-01');
     expect(row[header.indexOf('Drops')]).toBe('2');
     expect(Number(row[header.indexOf('Mean water contact angle (°)')])).toBe(101.5);
+
+    // The compare page judges the new batch against the coating's spec with the rule shown:
+    // two imported drops are fewer than the three a verdict needs.
+    await page.goto(`${BASE_URL}/compare?coating=${encodeURIComponent(coatingCode)}`);
+    const verdict = page.getByTestId(`verdict-liquid-water-${lotCode}`);
+    await verdict.waitFor();
+    expect(await verdict.textContent()).toMatch(/Not enough data/);
+    expect(await page.locator('main svg').count()).toBeGreaterThan(0);
     await page.context().close();
   });
 
