@@ -547,3 +547,32 @@ export const tensiometryResults = pgTable(
   },
   (t) => [index('tensiometry_results_org_idx').on(t.organizationId, t.kind, t.createdAt)],
 );
+
+// ---------------------------------------------------------------------------------------------
+// Out-of-spec alerts: who watches a coating, and the last verdict seen for each batch, so a
+// batch turning to fail sends one mail per change.
+// ---------------------------------------------------------------------------------------------
+
+export const coatingWatchers = pgTable(
+  'coating_watchers',
+  {
+    coatingId: text('coating_id')
+      .notNull()
+      .references(() => coatings.id, { onDelete: 'cascade' }),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    organizationId: orgRef(),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.coatingId, t.userId] })],
+);
+
+export const batchVerdicts = pgTable('batch_verdicts', {
+  batchId: text('batch_id')
+    .primaryKey()
+    .references(() => batches.id, { onDelete: 'cascade' }),
+  organizationId: orgRef(),
+  outcome: text('outcome').$type<'pass' | 'fail' | 'not-enough-data' | 'no-spec'>().notNull(),
+  updatedAt: updatedAt(),
+});

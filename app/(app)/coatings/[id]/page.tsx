@@ -1,6 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
+import { WatchCoatingButton } from '@/components/alerts/watch-button';
+import { isWatching } from '@/db/queries/alerts';
 import { listBatches } from '@/db/queries/batches';
 import { getCoating } from '@/db/queries/coatings';
 import { listProbeLiquids } from '@/db/queries/probe-liquids';
@@ -69,6 +71,11 @@ export default async function Page({
         title={`${coating.code} · ${coating.name}`}
         lead={coating.description || undefined}
       />
+      {can(role, 'results:read-all') ? (
+        <div className="-mt-3 mb-4">
+          <WatchCoatingButton coatingId={id} initiallyWatching={await isWatching(ctx.user.id, id)} />
+        </div>
+      ) : null}
       {coating.archivedAt ? (
         <p className="mb-4 rounded-md border border-amber-500 bg-amber-50 px-3 py-2 text-sm text-amber-900">
           This coating is archived: its records are kept, but it can no longer be changed.

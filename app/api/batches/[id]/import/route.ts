@@ -1,4 +1,5 @@
 import { importManualAngles, invalidImport } from '@/db/queries/import';
+import { refreshBatchVerdictQuietly } from '@/lib/alerts/out-of-spec';
 import { route } from '@/lib/auth/guard';
 import { parseImportCsv } from '@/lib/csv/import';
 import { importRequestSchema } from '@/lib/validation/import';
@@ -24,6 +25,7 @@ export const POST = route<Params>(
       id,
       parsed.rows,
     );
+    await refreshBatchVerdictQuietly(ctx.organization.id, id);
     return Response.json(outcome, { status: 201 });
   },
   { what: 'import results' },

@@ -1,5 +1,6 @@
 import { getDropOfPhoto, saveDropAnalysis } from '@/db/queries/drops';
 import { getPhoto } from '@/db/queries/photos';
+import { refreshVerdictOfSampleQuietly } from '@/lib/alerts/out-of-spec';
 import { analyseDrop } from '@/lib/analysis';
 import { AnalysisError, type FitMethod } from '@/lib/analysis/types';
 import { HttpError, notFound } from '@/lib/api/errors';
@@ -59,6 +60,7 @@ export const POST = route<Params>(
         softwareVersion: SOFTWARE_VERSION,
       },
     });
+    await refreshVerdictOfSampleQuietly(ctx.organization.id, body.sampleId);
     return Response.json({ ...saved, result: kept }, { status: 201 });
   },
   { what: 'save measurements' },
