@@ -1,10 +1,27 @@
 'use client';
 
 import { useEffect, useMemo, useRef, useState } from 'react';
-import { Circle, Group, Image as KonvaImage, Label, Layer, Line, Rect, Stage, Tag, Text } from 'react-konva';
+import {
+  Circle,
+  Group,
+  Image as KonvaImage,
+  Label,
+  Layer,
+  Line,
+  Rect,
+  Stage,
+  Tag,
+  Text,
+} from 'react-konva';
 import type Konva from 'konva';
 import type { AnalysisResult, Baseline, Point } from '@/lib/analysis/types';
-import { baselineAcross, nudgeBaseline, nudgeFromKey, tangentEnd, type BaselineHandle } from './geometry';
+import {
+  baselineAcross,
+  nudgeBaseline,
+  nudgeFromKey,
+  tangentEnd,
+  type BaselineHandle,
+} from '@/lib/measure/overlay-geometry';
 
 /** Beadline's overlay colours and marks (its own; see app/globals.css palette). */
 const COLORS = {
@@ -59,7 +76,9 @@ export function DropCanvas(props: Props) {
   useEffect(() => {
     const element = containerRef.current;
     if (!element) return;
-    const observer = new ResizeObserver(([entry]) => setViewWidth(Math.max(240, entry.contentRect.width)));
+    const observer = new ResizeObserver(([entry]) =>
+      setViewWidth(Math.max(240, entry.contentRect.width)),
+    );
     observer.observe(element);
     return () => observer.disconnect();
   }, []);
@@ -90,7 +109,11 @@ export function DropCanvas(props: Props) {
     const imageX = (pointer.x - offset.x) / scale;
     const imageY = (pointer.y - offset.y) / scale;
     setZoom(nextZoom);
-    setOffset(nextZoom === 1 ? { x: 0, y: 0 } : { x: pointer.x - imageX * nextScale, y: pointer.y - imageY * nextScale });
+    setOffset(
+      nextZoom === 1
+        ? { x: 0, y: 0 }
+        : { x: pointer.x - imageX * nextScale, y: pointer.y - imageY * nextScale },
+    );
   }
 
   function onKeyDown(event: React.KeyboardEvent) {
@@ -118,7 +141,9 @@ export function DropCanvas(props: Props) {
         onKeyDown={onKeyDown}
         className="overflow-hidden rounded-md border border-ink-200 bg-ink-900 focus-visible:outline-2 focus-visible:outline-lagoon-600"
         data-testid="drop-canvas"
-        data-baseline={baseline ? [baseline.x1, baseline.y1, baseline.x2, baseline.y2].join(',') : undefined}
+        data-baseline={
+          baseline ? [baseline.x1, baseline.y1, baseline.x2, baseline.y2].join(',') : undefined
+        }
         data-scale={scale}
       >
         <Stage
@@ -132,7 +157,8 @@ export function DropCanvas(props: Props) {
             if (event.target === event.target.getStage()) setOffset(event.target.position());
           }}
           onMouseDown={(event) => {
-            if (event.target === event.target.getStage() || event.target.name() === 'photo') onSelectHandle(null);
+            if (event.target === event.target.getStage() || event.target.name() === 'photo')
+              onSelectHandle(null);
           }}
           onClick={(event) => {
             if (!props.onPickPoint) return;
@@ -146,22 +172,51 @@ export function DropCanvas(props: Props) {
             {result ? (
               <Group listening={false}>
                 {result.edgePoints.left.concat(result.edgePoints.right).map(([x, y], i) => (
-                  <Rect key={i} x={x - 0.6 / scale} y={y - 0.6 / scale} width={1.2 / scale} height={1.2 / scale} fill={COLORS.edge} />
+                  <Rect
+                    key={i}
+                    x={x - 0.6 / scale}
+                    y={y - 0.6 / scale}
+                    width={1.2 / scale}
+                    height={1.2 / scale}
+                    fill={COLORS.edge}
+                  />
                 ))}
                 {result.profile ? (
-                  <Line points={flat(result.profile)} stroke={COLORS.profile} strokeWidth={stroke * 1.4} />
+                  <Line
+                    points={flat(result.profile)}
+                    stroke={COLORS.profile}
+                    strokeWidth={stroke * 1.4}
+                  />
                 ) : null}
                 {tangents ? (
                   <>
-                    <Line points={flat([result.contactLeft, tangents.left])} stroke={COLORS.tangent} strokeWidth={stroke * 1.6} />
-                    <Line points={flat([result.contactRight, tangents.right])} stroke={COLORS.tangent} strokeWidth={stroke * 1.6} />
+                    <Line
+                      points={flat([result.contactLeft, tangents.left])}
+                      stroke={COLORS.tangent}
+                      strokeWidth={stroke * 1.6}
+                    />
+                    <Line
+                      points={flat([result.contactRight, tangents.right])}
+                      stroke={COLORS.tangent}
+                      strokeWidth={stroke * 1.6}
+                    />
                     <Label x={tangents.left[0] - 64 / scale} y={tangents.left[1] - 24 / scale}>
                       <Tag fill="#0e141c" opacity={0.8} cornerRadius={3 / scale} />
-                      <Text text={`${result.leftDeg.toFixed(1)}°`} fontSize={13 / scale} padding={3 / scale} fill="#ffffff" />
+                      <Text
+                        text={`${result.leftDeg.toFixed(1)}°`}
+                        fontSize={13 / scale}
+                        padding={3 / scale}
+                        fill="#ffffff"
+                      />
                     </Label>
                     <Label x={tangents.right[0] + 8 / scale} y={tangents.right[1] - 24 / scale}>
                       <Tag fill="#0e141c" opacity={0.8} cornerRadius={3 / scale} />
-                      <Text text={`${result.rightDeg.toFixed(1)}°`} fontSize={13 / scale} padding={3 / scale} fill="#ffffff" />
+                      <Text
+                        text={`${result.rightDeg.toFixed(1)}°`}
+                        fontSize={13 / scale}
+                        padding={3 / scale}
+                        fill="#ffffff"
+                      />
                     </Label>
                   </>
                 ) : null}
@@ -169,13 +224,27 @@ export function DropCanvas(props: Props) {
             ) : null}
             {(props.pickedPoints ?? []).map(([x, y], i) => (
               <Group key={`pick-${i}`} listening={false}>
-                <Line points={[x - 8 / scale, y, x + 8 / scale, y]} stroke={COLORS.handleSelected} strokeWidth={stroke} />
-                <Line points={[x, y - 8 / scale, x, y + 8 / scale]} stroke={COLORS.handleSelected} strokeWidth={stroke} />
+                <Line
+                  points={[x - 8 / scale, y, x + 8 / scale, y]}
+                  stroke={COLORS.handleSelected}
+                  strokeWidth={stroke}
+                />
+                <Line
+                  points={[x, y - 8 / scale, x, y + 8 / scale]}
+                  stroke={COLORS.handleSelected}
+                  strokeWidth={stroke}
+                />
               </Group>
             ))}
             {baseline && !props.onPickPoint ? (
               <Group>
-                <Line points={flat(baselineAcross(baseline, width))} stroke={COLORS.baselineHalo} strokeWidth={stroke * 3} listening={false} opacity={0.7} />
+                <Line
+                  points={flat(baselineAcross(baseline, width))}
+                  stroke={COLORS.baselineHalo}
+                  strokeWidth={stroke * 3}
+                  listening={false}
+                  opacity={0.7}
+                />
                 <Line
                   points={flat(baselineAcross(baseline, width))}
                   stroke={COLORS.baseline}
@@ -219,12 +288,22 @@ export function DropCanvas(props: Props) {
         </Stage>
       </div>
       <div className="mt-2 flex flex-wrap items-center gap-3 text-xs text-ink-600">
-        <span>Scroll to zoom ({zoom.toFixed(1)}×){zoom > 1 ? ', drag to pan' : ''}.</span>
-        <button type="button" className="underline" onClick={() => { setZoom(1); setOffset({ x: 0, y: 0 }); }}>
+        <span>
+          Scroll to zoom ({zoom.toFixed(1)}×){zoom > 1 ? ', drag to pan' : ''}.
+        </span>
+        <button
+          type="button"
+          className="underline"
+          onClick={() => {
+            setZoom(1);
+            setOffset({ x: 0, y: 0 });
+          }}
+        >
           Fit to view
         </button>
         <span>
-          Drag the round handles or the dashed line; arrow keys nudge the selected handle by 1 px (Alt: 0.1 px).
+          Drag the round handles or the dashed line; arrow keys nudge the selected handle by 1 px
+          (Alt: 0.1 px).
         </span>
       </div>
     </div>

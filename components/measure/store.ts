@@ -3,7 +3,7 @@
 import { create } from 'zustand';
 import type { AnalysisResult, Baseline, FitMethod } from '@/lib/analysis/types';
 import { DEFAULT_METHOD } from '@/lib/analysis/types';
-import type { BaselineHandle } from './geometry';
+import type { BaselineHandle } from '@/lib/measure/overlay-geometry';
 
 export type PhotoStatus = 'loading' | 'analysing' | 'ready' | 'failed';
 
@@ -64,13 +64,18 @@ export const useWorkspace = create<WorkspaceState>((set) => ({
       };
     }),
   select: (id) => set({ selectedId: id, selectedHandle: null }),
-  setMethod: (method) => set((state) => ({ method, photos: state.photos.map((p) => ({ ...p, dirty: true })) })),
+  setMethod: (method) =>
+    set((state) => ({ method, photos: state.photos.map((p) => ({ ...p, dirty: true })) })),
   setHandle: (handle) => set({ selectedHandle: handle }),
   setStatus: (id, status, error = null) =>
-    set((state) => ({ photos: state.photos.map((p) => (p.id === id ? { ...p, status, error } : p)) })),
+    set((state) => ({
+      photos: state.photos.map((p) => (p.id === id ? { ...p, status, error } : p)),
+    })),
   setResult: (id, result) =>
     set((state) => ({
-      photos: state.photos.map((p) => (p.id === id ? { ...p, result, status: 'ready', error: null } : p)),
+      photos: state.photos.map((p) =>
+        p.id === id ? { ...p, result, status: 'ready', error: null } : p,
+      ),
     })),
   setBaseline: (id, baseline) =>
     set((state) => ({
@@ -78,12 +83,17 @@ export const useWorkspace = create<WorkspaceState>((set) => ({
     })),
   markSaved: (id, revision) =>
     set((state) => ({
-      photos: state.photos.map((p) => (p.id === id ? { ...p, savedRevision: revision, dirty: false } : p)),
+      photos: state.photos.map((p) =>
+        p.id === id ? { ...p, savedRevision: revision, dirty: false } : p,
+      ),
     })),
   removePhoto: (id) =>
     set((state) => {
       const photos = state.photos.filter((p) => p.id !== id);
-      return { photos, selectedId: state.selectedId === id ? (photos[0]?.id ?? null) : state.selectedId };
+      return {
+        photos,
+        selectedId: state.selectedId === id ? (photos[0]?.id ?? null) : state.selectedId,
+      };
     }),
 }));
 

@@ -6,8 +6,9 @@ import {
   watchersOf,
 } from '@/db/queries/alerts';
 import { loadComparison } from '@/db/queries/comparison';
-import { buildComparison } from '@/lib/compare';
+import { batchesOutOfSpec, buildComparison } from '@/lib/compare';
 import { appUrl } from '@/lib/config';
+import { noticeMail } from '@/lib/email/messages';
 import { enqueueMail } from '@/lib/email/queue';
 
 type Outcome = 'pass' | 'fail' | 'not-enough-data' | 'no-spec';
@@ -36,37 +37,29 @@ export async function refreshBatchVerdict(
     approvedOnly: false,
   });
   const comparison = buildComparison(loaded);
-  const results = comparison.liquids.flatMap((l) =>
-    l.batches
-      .filter((b) => b.batch.id === batchId)
-      .map((b) => ({ liquid: l.liquid.name, result: b })),
+  const outcome = overall(
+    comparison.liquids.flatMap((l) => l.batches.map((b) => b.verdict.outcome)),
   );
-  const outcome = overall(results.map((r) => r.result.verdict.outcome));
-  const failing = results.filter((r) => r.result.verdict.outcome === 'fail');
   await recordBatchVerdict(organizationId, batchId, outcome, async (tx) => {
     const watchers = await watchersOf(organizationId, batch.coatingId);
     const link = `${appUrl()}/compare?coating=${encodeURIComponent(batch.coatingCode)}&batches=${encodeURIComponent(batch.lotCode)}`;
-    const reasons = failing.flatMap((f) =>
-      f.result.verdict.specs
-        .filter((s) => s.outcome === 'fail')
-        .map((s) => `${f.liquid}: ${s.rule} ${s.reason}`),
+    const reasons = batchesOutOfSpec(comparison).map(
+      (f) => `${f.liquidName}: ${f.rule} ${f.reason}`,
     );
     for (const watcher of watchers) {
-      const lines = [
-        `Hello ${watcher.name},`,
-        `Batch ${batch.lotCode} of ${batch.coatingCode} is now out of spec.`,
-        ...reasons,
-        `See the comparison: ${link}`,
-        'You get this mail because you watch this coating in Beadline.',
-      ];
       await enqueueMail(tx, {
         kind: 'out-of-spec',
-        to: watcher.email,
-        subject: `Out of spec: ${batch.coatingCode} batch ${batch.lotCode}`,
-        text: `${lines.join('\n\n')}\n\n-- \nBeadline\n`,
-        html: `<!doctype html><html lang="en"><body style="font-family:Helvetica,Arial,sans-serif;color:#1b2a2b"><p style="font-weight:600;color:#134f52">Beadline</p>${lines
-          .map((l) => `<p>${l.replace(/&/g, '&amp;').replace(/</g, '&lt;')}</p>`)
-          .join('')}</body></html>`,
+        ...noticeMail({
+          to: watcher.email,
+          subject: `Out of spec: ${batch.coatingCode} batch ${batch.lotCode}`,
+          paragraphs: [
+            `Hello ${watcher.name},`,
+            `Batch ${batch.lotCode} of ${batch.coatingCode} is now out of spec.`,
+            ...reasons,
+          ],
+          link: { href: link, label: 'See the comparison' },
+          footer: 'You get this mail because you watch this coating in Beadline.',
+        }),
       });
     }
   });

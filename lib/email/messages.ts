@@ -112,3 +112,19 @@ export function emailVerificationMail(input: {
     }),
   };
 }
+
+/** A notice about lab results (review outcome, out-of-spec batch): paragraphs and one link. */
+export function noticeMail(input: {
+  to: string;
+  subject: string;
+  paragraphs: string[];
+  link: { href: string; label: string };
+  footer: string;
+}): MailMessage {
+  return {
+    to: input.to,
+    subject: input.subject,
+    text: text([...input.paragraphs, `${input.link.label}: ${input.link.href}`, input.footer]),
+    html: layout({ paragraphs: input.paragraphs, link: input.link, footer: input.footer }),
+  };
+}

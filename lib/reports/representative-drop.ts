@@ -4,18 +4,7 @@ import { analyseDrop } from '@/lib/analysis';
 import type { AnalysisResult, Baseline, FitMethod } from '@/lib/analysis/types';
 import { loadPhotoBytes } from '@/lib/measure/photo-pixels';
 import { decodeImageBytes } from '@/lib/analysis/node/decode';
-
-function tangentEnd(baseline: Baseline, contact: [number, number], deg: number, side: 'left' | 'right', length: number) {
-  let dx = baseline.x2 - baseline.x1;
-  let dy = baseline.y2 - baseline.y1;
-  if (dx < 0) [dx, dy] = [-dx, -dy];
-  const len = Math.hypot(dx, dy) || 1;
-  const u = [dx / len, dy / len];
-  const n = [u[1], -u[0]];
-  const t = (deg * Math.PI) / 180;
-  const along = side === 'left' ? Math.cos(t) : -Math.cos(t);
-  return [contact[0] + length * (along * u[0] + Math.sin(t) * n[0]), contact[1] + length * (along * u[1] + Math.sin(t) * n[1])];
-}
+import { baselineAcross, tangentEnd } from '@/lib/measure/overlay-geometry';
 
 /**
  * The photo of a drop with its analysis drawn in (edge points, baseline, tangents and angles),
@@ -29,11 +18,13 @@ export async function drawAnalysedDrop(input: {
 }): Promise<{ png: Buffer; result: AnalysisResult }> {
   const { bytes } = await loadPhotoBytes(input.organizationId, input.photoId);
   const gray = await decodeImageBytes(bytes);
-  const result = await analyseDrop(gray, { method: input.method, ...(input.baseline ? { baseline: input.baseline } : {}) });
+  const result = await analyseDrop(gray, {
+    method: input.method,
+    ...(input.baseline ? { baseline: input.baseline } : {}),
+  });
   const { width, height } = gray;
   const b = result.baseline;
-  const slope = (b.y2 - b.y1) / (b.x2 - b.x1 || 1);
-  const yAt = (x: number) => b.y1 + slope * (x - b.x1);
+  const [[x0, y0], [xw, yw]] = baselineAcross(b, width);
   const len = Math.max(result.heightPx, result.baseDiameterPx / 3) * 0.9;
   const lt = tangentEnd(b, result.contactLeft, result.leftDeg, 'left', len);
   const rt = tangentEnd(b, result.contactRight, result.rightDeg, 'right', len);
@@ -44,8 +35,8 @@ export async function drawAnalysedDrop(input: {
   const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}">
 ${dots}
 ${result.profile ? `<polyline points="${result.profile.map(([x, y]) => `${x.toFixed(1)},${y.toFixed(1)}`).join(' ')}" fill="none" stroke="#e08a0b" stroke-width="1.5"/>` : ''}
-<line x1="0" y1="${yAt(0).toFixed(1)}" x2="${width}" y2="${yAt(width).toFixed(1)}" stroke="#ecfbfa" stroke-width="3" opacity="0.7"/>
-<line x1="0" y1="${yAt(0).toFixed(1)}" x2="${width}" y2="${yAt(width).toFixed(1)}" stroke="#134f52" stroke-width="1.5" stroke-dasharray="8 5"/>
+<line x1="${x0}" y1="${y0.toFixed(1)}" x2="${xw}" y2="${yw.toFixed(1)}" stroke="#ecfbfa" stroke-width="3" opacity="0.7"/>
+<line x1="${x0}" y1="${y0.toFixed(1)}" x2="${xw}" y2="${yw.toFixed(1)}" stroke="#134f52" stroke-width="1.5" stroke-dasharray="8 5"/>
 <line x1="${result.contactLeft[0]}" y1="${result.contactLeft[1]}" x2="${lt[0]}" y2="${lt[1]}" stroke="#b32f1d" stroke-width="2"/>
 <line x1="${result.contactRight[0]}" y1="${result.contactRight[1]}" x2="${rt[0]}" y2="${rt[1]}" stroke="#b32f1d" stroke-width="2"/>
 </svg>`;

@@ -1,11 +1,8 @@
 import 'server-only';
 import { getDb } from '@/db/client';
+import { noticeMail } from '@/lib/email/messages';
 import { enqueueMail } from '@/lib/email/queue';
 import { appUrl } from '@/lib/config';
-
-function escapeHtml(value: string): string {
-  return value.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
-}
 
 /** Tells the submitter how their review ended, through the mail queue (retried until sent). */
 export async function notifyReviewOutcome(input: {
@@ -19,22 +16,19 @@ export async function notifyReviewOutcome(input: {
   subject: string;
 }): Promise<void> {
   if (!input.submitterEmail) return;
-  const link = `${appUrl()}/reviews/${input.reviewId}`;
   const verdict = input.status === 'approved' ? 'approved and signed' : 'rejected';
-  const lines = [
-    `Hello ${input.submitterName ?? ''},`.trim(),
-    `${input.reviewerName} ${verdict} the results you submitted for ${input.subject} in ${input.organizationName}.`,
-    ...(input.comment ? [`Comment: ${input.comment}`] : []),
-    `Open the review: ${link}`,
-  ];
   await enqueueMail(getDb(), {
     kind: `review-${input.status}`,
-    to: input.submitterEmail,
-    subject: `Results ${verdict}: ${input.subject}`,
-    text: `${lines.join('\n\n')}\n\n-- \nBeadline\n`,
-    html: `<!doctype html><html lang="en"><body style="font-family:Helvetica,Arial,sans-serif;color:#1b2a2b">
-<p style="font-weight:600;color:#134f52">Beadline</p>
-${lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('\n')}
-</body></html>`,
+    ...noticeMail({
+      to: input.submitterEmail,
+      subject: `Results ${verdict}: ${input.subject}`,
+      paragraphs: [
+        `Hello ${input.submitterName ?? ''},`.trim(),
+        `${input.reviewerName} ${verdict} the results you submitted for ${input.subject} in ${input.organizationName}.`,
+        ...(input.comment ? [`Comment: ${input.comment}`] : []),
+      ],
+      link: { href: `${appUrl()}/reviews/${input.reviewId}`, label: 'Open the review' },
+      footer: 'You get this mail because you submitted these results for review in Beadline.',
+    }),
   });
 }

@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { baselineAcross, nudgeBaseline, nudgeFromKey, tangentEnd } from '@/components/measure/geometry';
+import {
+  baselineAcross,
+  nudgeBaseline,
+  nudgeFromKey,
+  tangentEnd,
+} from '@/lib/measure/overlay-geometry';
 
 const flat = { x1: 100, y1: 300, x2: 500, y2: 300 };
 
