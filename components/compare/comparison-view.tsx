@@ -1,4 +1,11 @@
-import type { BatchLiquidResult, BatchVerdict, Comparison, LiquidComparison } from '@/lib/compare/types';
+import type {
+  BatchLiquidResult,
+  BatchVerdict,
+  Comparison,
+  LiquidComparison,
+  SpecVerdict,
+  SurfaceEnergyComparison,
+} from '@/lib/compare/types';
 import { StripPlot, type StripBatch } from './strip-plot';
 import { TrendChart } from './trend-chart';
 
@@ -18,6 +25,26 @@ export function VerdictBadge({ outcome }: { outcome: BatchVerdict['outcome'] }) 
     <span className={`inline-block rounded border px-2 py-0.5 text-xs font-semibold ${style.className}`}>
       {style.label}
     </span>
+  );
+}
+
+function VerdictDetail({ verdict, noSpec }: { verdict: BatchVerdict; noSpec: string }) {
+  return (
+    <>
+      <VerdictBadge outcome={verdict.outcome} />
+      {verdict.specs.length === 0 ? (
+        <p className="mt-1 text-xs text-ink-600">{noSpec}</p>
+      ) : (
+        <ul className="mt-1 space-y-1 text-xs text-ink-700">
+          {verdict.specs.map((s: SpecVerdict) => (
+            <li key={s.specId}>
+              <span className="font-medium">{VERDICT_STYLE[s.outcome].label}:</span>{' '}
+              <span data-testid="rule">Rule: {s.rule}.</span> {s.reason}
+            </li>
+          ))}
+        </ul>
+      )}
+    </>
   );
 }
 
@@ -61,19 +88,7 @@ function BatchRow({ r, liquidId }: { r: BatchLiquidResult; liquidId: string }) {
       </td>
       <td className="py-2 pr-3 text-sm">{r.wettingClass ? r.wettingClass.label : '—'}</td>
       <td className="py-2 pr-3" data-testid={`verdict-${liquidId}-${r.batch.lotCode}`}>
-        <VerdictBadge outcome={r.verdict.outcome} />
-        {r.verdict.specs.length === 0 ? (
-          <p className="mt-1 text-xs text-ink-600">The coating has no angle spec for this liquid.</p>
-        ) : (
-          <ul className="mt-1 space-y-1 text-xs text-ink-700">
-            {r.verdict.specs.map((s) => (
-              <li key={s.specId}>
-                <span className="font-medium">{VERDICT_STYLE[s.outcome].label}:</span>{' '}
-                <span data-testid="rule">Rule: {s.rule}.</span> {s.reason}
-              </li>
-            ))}
-          </ul>
-        )}
+        <VerdictDetail verdict={r.verdict} noSpec="The coating has no angle spec for this liquid." />
       </td>
       <td className="py-2 pr-3 text-right tabular-nums" title={r.capability?.rule ?? r.capabilityNote ?? ''}>
         {r.capability ? fmt(r.capability.cpk, 2) : '—'}
@@ -211,6 +226,78 @@ function LiquidSection({ liquid, referenceLot }: { liquid: LiquidComparison; ref
   );
 }
 
+function SurfaceEnergySection({ se }: { se: SurfaceEnergyComparison }) {
+  const k = se.coverageFactor;
+  const pm = (v: { value: number; standardUncertainty: number } | null) =>
+    v ? `${fmt(v.value)} ± ${fmt(k * v.standardUncertainty)}` : '—';
+  return (
+    <section className="card compare-section mb-6" aria-labelledby="surface-energy-heading" data-testid="surface-energy-section">
+      <h2 id="surface-energy-heading">Surface free energy</h2>
+      <p className="mt-1 text-sm text-ink-600">
+        {se.specs.length > 0
+          ? `Spec: ${se.limitLabels.join('; ')}`
+          : 'The coating has no surface-energy limit; the values are shown for information.'}
+        {se.windowDays !== null ? ` — values from drops measured within ${se.windowDays} days of treatment.` : ''}
+      </p>
+      <div className="mt-4 overflow-x-auto">
+        <table className="w-full min-w-[48rem] text-sm">
+          <caption className="sr-only">Surface free energy of each batch and its verdict</caption>
+          <thead>
+            <tr className="text-left text-xs uppercase tracking-wide text-ink-500">
+              <th scope="col" className="py-2 pr-3">Batch</th>
+              <th scope="col" className="py-2 pr-3">Liquids (n, mean angle)</th>
+              <th scope="col" className="py-2 pr-3 text-right">Total ± U (mN/m)</th>
+              <th scope="col" className="py-2 pr-3 text-right">Dispersive ± U</th>
+              <th scope="col" className="py-2 pr-3 text-right">Polar ± U</th>
+              <th scope="col" className="py-2">Verdict</th>
+            </tr>
+          </thead>
+          <tbody>
+            {se.batches.map((r) => (
+              <tr
+                key={r.batch.id}
+                className="border-t border-ink-100 align-top"
+                data-testid={`surface-energy-row-${r.batch.lotCode}`}
+              >
+                <th scope="row" className="py-2 pr-3 text-left font-normal">
+                  <span className="font-mono font-medium">{r.batch.lotCode}</span>
+                  <a
+                    href={`/surface-energy?batch=${encodeURIComponent(r.batch.id)}`}
+                    className="block text-xs text-lagoon-700 underline print:hidden"
+                  >
+                    Other methods
+                  </a>
+                </th>
+                <td className="py-2 pr-3 text-xs">
+                  {r.liquids.length === 0
+                    ? '—'
+                    : r.liquids.map((l) => (
+                        <span key={l.id} className="block whitespace-nowrap">
+                          {l.name}: n = {l.n}, {fmt(l.meanDeg)}°
+                        </span>
+                      ))}
+                </td>
+                <td className="py-2 pr-3 text-right tabular-nums whitespace-nowrap" data-testid="surface-energy-total">
+                  {r.total ? pm(r.total) : <span className="text-xs text-ink-600">{r.note}</span>}
+                </td>
+                <td className="py-2 pr-3 text-right tabular-nums whitespace-nowrap">{pm(r.dispersive)}</td>
+                <td className="py-2 pr-3 text-right tabular-nums whitespace-nowrap">{pm(r.polar)}</td>
+                <td className="py-2" data-testid={`verdict-surface-energy-${r.batch.lotCode}`}>
+                  <VerdictDetail verdict={r.verdict} noSpec="The coating has no surface-energy limit." />
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      <p className="mt-2 text-xs text-ink-600">
+        {se.method}. {se.basis} The surface-energy page shows one standard uncertainty instead. The verdict is on the value itself; a limit within its uncertainty makes the verdict
+        marginal, and the reason says so.
+      </p>
+    </section>
+  );
+}
+
 export function ComparisonView({ comparison }: { comparison: Comparison }) {
   return (
     <div className="compare-results">
@@ -228,6 +315,7 @@ export function ComparisonView({ comparison }: { comparison: Comparison }) {
       {comparison.liquids.map((liquid) => (
         <LiquidSection key={liquid.liquid.id} liquid={liquid} referenceLot={comparison.referenceBatch?.lotCode ?? null} />
       ))}
+      {comparison.surfaceEnergy ? <SurfaceEnergySection se={comparison.surfaceEnergy} /> : null}
     </div>
   );
 }

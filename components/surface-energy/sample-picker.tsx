@@ -13,16 +13,27 @@ export type SampleChoice = {
   coatingName: string;
 };
 
-/** Coating → batch → sample; choosing a sample opens /surface-energy?sample=<id>. */
+const WHOLE_BATCH = '__batch__';
+
+/**
+ * Coating → batch → sample; choosing a sample opens /surface-energy?sample=<id>, choosing
+ * "All samples of the batch" opens /surface-energy?batch=<id>.
+ */
 export function SamplePicker({
   choices,
   selectedSampleId,
+  selectedBatchId,
 }: {
   choices: SampleChoice[];
   selectedSampleId: string | null;
+  /** Set when the whole batch is shown. */
+  selectedBatchId: string | null;
 }) {
   const router = useRouter();
-  const selected = choices.find((c) => c.sampleId === selectedSampleId) ?? null;
+  const selected =
+    choices.find((c) => c.sampleId === selectedSampleId) ??
+    choices.find((c) => c.batchId === selectedBatchId) ??
+    null;
   const [coatingId, setCoatingId] = useState(selected?.coatingId ?? '');
   const [batchId, setBatchId] = useState(selected?.batchId ?? '');
 
@@ -93,14 +104,23 @@ export function SamplePicker({
         <select
           id="se-sample"
           className="field-input"
-          value={selected && selected.batchId === batchId ? selected.sampleId : ''}
+          value={
+            selected && selected.batchId === batchId
+              ? selectedBatchId
+                ? WHOLE_BATCH
+                : selected.sampleId
+              : ''
+          }
           disabled={!batchId}
           onChange={(event) => {
-            if (event.target.value)
-              router.push(`/surface-energy?sample=${encodeURIComponent(event.target.value)}`);
+            const value = event.target.value;
+            if (value === WHOLE_BATCH)
+              router.push(`/surface-energy?batch=${encodeURIComponent(batchId)}`);
+            else if (value) router.push(`/surface-energy?sample=${encodeURIComponent(value)}`);
           }}
         >
           <option value="">{batchId ? 'Choose a sample…' : 'Choose a batch first'}</option>
+          {batchId ? <option value={WHOLE_BATCH}>All samples of the batch</option> : null}
           {samples.map((s) => (
             <option key={s.sampleId} value={s.sampleId}>
               {s.sampleLabel}

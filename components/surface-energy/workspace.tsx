@@ -178,7 +178,11 @@ export function SurfaceEnergyWorkspace({
   const [saving, setSaving] = useState(false);
   const [saveMessage, setSaveMessage] = useState<{ ok: boolean; text: string } | null>(null);
 
-  const subjectName = `${subject.coatingCode} / ${subject.lotCode} / ${subject.sampleLabel ?? ''}`;
+  const kind = subject.kind;
+  const subjectName =
+    kind === 'batch'
+      ? `${subject.coatingCode} / ${subject.lotCode} (all samples)`
+      : `${subject.coatingCode} / ${subject.lotCode} / ${subject.sampleLabel ?? ''}`;
   const hazards = angleTable.filter((row) => row.hazardNote && /harmful/i.test(row.hazardNote));
 
   async function recompute(nextMethods: SurfaceEnergyMethod[], nextBasis: UncertaintyBasis) {
@@ -216,11 +220,11 @@ export function SurfaceEnergyWorkspace({
     setSaveMessage(null);
     try {
       const response = await apiFetch<{ result: SavedResult }>(
-        `/api/samples/${encodeURIComponent(subject.id)}/surface-energy`,
+        `/api/${kind === 'batch' ? 'batches' : 'samples'}/${encodeURIComponent(subject.id)}/surface-energy`,
         { method: 'POST', json: { methods, uncertaintyBasis: basis } },
       );
       setSaved((list) => [response.result, ...list]);
-      setSaveMessage({ ok: true, text: 'Saved with the sample.' });
+      setSaveMessage({ ok: true, text: `Saved with the ${kind}.` });
     } catch (e) {
       setSaveMessage({
         ok: false,
@@ -237,8 +241,8 @@ export function SurfaceEnergyWorkspace({
         <h2 className="text-base">No contact angles on {subjectName} yet</h2>
         <p className="mx-auto mt-1 max-w-prose text-sm text-ink-600">
           {readAll
-            ? 'Measure at least two probe liquids on this sample (for example water and diiodomethane) to compute its surface free energy.'
-            : 'No approved results on this sample yet. Surface free energy is shown once its results are approved.'}
+            ? `Measure at least two probe liquids on this ${kind} (for example water and diiodomethane) to compute its surface free energy.`
+            : `No approved results on this ${kind} yet. Surface free energy is shown once its results are approved.`}
         </p>
       </section>
     );
@@ -257,8 +261,8 @@ export function SurfaceEnergyWorkspace({
       <section className="card" aria-label="Liquids measured">
         <h2 className="mb-1">Liquids measured on {subjectName}</h2>
         <p className="mb-3 text-xs text-ink-600">
-          Mean of each drop’s latest analysis{readAll ? '' : ' (approved results only)'}; components
-          in mN/m.
+          Mean of each drop’s latest analysis{readAll ? '' : ' (approved results only)'}
+          {kind === 'batch' ? ', pooled over every sample of the batch' : ''}; components in mN/m.
         </p>
         <div className="overflow-x-auto">
           <table className="w-full text-left text-sm">
@@ -393,7 +397,7 @@ export function SurfaceEnergyWorkspace({
             disabled={computing}
             onChange={(event) => void recompute(methods, event.target.value as UncertaintyBasis)}
           >
-            <option value="mean">the sample’s value (standard error of each mean angle)</option>
+            <option value="mean">the {kind}’s value (standard error of each mean angle)</option>
             <option value="single">single drops (SD of the angles)</option>
           </select>
         </div>
@@ -429,7 +433,7 @@ export function SurfaceEnergyWorkspace({
                   onClick={() => void save()}
                   disabled={saving || computing}
                 >
-                  {saving ? 'Saving…' : 'Save with the sample'}
+                  {saving ? 'Saving…' : `Save with the ${kind}`}
                 </button>
                 {saveMessage ? (
                   <p
@@ -452,7 +456,7 @@ export function SurfaceEnergyWorkspace({
                 <OwrkChart plot={outputs.owrkPlot} />
               ) : (
                 <p className="text-sm text-ink-600">
-                  No regression: OWRK needs two liquids of different polarity on this sample.
+                  No regression: OWRK needs two liquids of different polarity on this {kind}.
                 </p>
               )}
             </section>
@@ -473,7 +477,7 @@ export function SurfaceEnergyWorkspace({
       <section className="card" aria-label="Saved results" data-testid="saved-results">
         <h2 className="mb-2">Saved results</h2>
         {saved.length === 0 ? (
-          <p className="text-sm text-ink-600">No surface energy saved with this sample yet.</p>
+          <p className="text-sm text-ink-600">No surface energy saved with this {kind} yet.</p>
         ) : (
           <ul className="divide-y divide-ink-100 text-sm">
             {saved.map((result) => {

@@ -147,7 +147,8 @@ export async function comparisonDrops(
 
 /**
  * What a comparison of one coating needs: its batches (the chosen ones, by id or lot code,
- * or else the newest twelve), its live specs, the probe liquids involved and every drop's
+ * or else the newest twelve), its live specs, the probe liquids involved (with their surface
+ * tension components, for the surface-energy verdict) and every drop's
  * latest analysis (approved ones only for roles that may not read every result).
  */
 export async function loadComparison(
@@ -176,6 +177,8 @@ export async function loadComparison(
         maxDeg: specs.maxDeg,
         scope: specs.scope,
         maxDaysSinceTreatment: specs.maxDaysSinceTreatment,
+        minSurfaceEnergyMnM: specs.minSurfaceEnergyMnM,
+        maxSurfaceEnergyMnM: specs.maxSurfaceEnergyMnM,
         note: specs.note,
       })
       .from(specs)
@@ -205,7 +208,13 @@ export async function loadComparison(
     liquidIds.length === 0
       ? []
       : await db
-          .select({ id: probeLiquids.id, name: probeLiquids.name })
+          .select({
+            id: probeLiquids.id,
+            name: probeLiquids.name,
+            gammaTotal: probeLiquids.totalMnM,
+            gammaDispersive: probeLiquids.dispersiveMnM,
+            gammaPolar: probeLiquids.polarMnM,
+          })
           .from(probeLiquids)
           .where(
             and(

@@ -6,14 +6,14 @@ import {
   watchersOf,
 } from '@/db/queries/alerts';
 import { loadComparison } from '@/db/queries/comparison';
-import { batchesOutOfSpec, buildComparison } from '@/lib/compare';
+import { batchesOutOfSpec, buildComparison, verdictOutcomes } from '@/lib/compare';
 import { appUrl } from '@/lib/config';
 import { noticeMail } from '@/lib/email/messages';
 import { enqueueMail } from '@/lib/email/queue';
 
 type Outcome = 'pass' | 'fail' | 'not-enough-data' | 'no-spec';
 
-/** A batch fails when any probe liquid's verdict fails; else the weakest of the rest. */
+/** A batch fails when any verdict (a probe liquid's, or surface energy) fails; else the weakest of the rest. */
 function overall(outcomes: Outcome[]): Outcome {
   if (outcomes.includes('fail')) return 'fail';
   if (outcomes.includes('not-enough-data')) return 'not-enough-data';
@@ -37,9 +37,7 @@ export async function refreshBatchVerdict(
     approvedOnly: false,
   });
   const comparison = buildComparison(loaded);
-  const outcome = overall(
-    comparison.liquids.flatMap((l) => l.batches.map((b) => b.verdict.outcome)),
-  );
+  const outcome = overall(verdictOutcomes(comparison));
   await recordBatchVerdict(organizationId, batchId, outcome, async (tx) => {
     const watchers = await watchersOf(organizationId, batch.coatingId);
     const link = `${appUrl()}/compare?coating=${encodeURIComponent(batch.coatingCode)}&batches=${encodeURIComponent(batch.lotCode)}`;

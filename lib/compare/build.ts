@@ -9,7 +9,6 @@ import {
   tukeyFences,
   welchTTest,
   type SpecLimits,
-  type VerdictOutcome,
 } from '@/lib/stats';
 import type {
   BatchLiquidResult,
@@ -25,6 +24,8 @@ import type {
   SpecVerdict,
   TrendChart,
 } from './types';
+import { overall } from './outcome';
+import { compareSurfaceEnergy } from './surface-energy';
 
 const DAY_MS = 86_400_000;
 export const WATER_LIQUID_ID = 'liquid-water';
@@ -95,15 +96,6 @@ function judgeSpec(
     }`;
   }
   return { specId: spec.id, outcome: verdict.outcome, rule, reason, n: verdict.n, excluded };
-}
-
-/** fail beats not-enough-data beats pass. */
-function overall(verdicts: readonly SpecVerdict[]): BatchVerdict['outcome'] {
-  if (verdicts.length === 0) return 'no-spec';
-  const outcomes = new Set<VerdictOutcome>(verdicts.map((v) => v.outcome));
-  if (outcomes.has('fail')) return 'fail';
-  if (outcomes.has('not-enough-data')) return 'not-enough-data';
-  return 'pass';
 }
 
 /** The limits Cpk is judged against: the per-drop spec when there is one (limits on values). */
@@ -322,31 +314,53 @@ export function buildComparison(input: ComparisonInput): Comparison {
     };
   });
 
+  const dropsOfBatch = (batchId: string) =>
+    liquids.flatMap((l) => groups.get(key(batchId, l.id)) ?? []);
   return {
     batches,
     referenceBatch,
     liquids: liquidResults,
+    surfaceEnergy: compareSurfaceEnergy(batches, liquids, input.specs, dropsOfBatch, minDrops),
     angleBasis: ANGLE_BASIS,
     outlierRule: OUTLIER_RULE,
   };
 }
 
-/** Batches whose verdict is 'fail' for any liquid (the dashboard's "out of spec"). */
+/** What the surface-energy verdict is listed under beside the liquids. */
+export const SURFACE_ENERGY_LABEL = 'Surface free energy';
+
+/** Each batch's verdicts: one per liquid, and the surface-energy one when there is a limit. */
+function batchVerdicts(comparison: Comparison): { batch: ComparisonBatchInput; label: string; verdict: BatchVerdict }[] {
+  return [
+    ...comparison.liquids.flatMap((liquid) =>
+      liquid.batches.map((r) => ({ batch: r.batch, label: liquid.liquid.name, verdict: r.verdict })),
+    ),
+    ...(comparison.surfaceEnergy?.batches ?? []).map((r) => ({
+      batch: r.batch,
+      label: SURFACE_ENERGY_LABEL,
+      verdict: r.verdict,
+    })),
+  ];
+}
+
+/** Every verdict outcome of the comparison (per liquid and batch, and surface energy). */
+export function verdictOutcomes(comparison: Comparison): BatchVerdict['outcome'][] {
+  return batchVerdicts(comparison).map((v) => v.verdict.outcome);
+}
+
+/** Batches whose verdict is 'fail' for any liquid or for surface energy (the dashboard's "out of spec"). */
 export function batchesOutOfSpec(
   comparison: Comparison,
 ): { batch: ComparisonBatchInput; liquidName: string; rule: string; reason: string }[] {
-  const out: { batch: ComparisonBatchInput; liquidName: string; rule: string; reason: string }[] = [];
-  for (const liquid of comparison.liquids) {
-    for (const r of liquid.batches) {
-      if (r.verdict.outcome !== 'fail') continue;
-      const failed = r.verdict.specs.filter((s) => s.outcome === 'fail');
-      out.push({
-        batch: r.batch,
-        liquidName: liquid.liquid.name,
+  return batchVerdicts(comparison)
+    .filter((v) => v.verdict.outcome === 'fail')
+    .map(({ batch, label, verdict }) => {
+      const failed = verdict.specs.filter((s) => s.outcome === 'fail');
+      return {
+        batch,
+        liquidName: label,
         rule: failed.map((s) => s.rule).join('; '),
         reason: failed.map((s) => s.reason).join(' '),
-      });
-    }
-  }
-  return out;
+      };
+    });
 }

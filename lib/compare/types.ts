@@ -1,3 +1,4 @@
+import type { ValueWithUncertainty } from '@/lib/surface-energy';
 import type {
   Description,
   IndividualsChart,
@@ -18,6 +19,10 @@ export interface ComparisonBatchInput {
 export interface ComparisonLiquidInput {
   id: string;
   name: string;
+  /** Surface-tension components, mN/m; the surface-energy verdict needs the split ones. */
+  gammaTotal?: number | null;
+  gammaDispersive?: number | null;
+  gammaPolar?: number | null;
 }
 
 /** Acceptance limits of the coating for one probe liquid (a row of `specs`). */
@@ -28,6 +33,9 @@ export interface ComparisonSpecInput {
   maxDeg: number | null;
   scope: 'each-drop' | 'mean';
   maxDaysSinceTreatment: number | null;
+  /** Surface free energy limits, mN/m (judged by OWRK over the batch). */
+  minSurfaceEnergyMnM?: number | null;
+  maxSurfaceEnergyMnM?: number | null;
   note: string;
 }
 
@@ -151,11 +159,47 @@ export interface LiquidComparison {
   trendNote: string | null;
 }
 
+/** A batch's OWRK surface free energy, from the drops that count for the shown limit. */
+export interface SurfaceEnergyValue {
+  /** Null when it could not be computed (see `note`). */
+  total: ValueWithUncertainty | null;
+  dispersive: ValueWithUncertainty | null;
+  polar: ValueWithUncertainty | null;
+  /** The probe liquids used, with their drop count and mean angle. */
+  liquids: { id: string; name: string; n: number; meanDeg: number }[];
+  /** Drops of split liquids left out by the age window. */
+  excluded: number;
+  /** Why there is no value (null when there is one). */
+  note: string | null;
+}
+
+export interface BatchSurfaceEnergy extends SurfaceEnergyValue {
+  batch: ComparisonBatchInput;
+  verdict: BatchVerdict;
+}
+
+export interface SurfaceEnergyComparison {
+  method: string;
+  /** How the value and its uncertainty are obtained, in words. */
+  basis: string;
+  /** ± figures are this many standard uncertainties. */
+  coverageFactor: number;
+  /** The coating's specs with a surface-energy limit. */
+  specs: ComparisonSpecInput[];
+  /** e.g. "≥ 38 mN/m, ≤ 7 d", one per spec. */
+  limitLabels: string[];
+  /** Age window of the values shown (that of the first limit), days; null = every drop. */
+  windowDays: number | null;
+  batches: BatchSurfaceEnergy[];
+}
+
 export interface Comparison {
   /** In production order, oldest first. */
   batches: ComparisonBatchInput[];
   referenceBatch: ComparisonBatchInput | null;
   liquids: LiquidComparison[];
+  /** Surface free energy per batch; null when there is neither a limit nor a value. */
+  surfaceEnergy: SurfaceEnergyComparison | null;
   /** Which angle the statistics use, in words. */
   angleBasis: string;
   outlierRule: string;

@@ -1,6 +1,6 @@
 import 'server-only';
 import PDFDocument from 'pdfkit';
-import type { BatchLiquidResult, SpecLine } from '@/lib/compare/types';
+import type { BatchLiquidResult, BatchSurfaceEnergy, SpecLine } from '@/lib/compare/types';
 
 /** Everything the certificate of analysis of one batch shows. */
 export type BatchReportData = {
@@ -10,6 +10,8 @@ export type BatchReportData = {
   specs: { liquidName: string; text: string }[];
   samples: { label: string; substrate: string; position: string; treatedAt: Date | null; dropCount: number }[];
   liquids: { name: string; hazardNote: string | null; result: BatchLiquidResult; specLines: SpecLine[] }[];
+  /** The batch's OWRK surface free energy and its verdict, when the comparison has one. */
+  surfaceEnergy: { result: BatchSurfaceEnergy; method: string; basis: string; coverageFactor: number } | null;
   representative: { png: Buffer; caption: string } | null;
   review: { reviewerName: string; signedAt: string; digest: string; comment: string; analysisCount: number } | null;
   angleBasis: string;
@@ -189,6 +191,40 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
     if (hazardNote) doc.fillColor(AMBER).text(`${name}: ${hazardNote}`, left, doc.y, { width });
   }
   doc.fontSize(9.5).fillColor(INK);
+
+  if (data.surfaceEnergy) {
+    const { result, method, basis, coverageFactor } = data.surfaceEnergy;
+    const pm = (v: { value: number; standardUncertainty: number } | null) =>
+      v ? `${fmt(v.value)} ± ${fmt(coverageFactor * v.standardUncertainty)}` : '—';
+    heading('Surface free energy');
+    doc.fontSize(8.5).fillColor(MUTED).text(`${method}. ${basis}`, left, doc.y, { width }).fontSize(9.5).fillColor(INK);
+    doc.moveDown(0.4);
+    const outcome = result.verdict.outcome === 'no-spec' ? 'no spec' : result.verdict.outcome.replace(/-/g, ' ');
+    table(
+      [
+        { title: 'Liquids (n)', width: 150 },
+        { title: 'Total (mN/m)', width: 80, align: 'right' },
+        { title: 'Dispersive', width: 75, align: 'right' },
+        { title: 'Polar', width: 75, align: 'right' },
+        { title: 'Verdict', width: 103 },
+      ],
+      [
+        [
+          result.liquids.map((l) => `${l.name} (${l.n})`).join(', ') || '—',
+          pm(result.total),
+          pm(result.dispersive),
+          pm(result.polar),
+          outcome.toUpperCase(),
+        ],
+      ],
+      [result.verdict.outcome === 'pass' ? LEAF : result.verdict.outcome === 'fail' ? CORAL : AMBER],
+    );
+    if (!result.total && result.note) doc.fontSize(8.5).fillColor(MUTED).text(result.note, left, doc.y, { width });
+    for (const spec of result.verdict.specs) {
+      doc.fontSize(8.5).fillColor(MUTED).text(`Surface free energy — rule applied: ${spec.rule}. ${spec.reason}`, left, doc.y, { width });
+    }
+    doc.fontSize(9.5).fillColor(INK);
+  }
 
   // Strip plot per liquid: every drop, the mean and its CI, and the spec limits.
   for (const { name, result, specLines } of data.liquids) {

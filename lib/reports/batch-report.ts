@@ -176,6 +176,13 @@ export async function buildBatchReport(ctx: OrgContext, batchId: string): Promis
       const result = l.batches.find((b) => b.batch.id === batch.id);
       return result ? [{ name: l.liquid.name, hazardNote: hazards.get(l.liquid.id) ?? null, result, specLines: l.specLines }] : [];
     }),
+    surfaceEnergy: (() => {
+      const se = comparison.surfaceEnergy;
+      const result = se?.batches.find((b) => b.batch.id === batch.id);
+      return se && result
+        ? { result, method: se.method, basis: se.basis, coverageFactor: se.coverageFactor }
+        : null;
+    })(),
     representative,
     review:
       review?.signature

@@ -95,6 +95,33 @@ describe('compare page', () => {
     await page.context().close();
   });
 
+  it('judges PP-Print’s surface free energy per batch and opens the batch on the surface-energy page', async () => {
+    const page = await signedIn('analyst@kestrel.example');
+    await page.goto(`${BASE_URL}/compare?coating=PP-Print`);
+    const section = page.getByTestId('surface-energy-section');
+    await expect(section.textContent()).resolves.toContain('Spec: ≥ 38 mN/m, ≤ 7 d');
+    const verdict = (await page.getByTestId('verdict-surface-energy-F-2611').textContent()) ?? '';
+    expect(verdict).toContain('Pass');
+    expect(verdict).toContain('Rule: surface free energy (OWRK) at least 38 mN/m');
+    expect(verdict).toMatch(/\d+\.\d ± \d+\.\d mN\/m meets the minimum of 38 mN\/m/);
+    const row = page.getByTestId('surface-energy-row-F-2611');
+    const total = (await row.getByTestId('surface-energy-total').textContent()) ?? '';
+    const value = Number(total.split('±')[0]);
+    // Common practice, no source: a treated PP film for printing sits at about 38–56 mN/m.
+    expect(value).toBeGreaterThan(38);
+    expect(value).toBeLessThan(56);
+    expect(await row.textContent()).toMatch(/Diiodomethane: n = 4.*Water: n = 6/);
+
+    await row.getByRole('link', { name: 'Other methods' }).click();
+    await page.waitForURL(/\/surface-energy\?batch=/);
+    await page.getByText('Liquids measured on PP-Print / F-2611 (all samples)').waitFor();
+    expect(await page.getByLabel('Sample', { exact: true }).inputValue()).toBe('__batch__');
+    // The batch page pools all samples (also those older than 7 days), so its value differs
+    // from the compare page's windowed one; both come from OWRK.
+    expect(await page.getByTestId('owrk-gammaTotal').textContent()).toMatch(/\d+\.\d+\s*±\s*\d/);
+    await page.context().close();
+  });
+
   it('keeps the choices in the URL and tests against a reference batch', async () => {
     const page = await signedIn('analyst@kestrel.example');
     await page.goto(`${BASE_URL}/compare?coating=HT-200&ref=B-0408`);

@@ -9,6 +9,7 @@ import {
   listSurfaceEnergyChoices,
   listSurfaceEnergyResults,
   type SubjectSummary,
+  type SurfaceEnergySubject,
 } from '@/db/queries/surface-energy';
 import { HttpError } from '@/lib/api/errors';
 import { requirePage } from '@/lib/auth/guard';
@@ -19,10 +20,10 @@ export const metadata: Metadata = { title: 'Surface energy' };
 
 async function subjectOrNull(
   organizationId: string,
-  sampleId: string,
+  wanted: SurfaceEnergySubject,
 ): Promise<SubjectSummary | null> {
   try {
-    return await getSurfaceEnergySubject(organizationId, { sampleId });
+    return await getSurfaceEnergySubject(organizationId, wanted);
   } catch (error) {
     if (error instanceof HttpError && error.status === 404) return null;
     throw error;
@@ -32,13 +33,19 @@ async function subjectOrNull(
 export default async function SurfaceEnergyPage({
   searchParams,
 }: {
-  searchParams: Promise<{ sample?: string }>;
+  searchParams: Promise<{ sample?: string; batch?: string }>;
 }) {
   const ctx = await requirePage('organization:read');
   const organizationId = ctx.organization.id;
-  const { sample: sampleId } = await searchParams;
+  const { sample: sampleId, batch: batchId } = await searchParams;
+  // A sample wins over a batch when a link carries both.
+  const wanted: SurfaceEnergySubject | null = sampleId
+    ? { sampleId }
+    : batchId
+      ? { batchId }
+      : null;
   const choices = await listSurfaceEnergyChoices(organizationId);
-  const subject = sampleId ? await subjectOrNull(organizationId, sampleId) : null;
+  const subject = wanted ? await subjectOrNull(organizationId, wanted) : null;
   const readAll = can(ctx.organization.role, 'results:read-all');
 
   let body: React.ReactNode;
@@ -49,23 +56,25 @@ export default async function SurfaceEnergyPage({
         measure the contact angles of at least two probe liquids on it.
       </EmptyState>
     );
-  } else if (!sampleId) {
+  } else if (!wanted) {
     body = (
       <EmptyState title="Choose a sample">
-        Pick a coating, a batch and a sample above to see the liquids measured on it and its surface
-        free energy.
+        Pick a coating, a batch and a sample (or all samples of the batch) above to see the liquids
+        measured on it and its surface free energy.
       </EmptyState>
     );
   } else if (!subject) {
     body = (
-      <EmptyState title="Sample not found">
-        That sample is not in this organization. Choose another one above.
+      <EmptyState title={sampleId ? 'Sample not found' : 'Batch not found'}>
+        That {sampleId ? 'sample' : 'batch'} is not in this organization. Choose another one above.
       </EmptyState>
     );
   } else {
+    const found: SurfaceEnergySubject =
+      subject.kind === 'batch' ? { batchId: subject.id } : { sampleId: subject.id };
     const [angleTable, saved] = await Promise.all([
-      listAngleTable(organizationId, { sampleId: subject.id }, { readAll }),
-      listSurfaceEnergyResults(organizationId, { sampleId: subject.id }),
+      listAngleTable(organizationId, found, { readAll }),
+      listSurfaceEnergyResults(organizationId, found),
     ]);
     const liquids = angleTableToLiquids(angleTable);
     const options = {
@@ -75,7 +84,7 @@ export default async function SurfaceEnergyPage({
     };
     body = (
       <SurfaceEnergyWorkspace
-        key={subject.id}
+        key={`${subject.kind}:${subject.id}`}
         subject={{ ...subject, treatedAt: subject.treatedAt?.toISOString() ?? null }}
         angleTable={angleTable}
         liquids={liquids}
@@ -92,9 +101,13 @@ export default async function SurfaceEnergyPage({
     <>
       <PageHeader
         title="Surface energy"
-        lead="Surface free energy of a sample from the mean contact angles of the probe liquids measured on it, with the uncertainty propagated from the angles’ spread."
+        lead="Surface free energy of a sample, or of a whole batch, from the mean contact angles of the probe liquids measured on it, with the uncertainty propagated from the angles’ spread."
       />
-      <SamplePicker choices={choices} selectedSampleId={subject?.id ?? null} />
+      <SamplePicker
+        choices={choices}
+        selectedSampleId={subject?.kind === 'sample' ? subject.id : null}
+        selectedBatchId={subject?.kind === 'batch' ? subject.id : null}
+      />
       <div className="mt-6">{body}</div>
     </>
   );

@@ -65,4 +65,29 @@ describe.skipIf(!process.env.UPLOAD_FAKE_URL)('certificate of analysis (PDF)', (
     expect(text).toContain('Not signed');
     expect(text).toMatch(/validated procedure/);
   });
+
+  it('shows a PP-Print batch’s surface free energy and its verdict as the compare page does', async () => {
+    const db = getDb();
+    const [org] = await db.select().from(organizations).where(eq(organizations.slug, DEMO_ORGANIZATION.slug));
+    const [batch] = await db
+      .select()
+      .from(batches)
+      .where(and(eq(batches.organizationId, org.id), eq(batches.lotCode, 'F-2611')));
+    const ctx: OrgContext = {
+      user: { id: 'test', email: 'report@example.test', name: 'Report test' },
+      sessionId: 'test',
+      organization: { id: org.id, name: org.name, role: 'reviewer' },
+      memberships: [],
+    };
+    const { text } = await pdfText((await buildBatchReport(ctx, batch.id)).pdf);
+    const loaded = await loadComparison(org.id, batch.coatingId, { batches: [batch.id], approvedOnly: false });
+    const se = buildComparison(loaded).surfaceEnergy!;
+    const row = se.batches[0];
+    expect(text).toContain('Surface free energy');
+    expect(text).toContain(
+      `${row.total!.value.toFixed(1)} ± ${(se.coverageFactor * row.total!.standardUncertainty).toFixed(1)}`,
+    );
+    expect(text).toContain('surface free energy (OWRK) at least 38 mN/m');
+    expect(row.verdict.outcome).toBe('pass');
+  });
 });
