@@ -542,10 +542,20 @@ export const tensiometryResults = pgTable(
     kind: tensiometryKindEnum('kind').notNull(),
     inputs: jsonb('inputs').$type<Record<string, unknown>>().notNull(),
     outputs: jsonb('outputs').$type<Record<string, unknown>>().notNull(),
+    /**
+     * The pendant-drop photo the result was fitted from. No action on delete (as drops.photo_id):
+     * a kept result is only checkable with its photo, so a photo in use cannot be deleted on its
+     * own; deleting the organization still removes both in one statement.
+     */
+    photoId: text('photo_id').references(() => photos.id),
     createdByUserId: userRef('created_by_user_id'),
     createdAt: createdAt(),
   },
-  (t) => [index('tensiometry_results_org_idx').on(t.organizationId, t.kind, t.createdAt)],
+  (t) => [
+    index('tensiometry_results_org_idx').on(t.organizationId, t.kind, t.createdAt),
+    // Deleting a photo checks this foreign key; without an index that is a full scan.
+    index('tensiometry_results_photo_idx').on(t.photoId),
+  ],
 );
 
 // ---------------------------------------------------------------------------------------------

@@ -5,12 +5,22 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import type { DropPhotoRouter } from '@/app/api/uploadthing/route';
 import type { DropPhotoUploadResult } from '@/lib/uploads/file-router';
 
-const { useUploadThing } = generateReactHelpers<DropPhotoRouter>();
+/** The SDK's upload hook, typed with the app's file router (also used by the tensiometry page). */
+export const { useUploadThing } = generateReactHelpers<DropPhotoRouter>();
 
 const ACCEPTED = ['image/png', 'image/jpeg', 'image/tiff', 'image/bmp', 'image/x-ms-bmp'];
 const ACCEPTED_EXTENSIONS = /\.(png|jpe?g|tiff?|bmp)$/i;
 const MAX_BYTES = 25 * 1024 * 1024;
 const MAX_FILES = 50;
+
+/** What the 'dropPhoto' route would refuse before any byte is sent, in words; null when fine. */
+export function photoFileProblem(file: File): string | null {
+  if (!ACCEPTED.includes(file.type) && !ACCEPTED_EXTENSIONS.test(file.name))
+    return `${file.name} is not a PNG, JPEG, TIFF or BMP photo. Export the drop photo in one of these formats.`;
+  if (file.size > MAX_BYTES)
+    return `${file.name} is larger than 25 MB. Export it at a lower resolution or as PNG.`;
+  return null;
+}
 
 export type UploadedPhoto = { id: string; name: string; width: number; height: number };
 
@@ -36,12 +46,7 @@ export function PhotoDropZone({ onUploaded }: { onUploaded(photo: UploadedPhoto)
       ...taken.map((file) => ({
         key: `${file.name}-${file.size}-${file.lastModified}-${Math.random().toString(36).slice(2)}`,
         file,
-        problem:
-          !ACCEPTED.includes(file.type) && !ACCEPTED_EXTENSIONS.test(file.name)
-            ? `${file.name} is not a PNG, JPEG, TIFF or BMP photo. Export the drop photo in one of these formats.`
-            : file.size > MAX_BYTES
-              ? `${file.name} is larger than 25 MB. Export it at a lower resolution or as PNG.`
-              : null,
+        problem: photoFileProblem(file),
       })),
     ]);
   }, []);

@@ -410,9 +410,13 @@ function summary(r: SavedTensiometry): string {
 
 export function TensiometryWorkspace({
   canSave,
+  canReadPhotos,
   initialSaved,
 }: {
+  /** May save results and upload photos ('records:write'). */
   canSave: boolean;
+  /** May see drop photos ('results:read-all'). */
+  canReadPhotos: boolean;
   initialSaved: SavedTensiometry[];
 }) {
   const [saved, setSaved] = useState(initialSaved);
@@ -423,7 +427,17 @@ export function TensiometryWorkspace({
         <WilhelmyForm canSave={canSave} onSaved={onSaved} />
         <WaterCheckForm canSave={canSave} onSaved={onSaved} />
       </div>
-      <PendantDropForm canSave={canSave} onSaved={onSaved} />
+      {canSave ? (
+        <PendantDropForm onSaved={onSaved} />
+      ) : (
+        <section className="card" aria-label="Pendant drop">
+          <h2 className="mb-1">Pendant drop</h2>
+          <p className="text-sm text-ink-600">
+            Pendant-drop fits are run by analysts, who upload the photo of the hanging drop; the
+            results they save are listed below.
+          </p>
+        </section>
+      )}
       <section className="card" aria-label="Saved tensiometry results">
         <h2 className="mb-2">Saved results</h2>
         {saved.length === 0 ? (
@@ -431,13 +445,32 @@ export function TensiometryWorkspace({
         ) : (
           <ul className="divide-y divide-ink-100 text-sm">
             {saved.map((r) => (
-              <li key={r.id} className="py-2">
-                <span className="font-medium">{KIND_LABELS[r.kind] ?? r.kind}</span>
-                <span className="font-mono"> · {summary(r)}</span>
-                <span className="block text-xs text-ink-600">
-                  {new Date(r.createdAt).toISOString().slice(0, 16).replace('T', ' ')} UTC
-                  {r.createdByName ? ` · ${r.createdByName}` : ''}
-                </span>
+              <li key={r.id} className="flex items-start gap-3 py-2" data-testid="saved-result">
+                {r.photoId && canReadPhotos ? (
+                  <a
+                    href={`/api/photos/${r.photoId}/image`}
+                    target="_blank"
+                    rel="noreferrer"
+                    className="shrink-0"
+                    title="Open the photo this result was fitted from"
+                  >
+                    {/* eslint-disable-next-line @next/next/no-img-element -- authenticated thumbnail from our own route */}
+                    <img
+                      src={`/api/photos/${r.photoId}/thumbnail`}
+                      alt="Photo of the hanging drop"
+                      className="h-16 w-16 rounded border border-ink-200 object-contain"
+                    />
+                  </a>
+                ) : null}
+                <div className="min-w-0">
+                  <span className="font-medium">{KIND_LABELS[r.kind] ?? r.kind}</span>
+                  <span className="font-mono"> · {summary(r)}</span>
+                  <span className="block text-xs text-ink-600">
+                    {new Date(r.createdAt).toISOString().slice(0, 16).replace('T', ' ')} UTC
+                    {r.createdByName ? ` · ${r.createdByName}` : ''}
+                    {r.photoId && !canReadPhotos ? ' · fitted from a photo' : ''}
+                  </span>
+                </div>
               </li>
             ))}
           </ul>

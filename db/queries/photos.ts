@@ -1,7 +1,7 @@
 import 'server-only';
-import { and, desc, eq, inArray, isNull } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNull, notExists } from 'drizzle-orm';
 import { getDb } from '../client';
-import { drops, photos } from '../schema';
+import { drops, photos, tensiometryResults } from '../schema';
 import { recordAudit } from './audit';
 import { newId } from './ids';
 
@@ -99,7 +99,7 @@ export async function getPhotoThumbnail(organizationId: string, photoId: string)
 
 /**
  * Photos this user uploaded that are not saved to a sample yet: the workspace's strip after a
- * reload.
+ * reload. A pendant-drop photo kept with a saved tensiometry result is not waiting for anything.
  */
 export async function listUnsavedPhotos(organizationId: string, userId: string, limit = 50) {
   return getDb()
@@ -111,6 +111,12 @@ export async function listUnsavedPhotos(organizationId: string, userId: string, 
         eq(photos.organizationId, organizationId),
         eq(photos.uploadedByUserId, userId),
         isNull(drops.id),
+        notExists(
+          getDb()
+            .select({ id: tensiometryResults.id })
+            .from(tensiometryResults)
+            .where(eq(tensiometryResults.photoId, photos.id)),
+        ),
       ),
     )
     .orderBy(desc(photos.createdAt))

@@ -12,18 +12,26 @@ export type TensiometryResult = {
   kind: TensiometryKind;
   inputs: Record<string, unknown>;
   outputs: Record<string, unknown>;
+  /** The photo a pendant-drop result was fitted from, when it came from an uploaded photo. */
+  photoId: string | null;
   createdByUserId: string | null;
   createdByName: string | null;
   createdAt: Date;
 };
 
-/** Stores a tensiometry calculation with the inputs it was computed from. */
+/**
+ * Stores a tensiometry calculation with the inputs it was computed from and, for a pendant drop
+ * fitted from an uploaded photo, that photo (the caller has checked it belongs to the
+ * organization).
+ */
 export async function saveTensiometryResult(
   actor: Actor,
   kind: TensiometryKind,
   inputs: Record<string, unknown>,
   outputs: Record<string, unknown>,
+  options: { photoId?: string | null } = {},
 ): Promise<TensiometryResult> {
+  const photoId = options.photoId ?? null;
   const id = newId();
   return getDb().transaction(async (tx) => {
     const [row] = await tx
@@ -34,6 +42,7 @@ export async function saveTensiometryResult(
         kind,
         inputs,
         outputs,
+        photoId,
         createdByUserId: actor.userId,
       })
       .returning();
@@ -43,7 +52,7 @@ export async function saveTensiometryResult(
       action: 'tensiometry_result.create',
       entityType: 'tensiometry_result',
       entityId: id,
-      after: { kind },
+      after: photoId ? { kind, photoId } : { kind },
     });
     return { ...row, createdByName: null };
   });

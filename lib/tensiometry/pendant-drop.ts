@@ -243,6 +243,40 @@ export function fitPendantDrop(input: PendantDropInput): PendantDropResult {
   };
 }
 
+/**
+ * The fitted Young–Laplace profile in image pixels, for drawing over the photo: from the height
+ * `topY` (px, e.g. the needle tip) down the left side to the apex and up the right side, about
+ * `pointsPerSide` points each. Coordinates as pendantEdgeFromImage gives the edge: pixel centres
+ * at whole numbers (a drawing whose pixel edges are at whole numbers adds 0.5). Recomputed from
+ * the fit's apex, b and β, so nothing extra has to be kept.
+ */
+export function fittedPendantOutline(
+  result: Pick<PendantDropResult, 'apex' | 'apexRadiusMm' | 'scaleMmPerPx' | 'shapeFactor'>,
+  topY: number,
+  pointsPerSide = 120,
+): EdgePoint[] {
+  const bPx = result.apexRadiusMm / result.scaleMmPerPx;
+  const heightPx = result.apex.y - topY;
+  if (!(bPx > 0) || !(heightPx > 0) || !(result.shapeFactor > 0)) return [];
+  const profile = pendantProfile(result.shapeFactor, heightPx / bPx);
+  const every = Math.max(1, Math.floor(profile.n / pointsPerSide));
+  const side: { u: number; v: number }[] = [];
+  for (let k = 0; k < profile.n; k += every) side.push({ u: profile.x[k], v: profile.z[k] });
+  const last = profile.n - 1;
+  if (last % every !== 0) side.push({ u: profile.x[last], v: profile.z[last] });
+  const at = (u: number, v: number, sign: number) => ({
+    x: result.apex.x + sign * u * bPx,
+    y: result.apex.y - v * bPx,
+  });
+  return [
+    ...side
+      .slice()
+      .reverse()
+      .map(({ u, v }) => at(u, v, -1)),
+    ...side.slice(1).map(({ u, v }) => at(u, v, 1)),
+  ];
+}
+
 /** A grayscale photo: width × height values, row by row (8 or 16 bit). */
 export interface PendantPhoto {
   width: number;

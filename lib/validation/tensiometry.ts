@@ -125,3 +125,39 @@ export const pendantDropSchema = z.object({
   save,
 });
 export type PendantDropRequest = z.output<typeof pendantDropSchema>;
+
+/**
+ * POST /api/tensiometry/pendant-drop with a photo uploaded through the 'dropPhoto' upload route:
+ * the server finds the outline and the needle's width in px itself.
+ */
+export const pendantDropPhotoSchema = z.object({
+  photoId: z
+    .string({
+      error:
+        'Send photoId, the id of the hanging-drop photo as the upload returned it; upload the photo first.',
+    })
+    .trim()
+    .min(1, 'Send photoId, the id of the uploaded hanging-drop photo; upload the photo first.')
+    .max(100, 'photoId is too long; send the id the upload returned.'),
+  needleOuterDiameterMm: positive('needle outer diameter', 'mm', 20),
+  densityDifferenceKgPerM3: positive('density difference', 'kg/m³', 30_000),
+  edge: z
+    .undefined({
+      error:
+        'Send either photoId (the server finds the outline) or edge with needleOuterDiameterPx, not both.',
+    })
+    .optional(),
+  save,
+});
+export type PendantDropPhotoRequest = z.output<typeof pendantDropPhotoSchema>;
+
+export type PendantDropBody =
+  | ({ source: 'photo' } & Omit<PendantDropPhotoRequest, 'edge'>)
+  | ({ source: 'edge' } & PendantDropRequest);
+
+/** Either request form of the pendant-drop route: `photoId` present → the photo form. */
+export function parsePendantDropBody(body: Record<string, unknown>): PendantDropBody {
+  if (body.photoId === undefined) return { source: 'edge', ...pendantDropSchema.parse(body) };
+  const { edge: _edge, ...photo } = pendantDropPhotoSchema.parse(body);
+  return { source: 'photo', ...photo };
+}

@@ -1,8 +1,7 @@
 import type { Browser } from 'playwright-core';
-import sharp from 'sharp';
-import { integrateYoungLaplace } from '@/lib/analysis/young-laplace';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD } from '@/db/demo';
+import { WATER_PENDANT, pendantPhotoPng } from '../support/pendant-photo';
 import { BASE_URL, launchBrowser, signIn } from './support/browser';
 
 let browser: Browser;
@@ -53,67 +52,67 @@ describe('tensiometry page', () => {
   });
 });
 
-/**
- * PNG of a backlit hanging water drop rendered from the Young–Laplace equation at
- * γ = 72.0 mN/m (Δρ = 997 kg/m³, b = 1.35 mm, 60 px/mm) under a 1.20 mm needle, 4 × 4 supersampled.
- */
-async function pendantPhoto(): Promise<Buffer> {
-  const beta = (997 * 9.80665 * 1.35e-3 ** 2) / 0.072;
-  const profile = integrateYoungLaplace(-beta, { maxZ: 6, step: 0.0005 });
-  const bPx = 1.35 * 60;
-  const needleRadius = 0.6 * 60;
-  const radius: { h: number; r: number }[] = [];
-  let past = false;
-  for (let k = 0; k < profile.n; k++) {
-    const r = profile.x[k] * bPx;
-    if (profile.phi[k] > Math.PI / 2) past = true;
-    if (past && r <= needleRadius) break;
-    radius.push({ h: profile.z[k] * bPx, r });
-  }
-  const top = radius[radius.length - 1].h;
-  const [width, height, cx, apexY] = [320, 360, 160.3, 330.6];
-  const inside = (x: number, y: number) => {
-    const h = apexY - y;
-    if (h < 0) return false;
-    if (h > top) return Math.abs(x - cx) <= needleRadius;
-    const i = radius.findIndex((p) => p.h > h);
-    const [a, b] = [radius[Math.max(0, i - 1)], radius[i]];
-    const t = (h - a.h) / (b.h - a.h || 1);
-    return Math.abs(x - cx) <= a.r + t * (b.r - a.r);
-  };
-  const data = Buffer.alloc(width * height);
-  for (let y = 0; y < height; y++)
-    for (let x = 0; x < width; x++) {
-      let covered = 0;
-      for (let sy = 0; sy < 4; sy++)
-        for (let sx = 0; sx < 4; sx++)
-          if (inside(x + (sx + 0.5) / 4, y + (sy + 0.5) / 4)) covered++;
-      data[y * width + x] = Math.round(230 - (covered / 16) * 200);
-    }
-  return sharp(data, { raw: { width, height, channels: 1 } })
-    .png()
-    .toBuffer();
-}
-
 describe('pendant drop', () => {
-  it('fits the surface tension of a hanging-drop photo', async () => {
+  it('uploads a hanging-drop photo, fits its surface tension and keeps the photo with the saved result', async () => {
     const page = await browser.newPage();
     await signIn(page, 'analyst@kestrel.example', DEMO_PASSWORD);
     await page.goto(`${BASE_URL}/tensiometry`);
+    // Through the page: SDK → local upload service → signed callback → photos row.
     await page.getByLabel('Photo of the hanging drop').setInputFiles({
       name: 'pendant-water.png',
       mimeType: 'image/png',
-      buffer: await pendantPhoto(),
+      buffer: await pendantPhotoPng(WATER_PENDANT),
     });
-    await page.getByTestId('pendant-outline').waitFor();
+    await page.getByTestId('pendant-photo-stored').waitFor({ timeout: 60_000 });
+    expect(await page.getByTestId('pendant-photo-stored').textContent()).toMatch(
+      /pendant-water\.png uploaded \(320 × 360 px\)/,
+    );
     await page.getByLabel('Needle outer diameter (mm)').fill('1.20');
     await page.getByLabel('Density difference Δρ (kg/m³)').fill('997');
     await page.getByRole('button', { name: 'Fit', exact: true }).click();
-    await page.getByTestId('pendant-result').waitFor();
-    const text = (await page.getByTestId('pendant-result').textContent()) ?? '';
-    const gamma = Number(text.match(/Surface tension γ([\d.]+) mN\/m/)?.[1]);
-    // Rendered at 72.0 mN/m from the Young–Laplace equation: within 0.5 %.
+    await page.getByTestId('pendant-result').waitFor({ timeout: 60_000 });
+    const gammaOf = async () => {
+      const text = (await page.getByTestId('pendant-result').textContent()) ?? '';
+      return Number(text.match(/Surface tension γ([\d.]+) mN\/m/)?.[1]);
+    };
+    // Rendered from the Young–Laplace equation (Bashforth & Adams 1883) at 72.0 mN/m
+    // (tests/support/pendant-photo.ts): within 0.5 %.
+    const gamma = await gammaOf();
     expect(Math.abs(gamma - 72) / 72).toBeLessThan(0.005);
+    // The fitted outline is drawn over the uploaded photo.
+    await page.getByTestId('pendant-fitted-outline').waitFor();
+    expect(
+      await page
+        .getByRole('img', { name: /Photo of the hanging drop/ })
+        .first()
+        .getAttribute('src'),
+    ).toMatch(/^\/api\/photos\/[\w-]+\/image$/);
+
+    await page.getByRole('button', { name: 'Fit and save' }).click();
+    await page.getByText('Saved with its photo.').waitFor({ timeout: 60_000 });
+    const savedGamma = await gammaOf();
+    await page.reload();
+    const item = page
+      .getByTestId('saved-result')
+      .filter({ hasText: `Pendant drop · γ = ${savedGamma.toFixed(2)} mN/m` })
+      .first();
+    await item.waitFor();
+    const thumbnail = item.getByRole('img', { name: 'Photo of the hanging drop' });
+    expect(await thumbnail.getAttribute('src')).toMatch(/^\/api\/photos\/[\w-]+\/thumbnail$/);
+    // The thumbnail really loads (same session, same organization).
+    await page.waitForFunction(
+      (img) => img instanceof HTMLImageElement && img.complete && img.naturalWidth > 0,
+      await thumbnail.elementHandle(),
+    );
+    await page.close();
+  });
+
+  it('shows viewers the saved results and who runs pendant-drop fits', async () => {
+    const page = await browser.newPage();
+    await signIn(page, 'viewer@kestrel.example', DEMO_PASSWORD);
+    await page.goto(`${BASE_URL}/tensiometry`);
+    await page.getByText('Pendant-drop fits are run by analysts').waitFor();
+    expect(await page.getByLabel('Photo of the hanging drop').count()).toBe(0);
     await page.close();
   });
 });

@@ -14,10 +14,11 @@ export default async function TensiometryPage() {
     <>
       <PageHeader
         title="Tensiometry"
-        lead="Surface tension or contact angle from a Wilhelmy plate reading, and a check of the probe water against its published surface tension."
+        lead="Surface tension or contact angle from a Wilhelmy plate reading, a check of the probe water against its published surface tension, and surface tension from a photo of a pendant drop."
       />
       <TensiometryWorkspace
         canSave={can(ctx.organization.role, 'records:write')}
+        canReadPhotos={can(ctx.organization.role, 'results:read-all')}
         initialSaved={saved.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }))}
       />
     </>

@@ -9,6 +9,10 @@ const FIELD_OF_CODE: Record<string, string> = {
   'out-of-range': 'temperatureC',
   'too-few-points': 'edge',
   'angle-out-of-range': 'contactAngleDeg',
+  // Pendant drop from an uploaded photo: the outline could not be found in it.
+  'bad-image': 'photoId',
+  'low-contrast': 'photoId',
+  'no-drop': 'photoId',
 };
 
 /** Runs a tensiometry calculation; input it cannot use becomes a 422 naming the field. */

@@ -3,11 +3,13 @@ import { describe, expect, it } from 'vitest';
 import { integrateYoungLaplace } from '@/lib/analysis/young-laplace';
 import {
   fitPendantDrop,
+  fittedPendantOutline,
   pendantEdgeFromImage,
   MIN_RELIABLE_SHAPE_FACTOR,
   type EdgePoint,
 } from '@/lib/tensiometry/pendant-drop';
 import { TensiometryInputError } from '@/lib/tensiometry';
+import { WATER_PENDANT, renderPendantPhoto } from '../../support/pendant-photo';
 
 const G = 9.80665;
 
@@ -123,61 +125,12 @@ describe('fitPendantDrop', () => {
 });
 
 describe('pendantEdgeFromImage', () => {
-  /**
-   * A backlit photo of a hanging drop rendered from the Young–Laplace equation at γ = 72 mN/m
-   * (water, Δρ = 997 kg/m³, b = 1.35 mm, 60 px/mm) under a 1.20 mm needle, 4 × 4 supersampled.
-   */
-  function renderPhoto() {
-    const pxPerMm = 60;
-    const bMm = 1.35;
-    const beta = (997 * G * (bMm * 1e-3) ** 2) / 0.072;
-    const profile = integrateYoungLaplace(-beta, { maxZ: 6, step: 0.0005 });
-    const bPx = bMm * pxPerMm;
-    const needleRadiusPx = 0.6 * pxPerMm;
-    // Radius against height above the apex (px), up to where the drop narrows to the needle.
-    const radius: { h: number; r: number }[] = [];
-    let pastEquator = false;
-    for (let k = 0; k < profile.n; k++) {
-      const r = profile.x[k] * bPx;
-      if (profile.phi[k] > Math.PI / 2) pastEquator = true;
-      if (pastEquator && r <= needleRadiusPx) break;
-      radius.push({ h: profile.z[k] * bPx, r });
-    }
-    const dropTop = radius[radius.length - 1].h;
-    const width = 320;
-    const height = 360;
-    const cx = 160.3;
-    const apexY = 330.6;
-    const inside = (x: number, y: number) => {
-      const h = apexY - y;
-      if (h < 0) return false;
-      if (h > dropTop) return Math.abs(x - cx) <= needleRadiusPx;
-      let lo = 0;
-      let hi = radius.length - 1;
-      while (hi - lo > 1) {
-        const mid = (lo + hi) >> 1;
-        if (radius[mid].h <= h) lo = mid;
-        else hi = mid;
-      }
-      const t = (h - radius[lo].h) / (radius[hi].h - radius[lo].h || 1);
-      return Math.abs(x - cx) <= radius[lo].r + t * (radius[hi].r - radius[lo].r);
-    };
-    const data = new Uint8Array(width * height);
-    for (let y = 0; y < height; y++)
-      for (let x = 0; x < width; x++) {
-        let covered = 0;
-        for (let sy = 0; sy < 4; sy++)
-          for (let sx = 0; sx < 4; sx++)
-            if (inside(x + (sx + 0.5) / 4, y + (sy + 0.5) / 4)) covered++;
-        data[y * width + x] = Math.round(230 - (covered / 16) * 200);
-      }
-    return { width, height, data, needlePx: 2 * needleRadiusPx };
-  }
-
   it('finds the needle and the outline, and the fit gives γ within 0.5 %', () => {
-    const photo = renderPhoto();
+    // Rendered from the Young–Laplace equation at γ = 72 mN/m (water, Δρ = 997 kg/m³,
+    // b = 1.35 mm, 60 px/mm) under a 1.20 mm needle: tests/support/pendant-photo.ts.
+    const photo = renderPendantPhoto(WATER_PENDANT);
     const extraction = pendantEdgeFromImage(photo);
-    expect(extraction.needleOuterDiameterPx).toBeCloseTo(photo.needlePx, 0);
+    expect(extraction.needleOuterDiameterPx).toBeCloseTo(photo.needleOuterDiameterPx, 0);
     const fit = fitPendantDrop({
       edge: extraction.edge,
       needleOuterDiameterMm: 1.2,
@@ -186,6 +139,36 @@ describe('pendantEdgeFromImage', () => {
     });
     expect(Math.abs(fit.surfaceTensionMilliNewtonPerM - 72) / 72).toBeLessThan(0.005);
     expect(fit.rmsResidualPx).toBeLessThan(0.5);
+  });
+
+  it('draws the fitted profile over the photo where the rendered drop is', () => {
+    const photo = renderPendantPhoto(WATER_PENDANT);
+    const extraction = pendantEdgeFromImage(photo);
+    const fit = fitPendantDrop({
+      edge: extraction.edge,
+      needleOuterDiameterMm: 1.2,
+      needleOuterDiameterPx: extraction.needleOuterDiameterPx,
+      densityDifferenceKgPerM3: 997,
+    });
+    const outline = fittedPendantOutline(fit, extraction.needleTipY);
+    expect(outline.length).toBeGreaterThan(100);
+    const ys = outline.map((p) => p.y);
+    const xs = outline.map((p) => p.x);
+    // The apex is rendered at (160.3, 330.6) in continuous image coordinates, which is
+    // (159.8, 330.1) with pixel centres at whole numbers, as the outline is given.
+    expect(Math.max(...ys)).toBeCloseTo(WATER_PENDANT.apexY - 0.5, 0);
+    expect((Math.max(...xs) + Math.min(...xs)) / 2).toBeCloseTo(WATER_PENDANT.axisX - 0.5, 0);
+    // It ends at the needle tip.
+    expect(Math.min(...ys)).toBeCloseTo(extraction.needleTipY, 0);
+    // Its widest span is the drop's equator as found in the photo.
+    const edgeXs = extraction.edge.map((p) => p.x);
+    expect(Math.max(...xs) - Math.min(...xs)).toBeCloseTo(
+      Math.max(...edgeXs) - Math.min(...edgeXs),
+      0,
+    );
+    // Left side first, top to apex, then the right side back up.
+    expect(outline[0].x).toBeLessThan(WATER_PENDANT.axisX - 0.5);
+    expect(outline[outline.length - 1].x).toBeGreaterThan(WATER_PENDANT.axisX - 0.5);
   });
 
   it('says so when there is no drop', () => {
