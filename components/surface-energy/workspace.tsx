@@ -138,6 +138,13 @@ function SpecVerdict({
             {nearLimit
               ? ' The limit lies within two standard uncertainties of the result; confirm with more drops.'
               : ''}
+            {spec.maxDaysSinceTreatment !== null ? (
+              <span className="mt-1 block text-xs" data-testid="spec-window">
+                The spec counts only drops measured within {spec.maxDaysSinceTreatment} days of
+                treatment; this page uses every drop shown above, the compare page applies the
+                window.
+              </span>
+            ) : null}
           </p>
         );
       })}

@@ -37,7 +37,14 @@ export type SubjectSummary = {
   coatingName: string;
   treatedAt: Date | null;
   /** Surface-energy limits of the coating's specs (mN/m), if any. */
-  surfaceEnergySpecs: { id: string; min: number | null; max: number | null; note: string }[];
+  surfaceEnergySpecs: {
+    id: string;
+    min: number | null;
+    max: number | null;
+    /** The spec counts only drops measured within this many days of treatment. */
+    maxDaysSinceTreatment: number | null;
+    note: string;
+  }[];
 };
 
 /** One probe liquid measured on the subject: the mean angle of its drops and its components. */
@@ -99,6 +106,7 @@ export async function getSurfaceEnergySubject(
       id: specs.id,
       min: specs.minSurfaceEnergyMnM,
       max: specs.maxSurfaceEnergyMnM,
+      maxDaysSinceTreatment: specs.maxDaysSinceTreatment,
       note: specs.note,
     })
     .from(specs)

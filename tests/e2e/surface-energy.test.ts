@@ -45,6 +45,8 @@ describe('surface energy page (demo seed)', () => {
     expect(await page.getByTestId('spec-verdict').textContent()).toMatch(
       /Meets the spec surface free energy ≥ 38 mN\/m/,
     );
+    // Its 7-day window is named, since this page uses every drop of the sample.
+    expect(await page.getByTestId('spec-window').textContent()).toMatch(/within 7 days of\s+treatment/);
 
     const before = await page.getByTestId('saved-result').count();
     await page.getByRole('button', { name: 'Save with the sample' }).click();
