@@ -324,6 +324,8 @@ export const measurementSessions = pgTable(
 );
 
 /** An uploaded drop photo, as checked on the server. */
+export const photoPurposeEnum = pgEnum('photo_purpose', ['sessile-drop', 'pendant-drop']);
+
 export const photos = pgTable(
   'photos',
   {
@@ -342,6 +344,8 @@ export const photos = pgTable(
     thumbnailPng: bytea('thumbnail_png').notNull(),
     /** Lossless PNG for the browser when it cannot decode the original (TIFF, 16-bit, BMP). */
     workingPng: bytea('working_png'),
+    /** What the photo was uploaded for; the measurement workspace offers sessile drops only. */
+    purpose: photoPurposeEnum('purpose').notNull().default('sessile-drop'),
     createdAt: createdAt(),
   },
   (t) => [

@@ -126,7 +126,7 @@ export function PendantDropForm({ onSaved }: { onSaved: (s: SavedTensiometry) =>
     setUpload({ kind: 'uploading', name: file.name, progress: 0 });
     uploadError.current = null;
     try {
-      const results = await startUpload([file], {});
+      const results = await startUpload([file], { purpose: 'pendant-drop' });
       const outcome = results?.[0]?.serverData as DropPhotoUploadResult | undefined;
       if (!outcome)
         return refuse(uploadError.current ?? 'The upload did not finish. Choose the photo again.');

@@ -1,7 +1,7 @@
 import 'server-only';
-import { and, desc, eq, inArray, isNull, notExists } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNull } from 'drizzle-orm';
 import { getDb } from '../client';
-import { drops, photos, tensiometryResults } from '../schema';
+import { drops, photos } from '../schema';
 import { recordAudit } from './audit';
 import { newId } from './ids';
 
@@ -19,6 +19,8 @@ export type NewPhoto = {
   sha256: string;
   thumbnailPng: Buffer;
   workingPng: Buffer | null;
+  /** Sessile drop (the default) or hanging drop. */
+  purpose?: 'sessile-drop' | 'pendant-drop';
 };
 
 export async function insertPhoto(input: NewPhoto): Promise<{ photoId: string }> {
@@ -33,6 +35,7 @@ export async function insertPhoto(input: NewPhoto): Promise<{ photoId: string }>
       entityId: photoId,
       after: {
         name: input.originalName,
+        purpose: input.purpose ?? 'sessile-drop',
         format: input.format,
         width: input.width,
         height: input.height,
@@ -99,7 +102,7 @@ export async function getPhotoThumbnail(organizationId: string, photoId: string)
 
 /**
  * Photos this user uploaded that are not saved to a sample yet: the workspace's strip after a
- * reload. A pendant-drop photo kept with a saved tensiometry result is not waiting for anything.
+ * reload. Photos of hanging drops (uploaded for the pendant-drop surface tension) are not offered.
  */
 export async function listUnsavedPhotos(organizationId: string, userId: string, limit = 50) {
   return getDb()
@@ -111,12 +114,7 @@ export async function listUnsavedPhotos(organizationId: string, userId: string, 
         eq(photos.organizationId, organizationId),
         eq(photos.uploadedByUserId, userId),
         isNull(drops.id),
-        notExists(
-          getDb()
-            .select({ id: tensiometryResults.id })
-            .from(tensiometryResults)
-            .where(eq(tensiometryResults.photoId, photos.id)),
-        ),
+        eq(photos.purpose, 'sessile-drop'),
       ),
     )
     .orderBy(desc(photos.createdAt))

@@ -52,9 +52,17 @@ export const DROP_PHOTO_ROUTE_CONFIG = {
  * What the browser sends with an upload (`input: {}` when there is nothing to say). An object,
  * not an optional one: the SDK's client type drops `input` altogether for optional inputs.
  */
+export const PHOTO_PURPOSES = ['sessile-drop', 'pendant-drop'] as const;
+export type PhotoPurpose = (typeof PHOTO_PURPOSES)[number];
+
 export const dropPhotoInputSchema = z.object({
   /** The instrument session the photos belong to, when the upload starts from one. */
   sessionId: z.string().min(1).max(128).optional(),
+  /**
+   * What the photo is for: a sessile drop for the measurement workspace (the default) or a
+   * hanging drop for the pendant-drop surface tension, which the workspace does not offer.
+   */
+  purpose: z.enum(PHOTO_PURPOSES).optional(),
 });
 
 export type DropPhotoInput = z.infer<typeof dropPhotoInputSchema>;
@@ -70,6 +78,7 @@ export type DropPhotoOwner = {
  */
 export type DropPhotoUploadMetadata = DropPhotoOwner & {
   sessionId: string | null;
+  purpose: PhotoPurpose;
 };
 
 /** The stored original as the upload service reports it. */
@@ -294,6 +303,7 @@ export function createDropPhotoRouter(options: DropPhotoRouterOptions) {
           userId: owner.userId,
           organizationId: owner.organizationId,
           sessionId: input.sessionId ?? null,
+          purpose: input.purpose ?? 'sessile-drop',
         };
       })
       .onUploadComplete(async ({ metadata, file }) => {

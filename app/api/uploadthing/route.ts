@@ -38,6 +38,8 @@ const dropPhotoRouter = createDropPhotoRouter({
       sha256: inspected.sha256,
       thumbnailPng: inspected.thumbnailPng,
       workingPng: inspected.orientedPng ?? null,
+      // Metadata stored by an older release has no purpose.
+      purpose: metadata.purpose ?? 'sessile-drop',
     });
   },
 });

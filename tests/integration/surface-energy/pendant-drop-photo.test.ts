@@ -23,7 +23,13 @@ let dropPhotoId: string;
 let blankPhotoId: string;
 let otherLabPhotoId: string;
 
-async function storePhoto(organizationId: string, userId: string, name: string, png: Buffer) {
+async function storePhoto(
+  organizationId: string,
+  userId: string,
+  name: string,
+  png: Buffer,
+  purpose: 'sessile-drop' | 'pendant-drop' = 'pendant-drop',
+) {
   const { photoId } = await insertPhoto({
     organizationId,
     uploadedByUserId: userId,
@@ -38,6 +44,7 @@ async function storePhoto(organizationId: string, userId: string, name: string, 
     sha256: 'test',
     thumbnailPng: png,
     workingPng: png,
+    purpose,
   });
   return photoId;
 }
@@ -47,11 +54,13 @@ beforeAll(async () => {
   otherLab = await createLab();
   const drop = await pendantPhotoPng(WATER_PENDANT);
   dropPhotoId = await storePhoto(lab.id, lab.members.analyst.userId, 'pendant-water.png', drop);
+  // Uploaded as a sessile-drop photo, so the measurement workspace offers it.
   blankPhotoId = await storePhoto(
     lab.id,
     lab.members.analyst.userId,
     'blank.png',
     await blankPhotoPng(),
+    'sessile-drop',
   );
   otherLabPhotoId = await storePhoto(
     otherLab.id,
@@ -73,6 +82,11 @@ const body = (photoId: string, extra: Record<string, unknown> = {}) => ({
 });
 
 describe('POST /api/tensiometry/pendant-drop with an uploaded photo', () => {
+  it('is not offered by the measurement workspace as a drop photo waiting for a sample', async () => {
+    const waiting = await listUnsavedPhotos(lab.id, lab.members.analyst.userId);
+    expect(waiting.map((p) => p.id)).toEqual([blankPhotoId]);
+  });
+
   it('finds the drop in the stored photo and recovers γ within 0.5 %', async () => {
     const response = await call(pendantRoute.POST, PATH, {
       method: 'POST',
@@ -128,7 +142,7 @@ describe('POST /api/tensiometry/pendant-drop with an uploaded photo', () => {
       (row.outputs.extraction as { needleOuterDiameterPx: number }).needleOuterDiameterPx,
     ).toBeCloseTo(72, 0);
 
-    // The measurement workspace no longer offers the photo as waiting to be saved to a sample.
+    // The measurement workspace never offers a hanging-drop photo as waiting for a sample.
     const waiting = await listUnsavedPhotos(lab.id, lab.members.analyst.userId);
     expect(waiting.map((p) => p.id)).not.toContain(dropPhotoId);
     expect(waiting.map((p) => p.id)).toContain(blankPhotoId);

@@ -192,7 +192,7 @@ describe.each([
 
     expect(storedCalls).toHaveLength(1);
     const [call] = storedCalls;
-    expect(call.metadata).toEqual({ ...OWNER, sessionId: 'session-7' });
+    expect(call.metadata).toEqual({ ...OWNER, sessionId: 'session-7', purpose: 'sessile-drop' });
     expect(call.file).toMatchObject({
       key: result.key,
       name: file.name,
@@ -218,6 +218,26 @@ describe.each([
     const thumbnail = Buffer.from(await (await fetch(call.derived!.thumbnail.url)).arrayBuffer());
     expect((await sharp(thumbnail).metadata()).format).toBe('png');
     expect(call.derived!.workerPng).toBeNull();
+  });
+
+  it('carries the photo’s purpose from the upload to onStored, and refuses an unknown one', async () => {
+    const bytes = await rgbCard(60, 80).png().toBuffer();
+    const file = new File([new Uint8Array(bytes)], 'hanging drop.png', { type: 'image/png' });
+    const [result] = await client().uploadFiles(DROP_PHOTO_ROUTE, {
+      files: [file],
+      input: { purpose: 'pendant-drop' },
+    });
+    expect(result.serverData).toMatchObject({ status: 'stored' });
+    expect(storedCalls[0].metadata).toEqual({ ...OWNER, sessionId: null, purpose: 'pendant-drop' });
+
+    await expect(
+      client().uploadFiles(DROP_PHOTO_ROUTE, {
+        files: [file],
+        // Not a purpose the route knows: the SDK's input parser refuses it before any upload.
+        input: { purpose: 'wilhelmy-plate' } as unknown as { purpose: 'pendant-drop' },
+      }),
+    ).rejects.toThrow();
+    expect(storedCalls).toHaveLength(1);
   });
 
   it('keeps an upright 16-bit PNG for the worker when the original is a 16-bit TIFF', async () => {
@@ -362,7 +382,7 @@ describe('forged and tampered requests (route served like app/api/uploadthing/ro
     const payload = JSON.stringify({
       status: 'uploaded',
       origin: fake.url,
-      metadata: { ...OWNER, sessionId: null },
+      metadata: { ...OWNER, sessionId: null, purpose: 'sessile-drop' },
       file: {
         key: 'forgedKey123',
         name: 'forged.png',
