@@ -161,6 +161,9 @@ export async function buildBatchReport(ctx: OrgContext, batchId: string): Promis
     .where(eq(samples.batchId, batch.id));
   const methods = methodRows.map((m) => m.method);
 
+  const se = comparison.surfaceEnergy;
+  const seResult = se?.batches.find((b) => b.batch.id === batch.id);
+
   const data: BatchReportData = {
     organizationName: ctx.organization.name,
     coating: { code: batch.coatingCode, name: batch.coatingName, description: batch.coatingDescription },
@@ -176,13 +179,8 @@ export async function buildBatchReport(ctx: OrgContext, batchId: string): Promis
       const result = l.batches.find((b) => b.batch.id === batch.id);
       return result ? [{ name: l.liquid.name, hazardNote: hazards.get(l.liquid.id) ?? null, result, specLines: l.specLines }] : [];
     }),
-    surfaceEnergy: (() => {
-      const se = comparison.surfaceEnergy;
-      const result = se?.batches.find((b) => b.batch.id === batch.id);
-      return se && result
-        ? { result, method: se.method, basis: se.basis, coverageFactor: se.coverageFactor }
-        : null;
-    })(),
+    surfaceEnergy:
+      se && seResult ? { result: seResult, method: se.method, basis: se.basis, coverageFactor: se.coverageFactor } : null,
     representative,
     review:
       review?.signature

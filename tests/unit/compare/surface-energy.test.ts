@@ -8,6 +8,7 @@ import {
   type ComparisonDropInput,
   type ComparisonSpecInput,
 } from '@/lib/compare';
+import { STROM_DIIODOMETHANE, STROM_WATER, owrkByHand } from '../../support/owrk-by-hand';
 
 /*
  * The surface-energy verdict of the compare page: OWRK over each batch's mean angle per probe
@@ -15,30 +16,9 @@ import {
  * Liquid components: Ström, Fredriksson & Stenius, J. Colloid Interface Sci. 119 (1987) —
  * water 72.8 = 21.8 (dispersive) + 51.0 (polar), diiodomethane 50.8 = 50.8 + 0 mN/m.
  */
-const WATER = { id: 'liquid-water', name: 'Water', gammaTotal: 72.8, gammaDispersive: 21.8, gammaPolar: 51 };
-const DIM = {
-  id: 'liquid-diiodomethane',
-  name: 'Diiodomethane',
-  gammaTotal: 50.8,
-  gammaDispersive: 50.8,
-  gammaPolar: 0,
-};
+const WATER = { id: 'liquid-water', name: 'Water', ...STROM_WATER };
+const DIM = { id: 'liquid-diiodomethane', name: 'Diiodomethane', ...STROM_DIIODOMETHANE };
 const LAB_LIQUID = { id: 'liquid-lab', name: 'Lab mix', gammaTotal: 40, gammaDispersive: null, gammaPolar: null };
-
-const rad = (deg: number) => (deg * Math.PI) / 180;
-
-/**
- * Independent closed-form OWRK for water + an apolar liquid (solved by hand, not by least
- * squares): diiodomethane alone gives γSd = γL(1 + cos θ)² / 4 (γL = γLd); water then gives
- * √γSp = (γW(1 + cos θW)/2 − √(γSd γWd)) / √γWp.
- */
-function owrkByHand(waterDeg: number, dimDeg: number) {
-  const dispersive = (DIM.gammaTotal * (1 + Math.cos(rad(dimDeg))) ** 2) / 4;
-  const rootPolar =
-    ((WATER.gammaTotal * (1 + Math.cos(rad(waterDeg)))) / 2 - Math.sqrt(dispersive * WATER.gammaDispersive)) /
-    Math.sqrt(WATER.gammaPolar);
-  return { dispersive, polar: rootPolar ** 2, total: dispersive + rootPolar ** 2 };
-}
 
 const batch = (id: string, producedOn: string): ComparisonBatchInput => ({ id, lotCode: id, producedOn });
 
