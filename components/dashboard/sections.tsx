@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import type { OutOfSpecBatch, RecentDrop } from '@/db/queries/dashboard';
+import type { OutOfSpecBatch, RecentDrop } from '@/lib/contracts/dashboard';
 
 const STATUS: Record<RecentDrop['reviewStatus'], string> = {
   draft: 'Draft',

@@ -1,6 +1,6 @@
 'use client';
 
-import type { ErrorBody } from '@/lib/api/errors';
+import type { ErrorBody } from '@/lib/contracts/errors';
 
 export class ApiError extends Error {
   constructor(

@@ -1,13 +1,13 @@
 'use client';
 
 import type { FieldValues, Path, UseFormReturn } from 'react-hook-form';
-import type { ErrorBody } from '@/lib/api/errors';
+import type { ErrorBody, ErrorCode } from '@/lib/contracts/errors';
 
 /** A non-2xx answer with Beadline's error body (and any extra keys, like `current` on 409). */
 export class RecordApiError extends Error {
   constructor(
     readonly status: number,
-    readonly body: (ErrorBody & Record<string, unknown>) | null,
+    readonly body: (ErrorBody<ErrorCode | 'network'> & Record<string, unknown>) | null,
   ) {
     super(body?.error.message ?? `The server answered ${status}. Try again.`);
   }

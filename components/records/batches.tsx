@@ -2,16 +2,11 @@
 
 import { useRouter } from 'next/navigation';
 import type { ColumnDef } from '@tanstack/react-table';
-import type { Batch, BatchListItem } from '@/db/queries/batches';
+import type { Batch, BatchListItem } from '@/lib/contracts/batches';
 import { DataTable, TableLink, type DataTableProps } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
 import { InputField, SelectField, TextAreaField } from '@/components/ui/form-field';
-import {
-  PROCESS_PARAMETERS,
-  batchCreateSchema,
-  batchUpdateSchema,
-  type ProcessParameterKey,
-} from '@/lib/validation/records';
+import { PROCESS_PARAMETERS, batchCreateSchema, batchUpdateSchema, type ProcessParameterKey } from '@/lib/contracts/batches';
 import { fmtDate } from './format';
 import type { Choice } from './specs';
 import { FormMessages, useRecordForm } from './use-record-form';

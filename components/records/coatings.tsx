@@ -1,11 +1,11 @@
 'use client';
 
 import type { ColumnDef } from '@tanstack/react-table';
-import type { Coating } from '@/db/queries/coatings';
+import type { Coating } from '@/lib/contracts/coatings';
 import { DataTable, TableLink, type DataTableProps } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
 import { InputField, TextAreaField } from '@/components/ui/form-field';
-import { coatingCreateSchema, coatingUpdateSchema } from '@/lib/validation/records';
+import { coatingCreateSchema, coatingUpdateSchema } from '@/lib/contracts/coatings';
 import { fmtDate } from './format';
 import { FormMessages, useRecordForm } from './use-record-form';
 

@@ -6,7 +6,7 @@ import { useRouter } from 'next/navigation';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import { FormNotice, TextAreaField } from '@/components/ui/form-field';
-import { IMPORT_TEMPLATE, importRequestSchema, type ImportIssue } from '@/lib/validation/import';
+import { IMPORT_TEMPLATE, importRequestSchema, type ImportIssue } from '@/lib/contracts/import';
 import { RecordApiError, sendJson } from './api';
 
 type Values = { csv: string };

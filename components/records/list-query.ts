@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { listQueryToSearchParams, searchParamsToObject } from '@/lib/validation/records';
+import { listQueryToSearchParams, searchParamsToObject } from '@/lib/contracts/common';
 
 export type PageSearchParams = Record<string, string | string[] | undefined>;
 

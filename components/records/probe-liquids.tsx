@@ -3,15 +3,11 @@
 import { useState } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
 import { z } from 'zod';
-import type { ProbeLiquid } from '@/db/queries/probe-liquids';
+import type { ProbeLiquid } from '@/lib/contracts/probe-liquids';
 import { DataTable, type DataTableProps } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
 import { InputField, TextAreaField } from '@/components/ui/form-field';
-import {
-  PROBE_LIQUID_VALUES,
-  probeLiquidCreateSchema,
-  probeLiquidUpdateSchema,
-} from '@/lib/validation/records';
+import { PROBE_LIQUID_VALUES, probeLiquidCreateSchema, probeLiquidUpdateSchema } from '@/lib/contracts/probe-liquids';
 import { ArchiveButton } from './archive-button';
 import { fmtNumber } from './format';
 import { FormMessages, useRecordForm } from './use-record-form';

@@ -1,7 +1,7 @@
 'use client';
 
 import type { ColumnDef } from '@tanstack/react-table';
-import type { MeasurementSessionListItem } from '@/db/queries/measurement-sessions';
+import type { MeasurementSessionListItem } from '@/lib/contracts/measurement-sessions';
 import { DataTable, type DataTableProps } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
 import { fmtDateTime, fmtNumber } from './format';

@@ -2,11 +2,11 @@
 
 import { useState } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
-import type { SpecListItem } from '@/db/queries/specs';
+import type { SpecListItem } from '@/lib/contracts/specs';
 import { DataTable } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
 import { InputField, SelectField, TextAreaField } from '@/components/ui/form-field';
-import { specCreateSchema, specUpdateSchema } from '@/lib/validation/records';
+import { specCreateSchema, specUpdateSchema } from '@/lib/contracts/specs';
 import { ArchiveButton } from './archive-button';
 import { fmtNumber } from './format';
 import { FormMessages, useRecordForm } from './use-record-form';

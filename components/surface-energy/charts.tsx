@@ -12,7 +12,7 @@ import {
   XAxis,
   YAxis,
 } from 'recharts';
-import type { EnvelopePlot, OwrkPlot } from '@/lib/validation/surface-energy';
+import type { EnvelopePlot, OwrkPlot } from '@/lib/surface-energy/compute';
 
 const LAGOON = '#0f7d80';
 const AMBER = '#9a5206';

@@ -1,23 +1,10 @@
 'use client';
 
 import { useState } from 'react';
-import type {
-  AngleTableRow,
-  SavedSurfaceEnergyResult,
-  SubjectSummary,
-} from '@/db/queries/surface-energy';
+import type { AngleTableRow, SavedSurfaceEnergyResult, SubjectSummary } from '@/lib/contracts/surface-energy';
 import type { SurfaceEnergyMethod } from '@/lib/surface-energy';
-import {
-  COMPONENT_LABELS,
-  METHOD_LABELS,
-  SURFACE_ENERGY_METHOD_KEYS,
-  headlineTotal,
-  type LiquidAngle,
-  type MethodAvailability,
-  type MethodOutcome,
-  type SurfaceEnergyOutputs,
-  type UncertaintyBasis,
-} from '@/lib/validation/surface-energy';
+import { COMPONENT_LABELS, METHOD_LABELS } from '@/components/surface-energy/labels';
+import { SURFACE_ENERGY_METHOD_KEYS, headlineTotal, type LiquidAngle, type MethodAvailability, type MethodOutcome, type SurfaceEnergyOutputs, type UncertaintyBasis } from '@/lib/surface-energy/compute';
 import { ApiError, apiFetch } from '@/components/measure/api';
 import { EnvelopeChart, OwrkChart } from './charts';
 

@@ -1,7 +1,7 @@
 'use client';
 
 import { useState } from 'react';
-import type { TensiometryResult } from '@/db/queries/tensiometry';
+import type { TensiometryResult } from '@/lib/contracts/tensiometry';
 import type {
   ProbeLiquidCheck,
   WilhelmyContactAngleResult,
@@ -399,7 +399,7 @@ const KIND_LABELS: Record<string, string> = {
 };
 
 function summary(r: SavedTensiometry): string {
-  const o = r.outputs as Record<string, number | string | undefined>;
+  const o: Record<string, unknown> = { ...r.outputs };
   if (r.kind === 'water-check')
     return `${fmt(Number(o.measuredMilliNewtonPerM))} vs ${fmt(Number(o.referenceMilliNewtonPerM))} mN/m — ${String(o.flag)}`;
   if (r.kind === 'wilhelmy-angle') return `θ = ${fmt(Number(o.contactAngleDeg), 1)}°`;

@@ -9,49 +9,15 @@ import type {
   WettingClassResult,
 } from '@/lib/stats';
 
-/** A batch as the comparison sees it; `producedOn` is an ISO date (YYYY-MM-DD). */
-export interface ComparisonBatchInput {
-  id: string;
-  lotCode: string;
-  producedOn: string;
-}
+// What a comparison is made of: the rows db/queries/comparison loads (lib/contracts/compare.ts).
+import type {
+  ComparisonBatchInput,
+  ComparisonDropInput,
+  ComparisonLiquidInput,
+  ComparisonSpecInput,
+} from '@/lib/contracts/compare';
 
-export interface ComparisonLiquidInput {
-  id: string;
-  name: string;
-  /** Surface-tension components, mN/m; the surface-energy verdict needs the split ones. */
-  gammaTotal?: number | null;
-  gammaDispersive?: number | null;
-  gammaPolar?: number | null;
-}
-
-/** Acceptance limits of the coating for one probe liquid (a row of `specs`). */
-export interface ComparisonSpecInput {
-  id: string;
-  probeLiquidId: string;
-  minDeg: number | null;
-  maxDeg: number | null;
-  scope: 'each-drop' | 'mean';
-  maxDaysSinceTreatment: number | null;
-  /** Surface free energy limits, mN/m (judged by OWRK over the batch). */
-  minSurfaceEnergyMnM?: number | null;
-  maxSurfaceEnergyMnM?: number | null;
-  note: string;
-}
-
-/** One drop with the angles of its latest analysis revision. Times are ISO strings. */
-export interface ComparisonDropInput {
-  dropId: string;
-  batchId: string;
-  sampleId: string;
-  sampleLabel: string;
-  probeLiquidId: string;
-  measuredAt: string;
-  treatedAt: string | null;
-  leftDeg: number;
-  rightDeg: number;
-  meanDeg: number;
-}
+export type { ComparisonBatchInput, ComparisonDropInput, ComparisonLiquidInput, ComparisonSpecInput };
 
 export interface ComparisonInput {
   batches: readonly ComparisonBatchInput[];

@@ -1,11 +1,11 @@
 import 'server-only';
-import type { Batch, BatchListItem } from '@/db/queries/batches';
-import type { Coating } from '@/db/queries/coatings';
-import type { SampleWithResults } from '@/db/queries/exports';
-import type { MeasurementSessionListItem } from '@/db/queries/measurement-sessions';
-import type { ProbeLiquid } from '@/db/queries/probe-liquids';
-import type { SpecListItem } from '@/db/queries/specs';
-import { PROCESS_PARAMETERS, type ProcessParameterKey } from '@/lib/validation/records';
+import type { Batch, BatchListItem } from '@/lib/contracts/batches';
+import type { Coating } from '@/lib/contracts/coatings';
+import type { SampleWithResults } from '@/lib/contracts/samples';
+import type { MeasurementSessionListItem } from '@/lib/contracts/measurement-sessions';
+import type { ProbeLiquid } from '@/lib/contracts/probe-liquids';
+import type { SpecListItem } from '@/lib/contracts/specs';
+import { PROCESS_PARAMETERS, type ProcessParameterKey } from '@/lib/contracts/batches';
 import type { CsvColumn } from './index';
 
 /*

@@ -9,7 +9,7 @@ import {
   type ImportColumn,
   type ImportIssue,
   type ParsedImportRow,
-} from '@/lib/validation/import';
+} from '@/lib/contracts/import';
 
 /**
  * Parses and checks the CSV text: the header, then every row with importRowSchema. Returns all

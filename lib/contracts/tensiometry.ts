@@ -1,8 +1,18 @@
 import { z } from 'zod';
+import type {
+  PendantDropResult,
+  PendantEdgeExtraction,
+  fittedPendantOutline,
+} from '@/lib/tensiometry/pendant-drop';
+import type { ProbeLiquidCheck } from '@/lib/tensiometry/water';
+import type {
+  WilhelmyContactAngleResult,
+  WilhelmySurfaceTensionResult,
+} from '@/lib/tensiometry/wilhelmy';
 
 /*
- * Tensiometry request shapes, shared by the page's forms and the route handlers. Lab units:
- * mN, mm, g/cm³, °C, mN/m.
+ * /api/tensiometry/*: request shapes, shared by the page's forms and the route handlers, and the
+ * replies. Lab units: mN, mm, g/cm³, °C, mN/m.
  */
 
 const positive = (label: string, unit: string, maxValue: number) =>
@@ -161,3 +171,60 @@ export function parsePendantDropBody(body: Record<string, unknown>): PendantDrop
   const { edge: _edge, ...photo } = pendantDropPhotoSchema.parse(body);
   return { source: 'photo', ...photo };
 }
+
+// Responses ------------------------------------------------------------------------------------
+
+/** What a saved result was computed from: the request without `save`. */
+export type TensiometryInputs =
+  | Omit<WilhelmyInput, 'save'>
+  | Omit<WaterCheckInput, 'save'>
+  | Omit<PendantDropRequest, 'save'>
+  | Omit<PendantDropPhotoRequest, 'save' | 'edge'>;
+
+/** What a saved result holds: the calculation's result (a photo fit adds what was found in it). */
+export type TensiometryOutputs =
+  | WilhelmySurfaceTensionResult
+  | WilhelmyContactAngleResult
+  | (ProbeLiquidCheck & { reference: string })
+  | PendantDropResult
+  | (PendantDropResult & { extraction: PendantDropFromPhoto['extraction'] });
+
+/** A saved tensiometry result with the inputs it was computed from. */
+export const tensiometryResultSchema = z.object({
+  id: z.string(),
+  kind: z.enum(TENSIOMETRY_KINDS),
+  inputs: z.custom<TensiometryInputs>(),
+  outputs: z.custom<TensiometryOutputs>(),
+  /** The photo a pendant-drop result was fitted from, when it came from an uploaded photo. */
+  photoId: z.string().nullable(),
+  createdByUserId: z.string().nullable(),
+  createdByName: z.string().nullable(),
+  createdAt: z.coerce.date(),
+});
+export type TensiometryResult = z.output<typeof tensiometryResultSchema>;
+export const tensiometryListResponseSchema = z.object({ items: z.array(tensiometryResultSchema) });
+
+/** POST of a calculation: the result, and the saved row when `save: true`. */
+export type CalculationResponse<Result, Extra = object> = Extra & {
+  result: Result;
+  saved?: TensiometryResult;
+};
+export type WilhelmyResponse = CalculationResponse<
+  WilhelmySurfaceTensionResult | WilhelmyContactAngleResult
+>;
+export type WaterCheckResponse = CalculationResponse<ProbeLiquidCheck>;
+export type PendantDropFromPhoto = {
+  photo: { id: string; width: number; height: number };
+  extraction: {
+    pointCount: number;
+    needleOuterDiameterPx: number;
+    needleTipY: number;
+    warnings: PendantEdgeExtraction['warnings'];
+  };
+  /** The fitted outline in image pixels, for the overlay. */
+  profile: ReturnType<typeof fittedPendantOutline>;
+};
+export type PendantDropResponse = CalculationResponse<
+  PendantDropResult,
+  Partial<PendantDropFromPhoto>
+>;

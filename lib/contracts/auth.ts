@@ -28,25 +28,3 @@ export const signUpSchema = z.object({
     .min(2, 'Name your lab or organization (at least 2 characters).')
     .max(120, 'Use at most 120 characters.'),
 });
-
-export const organizationNameSchema = z.object({
-  name: z
-    .string()
-    .trim()
-    .min(2, 'Use at least 2 characters for the organization name.')
-    .max(120, 'Use at most 120 characters.'),
-});
-
-export const switchOrganizationSchema = z.object({
-  organizationId: z.string().min(1, 'Choose an organization.'),
-});
-
-/** Turns zod issues into `{ field: message }` for forms and error bodies. */
-export function fieldErrors(error: z.ZodError): Record<string, string> {
-  const fields: Record<string, string> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.join('.') || 'form';
-    fields[key] ??= issue.message;
-  }
-  return fields;
-}

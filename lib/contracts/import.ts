@@ -150,3 +150,10 @@ export const importRequestSchema = z.object({
       `Import at most ${MAX_IMPORT_CHARS.toLocaleString('en')} characters at once; split the file.`,
     ),
 });
+
+/** 201: how many rows became drops, and their ids. */
+export const importResponseSchema = z.object({
+  imported: z.number().int(),
+  dropIds: z.array(z.string()),
+});
+export type ImportOutcome = z.output<typeof importResponseSchema>;

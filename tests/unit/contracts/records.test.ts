@@ -5,23 +5,26 @@ import {
   batchCreateSchema,
   batchListQuerySchema,
   batchUpdateSchema,
+} from '@/lib/contracts/batches';
+import {
   checkProbeLiquidComponents,
-  checkSpecLimits,
-  coatingCreateSchema,
-  coatingListQuerySchema,
-  coatingUpdateSchema,
-  listQueryToSearchParams,
-  measurementSessionCreateSchema,
-  measurementSessionListQuerySchema,
-  parseSearchParams,
   probeLiquidCreateSchema,
   probeLiquidListQuerySchema,
   probeLiquidUpdateSchema,
-  sampleCreateSchema,
-  specCreateSchema,
-  specUpdateSchema,
-} from '@/lib/validation/records';
-import { fieldErrors } from '@/lib/validation/auth';
+} from '@/lib/contracts/probe-liquids';
+import { checkSpecLimits, specCreateSchema, specUpdateSchema } from '@/lib/contracts/specs';
+import {
+  coatingCreateSchema,
+  coatingListQuerySchema,
+  coatingUpdateSchema,
+} from '@/lib/contracts/coatings';
+import { listQueryToSearchParams, parseSearchParams } from '@/lib/contracts/common';
+import {
+  measurementSessionCreateSchema,
+  measurementSessionListQuerySchema,
+} from '@/lib/contracts/measurement-sessions';
+import { sampleCreateSchema } from '@/lib/contracts/samples';
+import { fieldErrors } from '@/lib/contracts/common';
 
 /** `{ field: message }` of a failed parse, or null when it succeeds. */
 function errorsOf(schema: z.ZodType, input: unknown): Record<string, string> | null {

@@ -1,4 +1,3 @@
-import { z } from 'zod';
 import {
   owrk,
   wettingEnvelope,
@@ -7,11 +6,12 @@ import {
   type AngleMeasurement,
   type SurfaceEnergyMethod,
   type ValueWithUncertainty,
-} from '@/lib/surface-energy';
+} from './index';
 
 /*
- * Surface energy: the request shapes (shared by the page and the route handlers) and the one
- * place that decides which methods a liquid set allows and runs them with their uncertainty.
+ * The one place that decides which methods a liquid set allows and runs them with their
+ * uncertainty: the surface-energy page, its route handlers and a saved result's recomputation all
+ * call computeSurfaceEnergy.
  */
 
 export const SURFACE_ENERGY_METHOD_KEYS = [
@@ -23,26 +23,14 @@ export const SURFACE_ENERGY_METHOD_KEYS = [
   'acid-base',
 ] as const satisfies readonly SurfaceEnergyMethod[];
 
-export const METHOD_LABELS: Record<SurfaceEnergyMethod, string> = {
+/** The published name of each method; kept with every computed result. */
+export const SURFACE_ENERGY_METHOD_NAMES: Record<SurfaceEnergyMethod, string> = {
   owrk: 'OWRK (Owens–Wendt–Rabel–Kaelble)',
   wu: 'Wu harmonic mean',
   fowkes: 'Fowkes (dispersive only)',
   zisman: 'Zisman critical surface tension',
   neumann: 'Neumann equation of state',
   'acid-base': 'van Oss–Chaudhury–Good acid–base',
-};
-
-/** Readable names of the result components, mN/m. */
-export const COMPONENT_LABELS: Record<string, string> = {
-  gammaTotal: 'Total',
-  gammaDispersive: 'Dispersive',
-  gammaPolar: 'Polar',
-  criticalSurfaceTension: 'Critical surface tension γc',
-  gammaSolid: 'Solid surface tension γS',
-  gammaLW: 'Lifshitz–van der Waals',
-  gammaPlus: 'Acid γ+',
-  gammaMinus: 'Base γ−',
-  gammaAB: 'Acid–base',
 };
 
 /**
@@ -53,118 +41,28 @@ export const COMPONENT_LABELS: Record<string, string> = {
 export const UNCERTAINTY_BASES = ['mean', 'single'] as const;
 export type UncertaintyBasis = (typeof UNCERTAINTY_BASES)[number];
 
-const tension = (label: string) =>
-  z
-    .number({ error: `Enter the ${label} in mN/m.` })
-    .finite(`Enter the ${label} in mN/m.`)
-    .min(0, `The ${label} cannot be negative.`)
-    .max(1000, `The ${label} must be at most 1000 mN/m.`);
-
-export const liquidAngleSchema = z.object({
-  probeLiquidId: z.string().trim().max(100).optional(),
-  name: z.string().trim().min(1, 'Name the liquid.').max(120, 'Use at most 120 characters.'),
-  gammaTotal: tension('total surface tension').positive(
-    'The total surface tension must be above 0.',
-  ),
-  gammaDispersive: tension('dispersive component'),
-  gammaPolar: tension('polar component'),
-  gammaLW: tension('Lifshitz–van der Waals component').optional(),
-  gammaPlus: tension('acid component').optional(),
-  gammaMinus: tension('base component').optional(),
-  angleDeg: z
-    .number({ error: 'Enter the mean contact angle in degrees.' })
-    .finite('Enter the mean contact angle in degrees.')
-    .min(0, 'A contact angle is between 0° and 180°.')
-    .max(180, 'A contact angle is between 0° and 180°.'),
-  angleSdDeg: z
-    .number({ error: 'Enter the standard deviation of the angle in degrees.' })
-    .finite('Enter the standard deviation of the angle in degrees.')
-    .min(0, 'The standard deviation cannot be negative.')
-    .max(90, 'The standard deviation must be at most 90°.')
-    .optional(),
-  n: z
-    .number({ error: 'Enter the number of drops.' })
-    .int('The number of drops is a whole number.')
-    .min(1, 'At least one drop.')
-    .max(10_000, 'At most 10 000 drops.')
-    .optional(),
-});
-export type LiquidAngle = z.output<typeof liquidAngleSchema>;
-
-const methodsSchema = z
-  .array(
-    z.enum(SURFACE_ENERGY_METHOD_KEYS, {
-      error: `Choose methods among ${SURFACE_ENERGY_METHOD_KEYS.join(', ')}.`,
-    }),
-  )
-  .min(1, 'Choose at least one method.')
-  .max(SURFACE_ENERGY_METHOD_KEYS.length)
-  .default(['owrk'])
-  .transform((methods) => [...new Set(methods)]);
-
-const optionsShape = {
-  methods: methodsSchema,
-  uncertaintyBasis: z.enum(UNCERTAINTY_BASES).default('mean'),
-  /** Contact angle of the wetting envelope, degrees (0 = the liquids that spread completely). */
-  envelopeAngleDeg: z
-    .number({ error: 'Enter the envelope angle in degrees.' })
-    .finite()
-    .min(0, 'The envelope angle is between 0° and 179°.')
-    .max(179, 'The envelope angle is between 0° and 179°.')
-    .default(0),
+/** One probe liquid with its components (mN/m) and the mean angle measured with it. */
+export type LiquidAngle = {
+  probeLiquidId?: string;
+  name: string;
+  gammaTotal: number;
+  gammaDispersive: number;
+  gammaPolar: number;
+  gammaLW?: number;
+  gammaPlus?: number;
+  gammaMinus?: number;
+  angleDeg: number;
+  angleSdDeg?: number;
+  n?: number;
 };
 
-/** POST /api/surface-energy/calculate */
-export const surfaceEnergyCalculateSchema = z
-  .object({
-    liquids: z
-      .array(liquidAngleSchema, { error: 'Send the liquids as a list.' })
-      .min(1, 'Enter at least one liquid with its angle.')
-      .max(20, 'At most 20 liquids.'),
-    ...optionsShape,
-  })
-  .superRefine((body, ctx) => {
-    const seen = new Set<string>();
-    body.liquids.forEach((liquid, i) => {
-      const key = liquid.name.toLowerCase();
-      if (seen.has(key))
-        ctx.addIssue({
-          code: 'custom',
-          path: ['liquids', i, 'name'],
-          message: 'This liquid is listed twice; give each liquid once with its mean angle.',
-        });
-      seen.add(key);
-      if (Math.abs(liquid.gammaDispersive + liquid.gammaPolar - liquid.gammaTotal) > 0.5)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['liquids', i, 'gammaTotal'],
-          message:
-            'Dispersive + polar should equal the total (within 0.5 mN/m). Correct the components.',
-        });
-    });
-  });
-export type SurfaceEnergyCalculate = z.output<typeof surfaceEnergyCalculateSchema>;
-
-/** POST /api/samples/[id]/surface-energy; GET takes the same fields as a query (methods=owrk,wu). */
-export const sampleSurfaceEnergySchema = z.object(optionsShape);
-export type SampleSurfaceEnergyOptions = z.output<typeof sampleSurfaceEnergySchema>;
-
-export const sampleSurfaceEnergyQuerySchema = z.object({
-  methods: z
-    .string()
-    .optional()
-    .transform((v) =>
-      v
-        ? v
-            .split(',')
-            .map((m) => m.trim())
-            .filter(Boolean)
-        : undefined,
-    )
-    .pipe(methodsSchema),
-  uncertaintyBasis: z.enum(UNCERTAINTY_BASES).default('mean'),
-  envelopeAngleDeg: z.coerce.number().finite().min(0).max(179).default(0),
-});
+/** The choices of a computation: which methods, what the uncertainty describes, the envelope. */
+export type SurfaceEnergyOptions = {
+  methods: SurfaceEnergyMethod[];
+  uncertaintyBasis: UncertaintyBasis;
+  /** Contact angle of the wetting envelope, degrees (0 = the liquids that spread completely). */
+  envelopeAngleDeg: number;
+};
 
 // ---------------------------------------------------------------------------------------------
 // Which methods a liquid set allows
@@ -299,7 +197,11 @@ function run(
   used: readonly LiquidAngle[],
   basis: UncertaintyBasis,
 ): MethodOutcome {
-  const base = { method, label: METHOD_LABELS[method], liquidsUsed: used.map((l) => l.name) };
+  const base = {
+    method,
+    label: SURFACE_ENERGY_METHOD_NAMES[method],
+    liquidsUsed: used.map((l) => l.name),
+  };
   try {
     const result = surfaceEnergyWithUncertainty(
       method,
@@ -327,7 +229,7 @@ function run(
  */
 export function computeSurfaceEnergy(
   liquids: readonly LiquidAngle[],
-  options: Pick<SampleSurfaceEnergyOptions, 'methods' | 'uncertaintyBasis' | 'envelopeAngleDeg'>,
+  options: SurfaceEnergyOptions,
 ): SurfaceEnergyOutputs {
   const availability = new Map(methodAvailability(liquids).map((a) => [a.method, a]));
   const results: MethodOutcome[] = [];
@@ -336,7 +238,7 @@ export function computeSurfaceEnergy(
     if (!check?.available) {
       results.push({
         method,
-        label: METHOD_LABELS[method],
+        label: SURFACE_ENERGY_METHOD_NAMES[method],
         liquidsUsed: [],
         status: 'unavailable',
         reason: check?.reason ?? 'Not available for these liquids.',
@@ -418,4 +320,40 @@ export function headlineTotal(
     if (found?.components.gammaTotal) return found;
   }
   return null;
+}
+
+/** A row of an angle table: one probe liquid measured on a sample or batch (mean, SD, n). */
+export type AngleTableLiquid = {
+  probeLiquidId: string;
+  name: string;
+  meanDeg: number;
+  sdDeg: number | null;
+  n: number;
+  gammaTotal: number;
+  gammaDispersive: number | null;
+  gammaPolar: number | null;
+  gammaLW: number | null;
+  gammaPlus: number | null;
+  gammaMinus: number | null;
+};
+
+/**
+ * The angle table as calculation input. A lab liquid without a dispersive/polar split carries
+ * 0/0, which keeps it out of the split methods (OWRK, Wu, Fowkes); Zisman and Neumann use its
+ * total alone.
+ */
+export function angleTableToLiquids(table: readonly AngleTableLiquid[]): LiquidAngle[] {
+  return table.map((row) => ({
+    probeLiquidId: row.probeLiquidId,
+    name: row.name,
+    gammaTotal: row.gammaTotal,
+    gammaDispersive: row.gammaDispersive ?? 0,
+    gammaPolar: row.gammaPolar ?? 0,
+    gammaLW: row.gammaLW ?? undefined,
+    gammaPlus: row.gammaPlus ?? undefined,
+    gammaMinus: row.gammaMinus ?? undefined,
+    angleDeg: row.meanDeg,
+    angleSdDeg: row.sdDeg ?? 0,
+    n: row.n,
+  }));
 }

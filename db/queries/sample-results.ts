@@ -1,0 +1,129 @@
+import 'server-only';
+import { and, asc, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import type { Page } from '@/lib/contracts/common';
+import type {
+  BatchDrop,
+  SampleListQuery,
+  SampleResults,
+  SampleWithResults,
+} from '@/lib/contracts/samples';
+import { getDb } from '../client';
+import { builtInProbeLiquidId } from '../probe-liquid-library';
+import { analyses, drops, probeLiquids, samples } from '../schema';
+import { listSamples } from './samples';
+
+/*
+ * Read models of the record tables that add results to a list (drop counts, mean angles), shared
+ * by the pages and their CSV exports.
+ */
+
+const WATER = builtInProbeLiquidId('water');
+
+/** Drop counts and mean water contact angle of the given samples (latest revision per drop). */
+export async function sampleResults(
+  organizationId: string,
+  sampleIds: string[],
+): Promise<Map<string, SampleResults>> {
+  const out = new Map<string, SampleResults>();
+  if (sampleIds.length === 0) return out;
+  const latest = getDb()
+    .selectDistinctOn([analyses.dropId], { dropId: analyses.dropId, meanDeg: analyses.meanDeg })
+    .from(analyses)
+    .where(eq(analyses.organizationId, organizationId))
+    .orderBy(analyses.dropId, sql`${analyses.revision} desc`)
+    .as('latest');
+  const rows = await getDb()
+    .select({
+      sampleId: drops.sampleId,
+      dropCount: sql<number>`count(*)::int`,
+      waterDropCount: sql<number>`(count(*) filter (where ${drops.probeLiquidId} = ${WATER}))::int`,
+      meanWaterDeg: sql<
+        number | null
+      >`(avg(${latest.meanDeg}) filter (where ${drops.probeLiquidId} = ${WATER}))::float8`,
+    })
+    .from(drops)
+    .leftJoin(latest, eq(latest.dropId, drops.id))
+    .where(
+      and(
+        eq(drops.organizationId, organizationId),
+        inArray(drops.sampleId, sampleIds),
+        isNull(drops.archivedAt),
+      ),
+    )
+    .groupBy(drops.sampleId);
+  for (const row of rows) {
+    out.set(row.sampleId, {
+      dropCount: row.dropCount,
+      waterDropCount: row.waterDropCount,
+      meanWaterDeg: row.meanWaterDeg === null ? null : Number(row.meanWaterDeg),
+    });
+  }
+  return out;
+}
+
+/** listSamples with each sample's drop counts and mean water angle. */
+export async function listSamplesWithResults(
+  organizationId: string,
+  query: SampleListQuery,
+): Promise<Page<SampleWithResults>> {
+  const page = await listSamples(organizationId, query);
+  const results = await sampleResults(
+    organizationId,
+    page.items.map((item) => item.id),
+  );
+  return {
+    ...page,
+    items: page.items.map((item) => ({
+      ...item,
+      ...(results.get(item.id) ?? { dropCount: 0, waterDropCount: 0, meanWaterDeg: null }),
+    })),
+  };
+}
+
+/** The drops of a batch with their latest analysis, newest measurement first. */
+export async function listBatchDrops(
+  organizationId: string,
+  batchId: string,
+  limit = 200,
+): Promise<BatchDrop[]> {
+  const latest = getDb()
+    .selectDistinctOn([analyses.dropId], {
+      dropId: analyses.dropId,
+      method: analyses.method,
+      leftDeg: analyses.leftDeg,
+      rightDeg: analyses.rightDeg,
+      meanDeg: analyses.meanDeg,
+      revision: analyses.revision,
+    })
+    .from(analyses)
+    .where(eq(analyses.organizationId, organizationId))
+    .orderBy(analyses.dropId, sql`${analyses.revision} desc`)
+    .as('latest');
+  return getDb()
+    .select({
+      dropId: drops.id,
+      sampleId: drops.sampleId,
+      sampleLabel: samples.label,
+      probeLiquidName: probeLiquids.name,
+      source: drops.source,
+      measuredAt: drops.measuredAt,
+      method: latest.method,
+      leftDeg: latest.leftDeg,
+      rightDeg: latest.rightDeg,
+      meanDeg: latest.meanDeg,
+      revision: latest.revision,
+    })
+    .from(drops)
+    .innerJoin(samples, eq(samples.id, drops.sampleId))
+    .innerJoin(probeLiquids, eq(probeLiquids.id, drops.probeLiquidId))
+    .leftJoin(latest, eq(latest.dropId, drops.id))
+    .where(
+      and(
+        eq(drops.organizationId, organizationId),
+        eq(samples.batchId, batchId),
+        isNull(drops.archivedAt),
+      ),
+    )
+    .orderBy(desc(drops.measuredAt), asc(drops.id))
+    .limit(limit);
+}

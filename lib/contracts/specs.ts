@@ -1,0 +1,138 @@
+import { z } from 'zod';
+import {
+  deleteOutcomeSchema,
+  filterId,
+  given,
+  id,
+  listQuerySchema,
+  optionalNumber,
+  pageSchema,
+  recordColumns,
+  recordId,
+  report,
+  text,
+  throwIssues,
+  updateSchema,
+  type Issue,
+} from './common';
+
+/** /api/specs and /api/specs/[id]: acceptance limits of a coating for one probe liquid. */
+
+export const SPEC_SCOPES = ['each-drop', 'mean'] as const;
+
+const angle = (which: string) =>
+  optionalNumber({
+    min: 0,
+    max: 180,
+    message: `Enter the ${which} contact angle in degrees, from 0 to 180.`,
+  });
+const surfaceEnergy = (which: string) =>
+  optionalNumber({
+    min: 0,
+    max: 200,
+    minExclusive: true,
+    message: `Enter the ${which} surface free energy in mN/m, above 0 and up to 200.`,
+  });
+
+const specShape = {
+  coatingId: recordId('Choose the coating this spec belongs to.'),
+  probeLiquidId: recordId('Choose the probe liquid, like water.'),
+  minDeg: angle('minimum'),
+  maxDeg: angle('maximum'),
+  scope: z.enum(SPEC_SCOPES, {
+    error: 'Choose whether the limits apply to each drop ("each-drop") or to the mean ("mean").',
+  }),
+  minSurfaceEnergyMnM: surfaceEnergy('minimum'),
+  maxSurfaceEnergyMnM: surfaceEnergy('maximum'),
+  maxDaysSinceTreatment: optionalNumber({
+    min: 0,
+    max: 3650,
+    minExclusive: true,
+    message:
+      'Enter the number of days after treatment within which results count (above 0, up to 3650).',
+  }),
+  note: text(2000),
+};
+
+export type SpecLimits = {
+  minDeg?: number | null;
+  maxDeg?: number | null;
+  minSurfaceEnergyMnM?: number | null;
+  maxSurfaceEnergyMnM?: number | null;
+};
+
+/** Cross-field rules of a spec: at least one limit, and each minimum at most its maximum. */
+export function specLimitIssues(spec: SpecLimits): Issue[] {
+  const issues: Issue[] = [];
+  const { minDeg, maxDeg, minSurfaceEnergyMnM: minSfe, maxSurfaceEnergyMnM: maxSfe } = spec;
+  if (![minDeg, maxDeg, minSfe, maxSfe].some(given)) {
+    issues.push({
+      path: 'minDeg',
+      message:
+        'Enter at least one limit: a minimum or maximum contact angle, or a surface-energy limit.',
+    });
+  }
+  if (given(minDeg) && given(maxDeg) && minDeg > maxDeg) {
+    issues.push({ path: 'maxDeg', message: 'Make the maximum angle at least the minimum angle.' });
+  }
+  if (given(minSfe) && given(maxSfe) && minSfe > maxSfe) {
+    issues.push({
+      path: 'maxSurfaceEnergyMnM',
+      message: 'Make the maximum surface energy at least the minimum surface energy.',
+    });
+  }
+  return issues;
+}
+
+/** Re-checks a spec after an update is merged into the stored record. */
+export function checkSpecLimits(spec: SpecLimits): void {
+  throwIssues(specLimitIssues(spec));
+}
+
+export const specCreateSchema = z
+  .object({ ...specShape, note: specShape.note.optional() })
+  .superRefine((spec, ctx) => report(ctx, specLimitIssues(spec)));
+
+export const specUpdateSchema = updateSchema(specShape).superRefine((spec, ctx) => {
+  // Only the pairs present in the body; the merged record is checked by the records service.
+  const issues = specLimitIssues(spec).filter((issue) => issue.path !== 'minDeg');
+  report(ctx, issues);
+});
+export type SpecCreate = z.output<typeof specCreateSchema>;
+export type SpecUpdate = z.output<typeof specUpdateSchema>;
+
+export const specListQuerySchema = listQuerySchema({
+  sort: ['createdAt', 'updatedAt', 'minDeg', 'maxDeg', 'scope'],
+  defaultSort: 'createdAt',
+  defaultDir: 'asc',
+  filters: { coatingId: filterId('coating'), probeLiquidId: filterId('probe liquid') },
+});
+export type SpecListQuery = z.output<typeof specListQuerySchema>;
+
+export const specSchema = z.object({
+  ...recordColumns,
+  coatingId: id,
+  probeLiquidId: id,
+  minDeg: z.number().nullable(),
+  maxDeg: z.number().nullable(),
+  scope: z.enum(SPEC_SCOPES),
+  minSurfaceEnergyMnM: z.number().nullable(),
+  maxSurfaceEnergyMnM: z.number().nullable(),
+  maxDaysSinceTreatment: z.number().nullable(),
+  note: z.string(),
+});
+export type Spec = z.output<typeof specSchema>;
+
+/** A spec in a list, with its coating's code and its probe liquid's name. */
+export const specListItemSchema = specSchema.extend({
+  coatingCode: z.string(),
+  probeLiquidName: z.string(),
+});
+export type SpecListItem = z.output<typeof specListItemSchema>;
+
+export const specPageSchema = pageSchema(specListItemSchema);
+export const specResponseSchema = z.object({ spec: specSchema });
+export const specDeleteResponseSchema = z.object({
+  outcome: deleteOutcomeSchema,
+  spec: specSchema,
+});
