@@ -1,27 +1,26 @@
 import 'server-only';
-import { and, eq, ilike, isNull, or, type SQL } from 'drizzle-orm';
-import type { PgColumn } from 'drizzle-orm/pg-core';
-import { HttpError, notFound } from '@/lib/api/errors';
-import type { Database } from '../client';
-import { batches, coatings, probeLiquids } from '../schema';
-import { recordAudit } from './audit';
+import { and, asc, count, desc, eq, ilike, isNull, or, sql, type SQL } from 'drizzle-orm';
+import type { PgColumn, PgSelect, PgTable } from 'drizzle-orm/pg-core';
+import type { Page } from '@/lib/contracts/common';
+import { getDb } from '../client';
+import { probeLiquids } from '../schema';
+import type { Executor } from './transaction';
 
 /*
- * Shared pieces of the lab-record queries (coatings, specs, batches, samples, probe liquids,
- * measurement sessions): pagination, text search, optimistic-concurrency and conflict errors,
- * and the organization checks on referenced records.
+ * Data access shared by the lab-record tables (coatings, specs, batches, samples, probe liquids,
+ * measurement sessions): one list builder (filters, sort, page, total), and find / insert /
+ * update-at-version / archive / delete of one row. Plain rows in and out; what a missing,
+ * archived or stale row means is decided by the records service (server/records).
  */
 
-export type Transaction = Parameters<Parameters<Database['transaction']>[0]>[0];
-export type Executor = Database | Transaction;
-
-/** One page of a list; `page` is 1-based, `total` counts every matching record. */
-export type Page<T> = { items: T[]; total: number; page: number; pageSize: number };
-
-/** Who makes a change, in which organization (for the organization scope and the audit row). */
-export type Actor = { organizationId: string; userId: string };
-
-export type DeleteOutcome<T> = { outcome: 'archived' | 'deleted'; record: T };
+/** A table with the columns every lab record has. */
+export type RecordTable = PgTable & {
+  id: PgColumn;
+  organizationId: PgColumn;
+  version: PgColumn;
+  archivedAt: PgColumn;
+  updatedAt: PgColumn;
+};
 
 /** `%` `_` and `\` match themselves in the search text. */
 export function containsPattern(text: string): string {
@@ -35,53 +34,150 @@ export function textSearch(q: string | undefined, columns: PgColumn[]): SQL | un
   return or(...columns.map((column) => ilike(column, pattern)));
 }
 
-/** The fields an update body actually sets (undefined = left as it is). */
-export function withoutUndefined<T extends object>(value: T): Partial<T> {
-  return Object.fromEntries(Object.entries(value).filter(([, v]) => v !== undefined)) as Partial<T>;
+/** A probe liquid from the built-in library or the organization's own. */
+export function probeLiquidVisibleTo(organizationId: string): SQL {
+  return or(
+    isNull(probeLiquids.organizationId),
+    eq(probeLiquids.organizationId, organizationId),
+  ) as SQL;
 }
 
-export const offsetOf = (query: { page: number; pageSize: number }) =>
-  (query.page - 1) * query.pageSize;
+/** The rows of an organization's own table. */
+export const ownedBy = (table: RecordTable, organizationId: string): SQL =>
+  eq(table.organizationId, organizationId);
 
-// ---------------------------------------------------------------------------------------------
-// Errors
-// ---------------------------------------------------------------------------------------------
+export type Join = { kind: 'inner' | 'left'; table: PgTable; on: SQL };
 
-/** 409: the record changed since the editor loaded it; the body carries `current`. */
-export function staleVersion(what: string, current: unknown): HttpError {
-  return new HttpError(
-    409,
-    'stale_version',
-    `Someone changed this ${what} after you opened it. Review the current values and make your change again.`,
-    undefined,
-    { current },
+function joinAll(query: PgSelect, joins: Join[]): PgSelect {
+  let out = query;
+  for (const join of joins) {
+    out =
+      join.kind === 'inner'
+        ? out.innerJoin(join.table, join.on)
+        : out.leftJoin(join.table, join.on);
+  }
+  return out;
+}
+
+/**
+ * One page of a list and the total of matching rows: the same joins and filters for both, sorted
+ * by `sort` (then by id, so pages never overlap). `columns` are the selected fields.
+ */
+export async function listPage<Item>(spec: {
+  from: RecordTable;
+  columns?: Record<string, PgColumn | SQL.Aliased>;
+  joins?: Join[];
+  where: (SQL | undefined)[];
+  sort: PgColumn;
+  query: { dir: 'asc' | 'desc'; page: number; pageSize: number };
+}): Promise<Page<Item>> {
+  const db = getDb();
+  const where = and(...spec.where);
+  const order = spec.query.dir === 'asc' ? asc : desc;
+  const items = joinAll(
+    (spec.columns ? db.select(spec.columns) : db.select()).from(spec.from).$dynamic(),
+    spec.joins ?? [],
   );
+  const total = joinAll(db.select({ total: count() }).from(spec.from).$dynamic(), spec.joins ?? []);
+  const [rows, counted] = await Promise.all([
+    items
+      .where(where)
+      .orderBy(order(spec.sort), asc(spec.from.id))
+      .limit(spec.query.pageSize)
+      .offset((spec.query.page - 1) * spec.query.pageSize),
+    total.where(where),
+  ]);
+  return {
+    items: rows as Item[],
+    total: (counted as { total: number }[])[0]?.total ?? 0,
+    page: spec.query.page,
+    pageSize: spec.query.pageSize,
+  };
 }
 
-export function archivedRecord(what: string): HttpError {
-  return new HttpError(
-    409,
-    'archived',
-    `This ${what} is archived and can no longer be changed. Ask an admin if it should come back.`,
-  );
+/** One record by id within `scope` (the organization's rows, or what it may see); locked on request. */
+export async function findRecord<Row>(
+  db: Executor,
+  table: RecordTable,
+  scope: SQL,
+  id: string,
+  options: { lock?: boolean } = {},
+): Promise<Row | undefined> {
+  const query = db
+    .select()
+    .from(table)
+    .where(and(eq(table.id, id), scope));
+  const [row] = options.lock ? await query.for('update') : await query;
+  return row as Row | undefined;
 }
 
-export function duplicate(field: string, message: string): HttpError {
-  return new HttpError(409, 'duplicate', message, { [field]: message });
+export async function insertRecord<Row>(
+  db: Executor,
+  table: RecordTable,
+  values: Record<string, unknown>,
+): Promise<Row> {
+  const [row] = await db.insert(table).values(values).returning();
+  return row as Row;
 }
 
-/** 404 naming the body field that points at a record this organization does not have. */
-export function referenceNotFound(field: string, what: string): HttpError {
-  const message = `${what} was not found in this organization. Choose one of your organization’s records.`;
-  return new HttpError(404, 'not_found', message, { [field]: message });
+/**
+ * Applies `changes` when the record is still at `version` and not archived, raising the version;
+ * undefined when no row matched (gone, archived or changed meanwhile).
+ */
+export async function updateRecordAtVersion<Row>(
+  db: Executor,
+  table: RecordTable,
+  target: { organizationId: string; id: string; version: number },
+  changes: Record<string, unknown>,
+): Promise<Row | undefined> {
+  const [row] = await db
+    .update(table)
+    .set({ ...changes, version: sql`${table.version} + 1`, updatedAt: sql`now()` })
+    .where(
+      and(
+        eq(table.id, target.id),
+        eq(table.organizationId, target.organizationId),
+        eq(table.version, target.version),
+        isNull(table.archivedAt),
+      ),
+    )
+    .returning();
+  return row as Row | undefined;
 }
 
-function referenceArchived(field: string, what: string): HttpError {
-  const message = `${what} is archived. Choose a current one.`;
-  return new HttpError(409, 'archived', message, { [field]: message });
+export async function archiveRecord<Row>(
+  db: Executor,
+  table: RecordTable,
+  id: string,
+): Promise<Row> {
+  const [row] = await db
+    .update(table)
+    .set({ archivedAt: sql`now()`, version: sql`${table.version} + 1`, updatedAt: sql`now()` })
+    .where(eq(table.id, id))
+    .returning();
+  return row as Row;
 }
 
-/** The unique constraint a PostgreSQL error violated (drizzle wraps the driver's error). */
+export async function deleteRecord(db: Executor, table: RecordTable, id: string): Promise<void> {
+  await db.delete(table).where(eq(table.id, id));
+}
+
+/** Whether any row of `table` has `column` = `value` (records that depend on another). */
+export async function anyRowWith(
+  db: Executor,
+  table: PgTable,
+  column: PgColumn,
+  value: string,
+): Promise<boolean> {
+  const rows = await db
+    .select({ one: sql`1` })
+    .from(table)
+    .where(eq(column, value))
+    .limit(1);
+  return rows.length > 0;
+}
+
+/** The unique constraint a PostgreSQL error violated (drizzle wraps the driver's error), or null. */
 export function violatedUniqueConstraint(error: unknown): string | null {
   let current: unknown = error;
   for (let depth = 0; depth < 5 && current; depth++) {
@@ -96,133 +192,4 @@ export function violatedUniqueConstraint(error: unknown): string | null {
     }
   }
   return null;
-}
-
-/** Runs `work`, turning a unique violation of a known constraint into a 409 duplicate. */
-export async function withDuplicateCheck<T>(
-  work: () => Promise<T>,
-  constraints: Record<string, () => HttpError>,
-): Promise<T> {
-  try {
-    return await work();
-  } catch (error) {
-    const constraint = violatedUniqueConstraint(error);
-    const toError = constraint === null ? undefined : constraints[constraint];
-    if (toError) throw toError();
-    throw error;
-  }
-}
-
-/**
- * After an UPDATE … WHERE version = $v touched no row: 404 when the record is gone, 409 archived
- * when it was archived meanwhile, else 409 stale_version with the current record.
- */
-export function failedUpdate<T extends { archivedAt: Date | null; version: number }>(
-  what: string,
-  current: T | undefined,
-): HttpError {
-  if (!current) return notFound(`That ${what}`);
-  if (current.archivedAt) return archivedRecord(what);
-  return staleVersion(what, current);
-}
-
-/** Checks before an update: the record exists here, is not archived, and is at `version`. */
-export function assertEditable<T extends { archivedAt: Date | null; version: number }>(
-  what: string,
-  current: T | undefined,
-  version: number,
-): asserts current is T {
-  if (!current) throw notFound(`That ${what}`);
-  if (current.archivedAt) throw archivedRecord(what);
-  if (current.version !== version) throw staleVersion(what, current);
-}
-
-/** DELETE with `?version=`: refuse when the record moved on. */
-export function assertVersionIfGiven<T extends { version: number }>(
-  what: string,
-  current: T,
-  version: number | undefined,
-): void {
-  if (version !== undefined && current.version !== version) throw staleVersion(what, current);
-}
-
-// ---------------------------------------------------------------------------------------------
-// Referenced records must belong to the organization (or, for probe liquids, the library)
-// ---------------------------------------------------------------------------------------------
-
-export async function requireCoatingReference(
-  db: Executor,
-  organizationId: string,
-  coatingId: string,
-  field = 'coatingId',
-): Promise<void> {
-  const [row] = await db
-    .select({ archivedAt: coatings.archivedAt })
-    .from(coatings)
-    .where(and(eq(coatings.id, coatingId), eq(coatings.organizationId, organizationId)));
-  if (!row) throw referenceNotFound(field, 'That coating');
-  if (row.archivedAt) throw referenceArchived(field, 'That coating');
-}
-
-export async function requireBatchReference(
-  db: Executor,
-  organizationId: string,
-  batchId: string,
-  field = 'batchId',
-): Promise<void> {
-  const [row] = await db
-    .select({ archivedAt: batches.archivedAt })
-    .from(batches)
-    .where(and(eq(batches.id, batchId), eq(batches.organizationId, organizationId)));
-  if (!row) throw referenceNotFound(field, 'That batch');
-  if (row.archivedAt) throw referenceArchived(field, 'That batch');
-}
-
-/** A probe liquid from the built-in library or the organization's own. */
-export function probeLiquidVisibleTo(organizationId: string): SQL {
-  return or(
-    isNull(probeLiquids.organizationId),
-    eq(probeLiquids.organizationId, organizationId),
-  ) as SQL;
-}
-
-export async function requireProbeLiquidReference(
-  db: Executor,
-  organizationId: string,
-  probeLiquidId: string,
-  field = 'probeLiquidId',
-): Promise<void> {
-  const [row] = await db
-    .select({ archivedAt: probeLiquids.archivedAt })
-    .from(probeLiquids)
-    .where(and(eq(probeLiquids.id, probeLiquidId), probeLiquidVisibleTo(organizationId)));
-  if (!row) throw referenceNotFound(field, 'That probe liquid');
-  if (row.archivedAt) throw referenceArchived(field, 'That probe liquid');
-}
-
-// ---------------------------------------------------------------------------------------------
-// Audit
-// ---------------------------------------------------------------------------------------------
-
-export type ChangeVerb = 'create' | 'update' | 'archive' | 'delete';
-
-/** The audit row of one change to a lab record (`coating.update`, …), in the same transaction. */
-export async function auditChange(
-  tx: Transaction,
-  entityType: string,
-  actor: Actor,
-  verb: ChangeVerb,
-  entityId: string,
-  before: unknown,
-  after: unknown,
-): Promise<void> {
-  await recordAudit(tx, {
-    actorUserId: actor.userId,
-    organizationId: actor.organizationId,
-    action: `${entityType}.${verb}`,
-    entityType,
-    entityId,
-    before,
-    after,
-  });
 }

@@ -1,6 +1,4 @@
 import type { Metadata } from 'next';
-import { listBatches } from '@/db/queries/batches';
-import { listCoatings } from '@/db/queries/coatings';
 import { BatchForm, BatchesTable } from '@/components/records/batches';
 import {
   exportHref,
@@ -10,12 +8,11 @@ import {
 import { PageHeader } from '@/components/ui/empty-state';
 import { ListFilters } from '@/components/ui/list-filters';
 import { requirePage } from '@/lib/auth/guard';
+import { allCoatings } from '@/server/records/detail-pages';
+import { batchRecords } from '@/server/records/kinds';
+import { listRecords } from '@/server/records/list';
 import { can } from '@/lib/auth/permissions';
-import {
-  MAX_PAGE_SIZE,
-  batchListQuerySchema,
-  coatingListQuerySchema,
-} from '@/lib/validation/records';
+import { batchListQuerySchema } from '@/lib/contracts/batches';
 
 export const metadata: Metadata = { title: 'Batches' };
 
@@ -23,8 +20,8 @@ export default async function Page({ searchParams }: { searchParams: Promise<Pag
   const ctx = await requirePage('organization:read');
   const query = listQueryFromPage(batchListQuerySchema, await searchParams);
   const [list, coatings] = await Promise.all([
-    listBatches(ctx.organization.id, query),
-    listCoatings(ctx.organization.id, coatingListQuerySchema.parse({ pageSize: MAX_PAGE_SIZE })),
+    listRecords(batchRecords, ctx.organization.id, query),
+    allCoatings(ctx.organization.id),
   ]);
   const role = ctx.organization.role;
   const coatingChoices = coatings.items.map((c) => ({

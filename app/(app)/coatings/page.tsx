@@ -1,5 +1,4 @@
 import type { Metadata } from 'next';
-import { listCoatings } from '@/db/queries/coatings';
 import { CoatingForm, CoatingsTable } from '@/components/records/coatings';
 import {
   exportHref,
@@ -9,15 +8,17 @@ import {
 import { PageHeader } from '@/components/ui/empty-state';
 import { ListFilters } from '@/components/ui/list-filters';
 import { requirePage } from '@/lib/auth/guard';
+import { coatingRecords } from '@/server/records/kinds';
+import { listRecords } from '@/server/records/list';
 import { can } from '@/lib/auth/permissions';
-import { coatingListQuerySchema } from '@/lib/validation/records';
+import { coatingListQuerySchema } from '@/lib/contracts/coatings';
 
 export const metadata: Metadata = { title: 'Coatings' };
 
 export default async function Page({ searchParams }: { searchParams: Promise<PageSearchParams> }) {
   const ctx = await requirePage('organization:read');
   const query = listQueryFromPage(coatingListQuerySchema, await searchParams);
-  const list = await listCoatings(ctx.organization.id, query);
+  const list = await listRecords(coatingRecords, ctx.organization.id, query);
   const role = ctx.organization.role;
   return (
     <>

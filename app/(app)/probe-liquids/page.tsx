@@ -1,5 +1,4 @@
 import type { Metadata } from 'next';
-import { listProbeLiquids } from '@/db/queries/probe-liquids';
 import {
   exportHref,
   listQueryFromPage,
@@ -9,15 +8,17 @@ import { ProbeLiquidsPanel } from '@/components/records/probe-liquids';
 import { PageHeader } from '@/components/ui/empty-state';
 import { ListFilters } from '@/components/ui/list-filters';
 import { requirePage } from '@/lib/auth/guard';
+import { probeLiquidRecords } from '@/server/records/kinds';
+import { listRecords } from '@/server/records/list';
 import { can } from '@/lib/auth/permissions';
-import { probeLiquidListQuerySchema } from '@/lib/validation/records';
+import { probeLiquidListQuerySchema } from '@/lib/contracts/probe-liquids';
 
 export const metadata: Metadata = { title: 'Probe liquids' };
 
 export default async function Page({ searchParams }: { searchParams: Promise<PageSearchParams> }) {
   const ctx = await requirePage('organization:read');
   const query = listQueryFromPage(probeLiquidListQuerySchema, await searchParams);
-  const list = await listProbeLiquids(ctx.organization.id, query);
+  const list = await listRecords(probeLiquidRecords, ctx.organization.id, query);
   const role = ctx.organization.role;
   return (
     <>

@@ -1,6 +1,4 @@
 import type { Metadata } from 'next';
-import { listMeasurementSessions } from '@/db/queries/measurement-sessions';
-import { listProbeLiquids } from '@/db/queries/probe-liquids';
 import {
   exportHref,
   listQueryFromPage,
@@ -10,12 +8,12 @@ import { SessionsTable } from '@/components/records/sessions';
 import { PageHeader } from '@/components/ui/empty-state';
 import { ListFilters } from '@/components/ui/list-filters';
 import { requirePage } from '@/lib/auth/guard';
+import { measurementSessionRecords, probeLiquidRecords } from '@/server/records/kinds';
+import { listRecords } from '@/server/records/list';
 import { can } from '@/lib/auth/permissions';
-import {
-  MAX_PAGE_SIZE,
-  measurementSessionListQuerySchema,
-  probeLiquidListQuerySchema,
-} from '@/lib/validation/records';
+import { MAX_PAGE_SIZE } from '@/lib/contracts/common';
+import { measurementSessionListQuerySchema } from '@/lib/contracts/measurement-sessions';
+import { probeLiquidListQuerySchema } from '@/lib/contracts/probe-liquids';
 
 export const metadata: Metadata = { title: 'Sessions' };
 
@@ -23,8 +21,9 @@ export default async function Page({ searchParams }: { searchParams: Promise<Pag
   const ctx = await requirePage('organization:read');
   const query = listQueryFromPage(measurementSessionListQuerySchema, await searchParams);
   const [list, liquids] = await Promise.all([
-    listMeasurementSessions(ctx.organization.id, query),
-    listProbeLiquids(
+    listRecords(measurementSessionRecords, ctx.organization.id, query),
+    listRecords(
+      probeLiquidRecords,
       ctx.organization.id,
       probeLiquidListQuerySchema.parse({ pageSize: MAX_PAGE_SIZE }),
     ),

@@ -1,28 +1,5 @@
-import { createCoating, listCoatings } from '@/db/queries/coatings';
-import { route } from '@/lib/auth/guard';
-import {
-  coatingCreateSchema,
-  coatingListQuerySchema,
-  parseJsonBody,
-  parseSearchParams,
-} from '@/lib/validation/records';
+import { recordCollectionRoutes } from '@/server/http/record-routes';
+import { coatingRecords } from '@/server/records/kinds';
 
-/** Coatings of the organization. Query: q, includeArchived, sort, dir, page, pageSize. */
-export const GET = route('organization:read', async (request, ctx) => {
-  const query = parseSearchParams(coatingListQuerySchema, new URL(request.url).searchParams);
-  return Response.json(await listCoatings(ctx.organization.id, query));
-});
-
-/** Creates a coating (admins). Body: { code, name, description? } → 201 { coating }. */
-export const POST = route(
-  'catalog:manage',
-  async (request, ctx) => {
-    const input = await parseJsonBody(request, coatingCreateSchema);
-    const coating = await createCoating(
-      { organizationId: ctx.organization.id, userId: ctx.user.id },
-      input,
-    );
-    return Response.json({ coating }, { status: 201 });
-  },
-  { what: 'add coatings' },
-);
+/** The coating list (GET, with the filters of lib/contracts/coatings.ts) and create (POST). */
+export const { GET, POST } = recordCollectionRoutes(coatingRecords);

@@ -172,8 +172,8 @@ describe('POST /api/batches/[id]/import', () => {
   });
 
   it('shows the imported drops on the batch: drop count and mean water angle per sample', async () => {
-    const { listSamplesWithResults } = await import('@/db/queries/exports');
-    const { sampleListQuerySchema } = await import('@/lib/validation/records');
+    const { listSamplesWithResults } = await import('@/db/queries/sample-results');
+    const { sampleListQuerySchema } = await import('@/lib/contracts/samples');
     const page = await listSamplesWithResults(lab.id, sampleListQuerySchema.parse({ batchId }));
     const byLabel = Object.fromEntries(page.items.map((item) => [item.label, item]));
     expect(byLabel['P-01']).toMatchObject({ dropCount: 1, waterDropCount: 1, meanWaterDeg: 104 });

@@ -1,9 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { getBatch } from '@/db/queries/batches';
-import { getCoating, listCoatings } from '@/db/queries/coatings';
-import { listBatchDrops, listSamplesWithResults } from '@/db/queries/exports';
 import { ArchiveButton } from '@/components/records/archive-button';
 import { BatchForm } from '@/components/records/batches';
 import {
@@ -13,16 +10,11 @@ import {
 } from '@/components/records/list-query';
 import { BatchDropsTable, SamplesPanel } from '@/components/records/samples';
 import { PageHeader } from '@/components/ui/empty-state';
-import { HttpError } from '@/lib/api/errors';
 import { requirePage } from '@/lib/auth/guard';
+import { loadBatchPage } from '@/server/records/detail-pages';
 import { can } from '@/lib/auth/permissions';
-import {
-  MAX_PAGE_SIZE,
-  PROCESS_PARAMETERS,
-  coatingListQuerySchema,
-  sampleListQuerySchema,
-  type ProcessParameterKey,
-} from '@/lib/validation/records';
+import { PROCESS_PARAMETERS, type ProcessParameterKey } from '@/lib/contracts/batches';
+import { sampleListQuerySchema } from '@/lib/contracts/samples';
 
 export const metadata: Metadata = { title: 'Batch' };
 
@@ -35,25 +27,14 @@ export default async function Page({
 }) {
   const ctx = await requirePage('organization:read');
   const { id } = await params;
-  const organizationId = ctx.organization.id;
-  const batch = await getBatch(organizationId, id).catch((error) => {
-    if (error instanceof HttpError && error.status === 404) notFound();
-    throw error;
-  });
-  const role = ctx.organization.role;
-  const canWrite = can(role, 'records:write') && !batch.archivedAt;
   const sampleQuery = {
     ...listQueryFromPage(sampleListQuerySchema, await searchParams, 's'),
     batchId: id,
   };
-  const [coating, samples, drops, coatings] = await Promise.all([
-    getCoating(organizationId, batch.coatingId),
-    listSamplesWithResults(organizationId, sampleQuery),
-    listBatchDrops(organizationId, id),
-    canWrite
-      ? listCoatings(organizationId, coatingListQuerySchema.parse({ pageSize: MAX_PAGE_SIZE }))
-      : Promise.resolve({ items: [] }),
-  ]);
+  const loaded = await loadBatchPage(ctx, id, sampleQuery);
+  if (!loaded) notFound();
+  const { batch, canWrite, coating, samples, drops, coatings } = loaded;
+  const role = ctx.organization.role;
   const parameters = (Object.keys(PROCESS_PARAMETERS) as ProcessParameterKey[]).filter(
     (key) => batch.process[key] !== undefined,
   );
@@ -154,7 +135,7 @@ export default async function Page({
           </div>
           <BatchForm
             batch={batch}
-            coatings={coatings.items.map((c) => ({ value: c.id, label: `${c.code} · ${c.name}` }))}
+            coatings={coatings.map((c) => ({ value: c.id, label: `${c.code} · ${c.name}` }))}
           />
         </section>
       ) : null}

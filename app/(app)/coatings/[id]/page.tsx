@@ -2,11 +2,6 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { WatchCoatingButton } from '@/components/alerts/watch-button';
-import { isWatching } from '@/db/queries/alerts';
-import { listBatches } from '@/db/queries/batches';
-import { getCoating } from '@/db/queries/coatings';
-import { listProbeLiquids } from '@/db/queries/probe-liquids';
-import { listSpecs } from '@/db/queries/specs';
 import { ArchiveButton } from '@/components/records/archive-button';
 import { BatchesTable } from '@/components/records/batches';
 import { CoatingForm } from '@/components/records/coatings';
@@ -17,10 +12,11 @@ import {
 } from '@/components/records/list-query';
 import { SpecsPanel } from '@/components/records/specs';
 import { PageHeader } from '@/components/ui/empty-state';
-import { HttpError } from '@/lib/api/errors';
 import { requirePage } from '@/lib/auth/guard';
+import { loadCoatingPage } from '@/server/records/detail-pages';
 import { can } from '@/lib/auth/permissions';
-import { MAX_PAGE_SIZE, batchListQuerySchema, specListQuerySchema } from '@/lib/validation/records';
+import { batchListQuerySchema } from '@/lib/contracts/batches';
+import { specListQuerySchema } from '@/lib/contracts/specs';
 
 export const metadata: Metadata = { title: 'Coating' };
 
@@ -33,33 +29,15 @@ export default async function Page({
 }) {
   const ctx = await requirePage('organization:read');
   const { id } = await params;
-  const organizationId = ctx.organization.id;
-  const coating = await getCoating(organizationId, id).catch((error) => {
-    if (error instanceof HttpError && error.status === 404) notFound();
-    throw error;
-  });
-  const role = ctx.organization.role;
-  const canManage = can(role, 'catalog:manage') && !coating.archivedAt;
-  const canExport = can(role, 'results:export');
   const batchQuery = {
     ...listQueryFromPage(batchListQuerySchema, await searchParams),
     coatingId: id,
   };
-  const specQuery = specListQuerySchema.parse({ coatingId: id, pageSize: MAX_PAGE_SIZE });
-  const [specs, batches, liquids] = await Promise.all([
-    listSpecs(organizationId, specQuery),
-    listBatches(organizationId, batchQuery),
-    canManage
-      ? listProbeLiquids(organizationId, {
-          origin: 'all',
-          includeArchived: false,
-          sort: 'name',
-          dir: 'asc',
-          page: 1,
-          pageSize: MAX_PAGE_SIZE,
-        })
-      : Promise.resolve({ items: [] }),
-  ]);
+  const loaded = await loadCoatingPage(ctx, id, batchQuery);
+  if (!loaded) notFound();
+  const { coating, canManage, specs, specQuery, batches, liquids, watching } = loaded;
+  const role = ctx.organization.role;
+  const canExport = can(role, 'results:export');
   return (
     <>
       <p className="mb-2 text-sm">
@@ -71,9 +49,9 @@ export default async function Page({
         title={`${coating.code} · ${coating.name}`}
         lead={coating.description || undefined}
       />
-      {can(role, 'results:read-all') ? (
+      {watching !== null ? (
         <div className="-mt-3 mb-4">
-          <WatchCoatingButton coatingId={id} initiallyWatching={await isWatching(ctx.user.id, id)} />
+          <WatchCoatingButton coatingId={id} initiallyWatching={watching} />
         </div>
       ) : null}
       {coating.archivedAt ? (
@@ -89,7 +67,7 @@ export default async function Page({
         <SpecsPanel
           coatingId={id}
           specs={specs.items}
-          liquids={liquids.items.map((l) => ({ value: l.id, label: l.name }))}
+          liquids={liquids.map((l) => ({ value: l.id, label: l.name }))}
           canManage={canManage}
           exportHref={
             canExport ? exportHref('/api/specs/export.csv', specListQuerySchema, specQuery) : null

@@ -1,18 +1,5 @@
-import { archiveOrDeleteBatch, getBatch, updateBatch } from '@/db/queries/batches';
-import { recordRoutes } from '@/lib/api/record-routes';
-import { batchUpdateSchema } from '@/lib/validation/records';
+import { recordItemRoutes } from '@/server/http/record-routes';
+import { batchRecords } from '@/server/records/kinds';
 
-/**
- * GET → { batch }; PATCH with { version, …fields } → { batch } (409 with the current record when
- * stale); DELETE archives the record when results depend on it (or with ?mode=archive), else
- * deletes it → { outcome, batch }.
- */
-export const { GET, PATCH, DELETE } = recordRoutes({
-  key: 'batch',
-  plural: 'batches',
-  writeAction: 'records:write',
-  updateSchema: batchUpdateSchema,
-  get: getBatch,
-  update: updateBatch,
-  archiveOrDelete: archiveOrDeleteBatch,
-});
+/** One batch: GET, PATCH with its version, DELETE (archives when results depend on it). */
+export const { GET, PATCH, DELETE } = recordItemRoutes(batchRecords);

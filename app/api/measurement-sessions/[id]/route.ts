@@ -1,22 +1,5 @@
-import {
-  archiveOrDeleteMeasurementSession,
-  getMeasurementSession,
-  updateMeasurementSession,
-} from '@/db/queries/measurement-sessions';
-import { recordRoutes } from '@/lib/api/record-routes';
-import { measurementSessionUpdateSchema } from '@/lib/validation/records';
+import { recordItemRoutes } from '@/server/http/record-routes';
+import { measurementSessionRecords } from '@/server/records/kinds';
 
-/**
- * GET → { measurementSession }; PATCH with { version, …fields } → { measurementSession } (409 with the current record when
- * stale); DELETE archives the record when results depend on it (or with ?mode=archive), else
- * deletes it → { outcome, measurementSession }.
- */
-export const { GET, PATCH, DELETE } = recordRoutes({
-  key: 'measurementSession',
-  plural: 'measurement sessions',
-  writeAction: 'records:write',
-  updateSchema: measurementSessionUpdateSchema,
-  get: getMeasurementSession,
-  update: updateMeasurementSession,
-  archiveOrDelete: archiveOrDeleteMeasurementSession,
-});
+/** One measurement session: GET, PATCH with its version, DELETE (archives when results depend on it). */
+export const { GET, PATCH, DELETE } = recordItemRoutes(measurementSessionRecords);

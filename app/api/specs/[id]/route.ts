@@ -1,18 +1,5 @@
-import { archiveOrDeleteSpec, getSpec, updateSpec } from '@/db/queries/specs';
-import { recordRoutes } from '@/lib/api/record-routes';
-import { specUpdateSchema } from '@/lib/validation/records';
+import { recordItemRoutes } from '@/server/http/record-routes';
+import { specRecords } from '@/server/records/kinds';
 
-/**
- * GET → { spec }; PATCH with { version, …fields } → { spec } (409 with the current record when
- * stale); DELETE archives the record when results depend on it (or with ?mode=archive), else
- * deletes it → { outcome, spec }.
- */
-export const { GET, PATCH, DELETE } = recordRoutes({
-  key: 'spec',
-  plural: 'specs',
-  writeAction: 'catalog:manage',
-  updateSchema: specUpdateSchema,
-  get: getSpec,
-  update: updateSpec,
-  archiveOrDelete: archiveOrDeleteSpec,
-});
+/** One spec: GET, PATCH with its version, DELETE (archives when results depend on it). */
+export const { GET, PATCH, DELETE } = recordItemRoutes(specRecords);

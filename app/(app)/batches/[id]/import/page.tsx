@@ -1,22 +1,20 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { getBatch } from '@/db/queries/batches';
 import { ImportForm } from '@/components/records/import-form';
 import { PageHeader } from '@/components/ui/empty-state';
-import { HttpError } from '@/lib/api/errors';
 import { requirePage } from '@/lib/auth/guard';
-import { IMPORT_COLUMNS } from '@/lib/validation/import';
+import { findRecordOf } from '@/server/records/get';
+import { batchRecords } from '@/server/records/kinds';
+import { IMPORT_COLUMNS } from '@/lib/contracts/import';
 
 export const metadata: Metadata = { title: 'Import angles' };
 
 export default async function Page({ params }: { params: Promise<{ id: string }> }) {
   const ctx = await requirePage('records:write');
   const { id } = await params;
-  const batch = await getBatch(ctx.organization.id, id).catch((error) => {
-    if (error instanceof HttpError && error.status === 404) notFound();
-    throw error;
-  });
+  const batch = await findRecordOf(batchRecords, ctx.organization.id, id);
+  if (!batch) notFound();
   return (
     <>
       <p className="mb-2 text-sm">
