@@ -1,13 +1,13 @@
 /**
  * Runs once when a Next.js server process starts. The Node.js server also runs the mail worker
- * (lib/email/queue.ts): it takes queued mails from PostgreSQL and hands them to SMTP_URL.
+ * (server/mail/queue.ts): it takes queued mails from PostgreSQL and hands them to SMTP_URL.
  * Not during `next build`, not in the edge runtime, and not when MAIL_WORKER=off.
  */
 export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME !== 'nodejs') return;
   if (process.env.NEXT_PHASE === 'phase-production-build') return;
   if (process.env.MAIL_WORKER === 'off') return;
-  const { startMailWorker } = await import('./lib/email/queue');
+  const { startMailWorker } = await import('./server/mail/queue');
   startMailWorker().then(
     (id) => {
       if (id) console.log('[mail] worker started');

@@ -1,6 +1,5 @@
 import 'server-only';
 import { and, eq, sql } from 'drizzle-orm';
-import { getDb } from '../client';
 import {
   batches,
   batchVerdicts,
@@ -10,47 +9,29 @@ import {
   samples,
   users,
 } from '../schema';
-import { recordAudit } from './audit';
-import { notFound } from '@/lib/api/errors';
+import { database, type Executor } from './transaction';
 
-export async function setWatching(input: {
+/** A batch's overall verdict, as kept to tell when it turns to fail. */
+export type BatchOutcome = (typeof batchVerdicts.$inferSelect)['outcome'];
+
+export async function addWatcher(input: {
   organizationId: string;
   userId: string;
   coatingId: string;
-  watching: boolean;
-}): Promise<{ watching: boolean }> {
-  const db = getDb();
-  const [coating] = await db
-    .select({ id: coatings.id })
-    .from(coatings)
+}): Promise<void> {
+  await database().insert(coatingWatchers).values(input).onConflictDoNothing();
+}
+
+export async function removeWatcher(input: { userId: string; coatingId: string }): Promise<void> {
+  await database()
+    .delete(coatingWatchers)
     .where(
-      and(eq(coatings.id, input.coatingId), eq(coatings.organizationId, input.organizationId)),
+      and(eq(coatingWatchers.coatingId, input.coatingId), eq(coatingWatchers.userId, input.userId)),
     );
-  if (!coating) throw notFound('That coating');
-  if (input.watching) {
-    await db
-      .insert(coatingWatchers)
-      .values({
-        coatingId: input.coatingId,
-        userId: input.userId,
-        organizationId: input.organizationId,
-      })
-      .onConflictDoNothing();
-  } else {
-    await db
-      .delete(coatingWatchers)
-      .where(
-        and(
-          eq(coatingWatchers.coatingId, input.coatingId),
-          eq(coatingWatchers.userId, input.userId),
-        ),
-      );
-  }
-  return { watching: input.watching };
 }
 
 export async function isWatching(userId: string, coatingId: string): Promise<boolean> {
-  const rows = await getDb()
+  const rows = await database()
     .select({ userId: coatingWatchers.userId })
     .from(coatingWatchers)
     .where(and(eq(coatingWatchers.coatingId, coatingId), eq(coatingWatchers.userId, userId)));
@@ -58,8 +39,8 @@ export async function isWatching(userId: string, coatingId: string): Promise<boo
 }
 
 /** Watchers of a coating who are still members of its organization. */
-export async function watchersOf(organizationId: string, coatingId: string) {
-  return getDb()
+export async function watchersOf(db: Executor, organizationId: string, coatingId: string) {
+  return db
     .select({ email: users.email, name: users.name })
     .from(coatingWatchers)
     .innerJoin(users, eq(users.id, coatingWatchers.userId))
@@ -70,8 +51,9 @@ export async function watchersOf(organizationId: string, coatingId: string) {
     .where(eq(coatingWatchers.coatingId, coatingId));
 }
 
+/** A batch of the organization with its coating's id and code; null when there is none. */
 export async function batchWithCoating(organizationId: string, batchId: string) {
-  const [row] = await getDb()
+  const [row] = await database()
     .select({
       id: batches.id,
       lotCode: batches.lotCode,
@@ -84,54 +66,40 @@ export async function batchWithCoating(organizationId: string, batchId: string) 
   return row ?? null;
 }
 
-type Outcome = 'pass' | 'fail' | 'not-enough-data' | 'no-spec';
+/** Serialises verdict changes of one batch until the transaction ends. */
+export async function lockBatchVerdict(tx: Executor, batchId: string): Promise<void> {
+  await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${`verdict:${batchId}`}))`);
+}
 
-/**
- * Stores the batch's verdict and, in the same transaction, runs `onTurnedToFail` when it changed
- * to fail (so a mail is queued exactly once per change). Returns the previous outcome.
- */
-export async function recordBatchVerdict(
-  organizationId: string,
+export async function findBatchVerdict(
+  tx: Executor,
   batchId: string,
-  outcome: Outcome,
-  onTurnedToFail: (
-    tx: Parameters<Parameters<ReturnType<typeof getDb>['transaction']>[0]>[0],
-  ) => Promise<void>,
-): Promise<Outcome | null> {
-  return getDb().transaction(async (tx) => {
-    await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${`verdict:${batchId}`}))`);
-    const [previous] = await tx
-      .select({ outcome: batchVerdicts.outcome })
-      .from(batchVerdicts)
-      .where(eq(batchVerdicts.batchId, batchId));
-    await tx
-      .insert(batchVerdicts)
-      .values({ batchId, organizationId, outcome })
-      .onConflictDoUpdate({
-        target: batchVerdicts.batchId,
-        set: { outcome, updatedAt: new Date() },
-      });
-    if (outcome === 'fail' && previous?.outcome !== 'fail') {
-      await recordAudit(tx, {
-        actorUserId: null,
-        organizationId,
-        action: 'batch.out_of_spec',
-        entityType: 'batch',
-        entityId: batchId,
-        before: { outcome: previous?.outcome ?? null },
-        after: { outcome },
-      });
-      await onTurnedToFail(tx);
-    }
-    return previous?.outcome ?? null;
-  });
+): Promise<BatchOutcome | null> {
+  const [row] = await tx
+    .select({ outcome: batchVerdicts.outcome })
+    .from(batchVerdicts)
+    .where(eq(batchVerdicts.batchId, batchId));
+  return row?.outcome ?? null;
+}
+
+export async function saveBatchVerdict(
+  tx: Executor,
+  input: { organizationId: string; batchId: string; outcome: BatchOutcome },
+): Promise<void> {
+  await tx
+    .insert(batchVerdicts)
+    .values(input)
+    .onConflictDoUpdate({
+      target: batchVerdicts.batchId,
+      set: { outcome: input.outcome, updatedAt: new Date() },
+    });
 }
 
 export async function batchIdOfSample(
   organizationId: string,
   sampleId: string,
 ): Promise<string | null> {
-  const [row] = await getDb()
+  const [row] = await database()
     .select({ batchId: samples.batchId })
     .from(samples)
     .where(and(eq(samples.id, sampleId), eq(samples.organizationId, organizationId)));

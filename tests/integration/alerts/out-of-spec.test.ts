@@ -6,7 +6,7 @@ import { newId } from '@/db/queries/ids';
 import { auditEvents, batches, coatings, samples, specs } from '@/db/schema';
 import { POST as importCsv } from '@/app/api/batches/[id]/import/route';
 import { PUT as watch } from '@/app/api/coatings/[id]/watch/route';
-import { closeMailQueue } from '@/lib/email/queue';
+import { closeMailQueue } from '@/server/mail/queue';
 import { apiRequest } from '../support/request';
 import { createMember, createOrganization } from '../support/fixtures';
 import { mailJobsTo } from '../team/support';

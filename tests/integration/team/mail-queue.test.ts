@@ -9,7 +9,7 @@ import {
   getBoss,
   startMailWorker,
   stopMailWorker,
-} from '@/lib/email/queue';
+} from '@/server/mail/queue';
 import { invitationMail } from '@/lib/email/messages';
 import { startMailFake, type MailFake } from '@/scripts/services/mail-fake';
 import { createOrganization, uniqueEmail } from '../support/fixtures';

@@ -1,36 +1,20 @@
-import { isWatching, setWatching } from '@/db/queries/alerts';
-import { route } from '@/lib/auth/guard';
+import { idParamsSchema } from '@/lib/contracts/common';
+import { isWatching, setWatching } from '@/server/alerts/watch';
+import { json, route } from '@/server/http/route';
 
-type Params = { params: Promise<{ id: string }> };
+const watchRoute = (watching: boolean) =>
+  route({ access: 'results:read-all', params: idParamsSchema }, async ({ actor, params }) =>
+    json(await setWatching(actor, params.id, watching)),
+  );
 
 /** Whether the signed-in user gets an e-mail when a batch of this coating turns out of spec. */
-export const GET = route<Params>('results:read-all', async (_request, ctx, { params }) => {
-  const { id } = await params;
-  return Response.json({ watching: await isWatching(ctx.user.id, id) });
-});
+export const GET = route(
+  { access: 'results:read-all', params: idParamsSchema },
+  async ({ ctx, params }) => json(await isWatching(ctx.user.id, params.id)),
+);
 
-/** Start watching the coating. */
-export const PUT = route<Params>('results:read-all', async (_request, ctx, { params }) => {
-  const { id } = await params;
-  return Response.json(
-    await setWatching({
-      organizationId: ctx.organization.id,
-      userId: ctx.user.id,
-      coatingId: id,
-      watching: true,
-    }),
-  );
-});
+/** Start watching the coating → { watching: true }. */
+export const PUT = watchRoute(true);
 
-/** Stop watching the coating. */
-export const DELETE = route<Params>('results:read-all', async (_request, ctx, { params }) => {
-  const { id } = await params;
-  return Response.json(
-    await setWatching({
-      organizationId: ctx.organization.id,
-      userId: ctx.user.id,
-      coatingId: id,
-      watching: false,
-    }),
-  );
-});
+/** Stop watching the coating → { watching: false }. */
+export const DELETE = watchRoute(false);
