@@ -2,8 +2,7 @@ import 'server-only';
 import { and, desc, eq, inArray, isNull } from 'drizzle-orm';
 import { getDb } from '../client';
 import { drops, photos } from '../schema';
-import { recordAudit } from './audit';
-import { newId } from './ids';
+import type { Executor } from './transaction';
 
 export type NewPhoto = {
   organizationId: string;
@@ -23,27 +22,8 @@ export type NewPhoto = {
   purpose?: 'sessile-drop' | 'pendant-drop';
 };
 
-export async function insertPhoto(input: NewPhoto): Promise<{ photoId: string }> {
-  const photoId = newId();
-  await getDb().transaction(async (tx) => {
-    await tx.insert(photos).values({ id: photoId, ...input });
-    await recordAudit(tx, {
-      actorUserId: input.uploadedByUserId,
-      organizationId: input.organizationId,
-      action: 'photo.upload',
-      entityType: 'photo',
-      entityId: photoId,
-      after: {
-        name: input.originalName,
-        purpose: input.purpose ?? 'sessile-drop',
-        format: input.format,
-        width: input.width,
-        height: input.height,
-        sha256: input.sha256,
-      },
-    });
-  });
-  return { photoId };
+export async function insertPhoto(db: Executor, row: NewPhoto & { id: string }): Promise<void> {
+  await db.insert(photos).values(row);
 }
 
 const photoSummaryColumns = {
@@ -72,7 +52,10 @@ export type PhotoSummary = {
   uploadedByUserId: string | null;
 };
 
-export async function getPhoto(organizationId: string, photoId: string): Promise<PhotoSummary | null> {
+export async function getPhoto(
+  organizationId: string,
+  photoId: string,
+): Promise<PhotoSummary | null> {
   const rows = await getDb()
     .select(photoSummaryColumns)
     .from(photos)
@@ -122,7 +105,10 @@ export async function listUnsavedPhotos(organizationId: string, userId: string, 
 }
 
 /** Photos of the organization by id, in the order asked for (unknown ids are skipped). */
-export async function listPhotosByIds(organizationId: string, ids: string[]): Promise<PhotoSummary[]> {
+export async function listPhotosByIds(
+  organizationId: string,
+  ids: string[],
+): Promise<PhotoSummary[]> {
   if (ids.length === 0) return [];
   const rows = await getDb()
     .select(photoSummaryColumns)

@@ -1,9 +1,8 @@
 import type { Metadata } from 'next';
 import { MeasureWorkspace } from '@/components/measure/workspace';
 import { PageHeader } from '@/components/ui/empty-state';
-import { listProbeLiquidChoices, listSampleChoices } from '@/db/queries/drops';
-import { listPhotosByIds, listUnsavedPhotos } from '@/db/queries/photos';
 import { requirePage } from '@/lib/auth/guard';
+import { loadMeasureWorkspace } from '@/server/drops/workspace';
 
 export const metadata: Metadata = { title: 'Measure' };
 
@@ -15,14 +14,10 @@ export default async function MeasurePage({
   const ctx = await requirePage('records:write');
   const { sample, photos } = await searchParams;
   // ?photos=a,b reopens photos (saved or not) in the strip, e.g. after a reload.
-  const requested = (photos ?? '').split(',').filter(Boolean).slice(0, 50);
-  const [samples, liquids, unsaved, reopened] = await Promise.all([
-    listSampleChoices(ctx.organization.id),
-    listProbeLiquidChoices(ctx.organization.id),
-    listUnsavedPhotos(ctx.organization.id, ctx.user.id),
-    listPhotosByIds(ctx.organization.id, requested),
-  ]);
-  const strip = [...reopened, ...unsaved.filter((p) => !requested.includes(p.id))];
+  const { samples, liquids, photos: strip } = await loadMeasureWorkspace(
+    ctx,
+    (photos ?? '').split(',').filter(Boolean),
+  );
   return (
     <>
       <PageHeader

@@ -1,5 +1,5 @@
 import { UploadThingError } from 'uploadthing/server';
-import { insertPhoto } from '@/db/queries/photos';
+import { recordUploadedPhoto } from '@/server/photos/record-upload';
 import { getAuthContext } from '@/lib/auth/context';
 import { can } from '@/lib/auth/permissions';
 import { createDropPhotoRouter } from '@/lib/uploads/file-router';
@@ -13,18 +13,22 @@ const dropPhotoRouter = createDropPhotoRouter({
   async authorize() {
     const ctx = await getAuthContext();
     if (!ctx?.organization) {
-      throw new UploadThingError({ code: 'FORBIDDEN', message: 'You are not signed in. Sign in and try again.' });
+      throw new UploadThingError({
+        code: 'FORBIDDEN',
+        message: 'You are not signed in. Sign in and try again.',
+      });
     }
     if (!can(ctx.organization.role, 'records:write')) {
       throw new UploadThingError({
         code: 'FORBIDDEN',
-        message: 'Your role in this organization does not allow uploading photos. Ask an admin if you need it.',
+        message:
+          'Your role in this organization does not allow uploading photos. Ask an admin if you need it.',
       });
     }
     return { userId: ctx.user.id, organizationId: ctx.organization.id };
   },
   async onStored(file, inspected, { metadata }) {
-    return insertPhoto({
+    return recordUploadedPhoto({
       organizationId: metadata.organizationId,
       uploadedByUserId: metadata.userId,
       fileKey: file.key,

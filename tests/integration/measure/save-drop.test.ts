@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
 import { ensureProbeLiquidLibrary } from '@/db/probe-liquid-library';
 import { newId } from '@/db/queries/ids';
-import { insertPhoto } from '@/db/queries/photos';
+import { recordUploadedPhoto } from '@/server/photos/record-upload';
 import { auditEvents, batches, coatings, samples } from '@/db/schema';
 import { GET, POST } from '@/app/api/photos/[id]/drop/route';
 import { analyseDrop } from '@/lib/analysis';
@@ -37,7 +37,7 @@ beforeAll(async () => {
   await db.insert(samples).values({ id: sampleId, organizationId: lab.id, batchId, label: 'S1' });
   bytes = await readFile(FIXTURE);
   // The photo's bytes are kept in the row (as for a TIFF's PNG copy), so no upload service is needed.
-  ({ photoId } = await insertPhoto({
+  ({ photoId } = await recordUploadedPhoto({
     organizationId: lab.id,
     uploadedByUserId: analyst.userId,
     fileKey: `test-${newId()}`,

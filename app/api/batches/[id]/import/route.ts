@@ -1,11 +1,7 @@
-import { importManualAngles, invalidImport } from '@/db/queries/import';
-import { refreshBatchVerdictQuietly } from '@/lib/alerts/out-of-spec';
-import { route } from '@/lib/auth/guard';
-import { parseImportCsv } from '@/lib/csv/import';
-import { importRequestSchema } from '@/lib/validation/import';
-import { parseJsonBody } from '@/lib/validation/records';
-
-type Params = { params: Promise<{ id: string }> };
+import { idParamsSchema } from '@/lib/contracts/common';
+import { importRequestSchema } from '@/lib/contracts/import';
+import { importManualAngles } from '@/server/drops/import-angles';
+import { json, route } from '@/server/http/route';
 
 /**
  * Imports hand-read contact angles into a batch (legacy data). Body: { csv } with the columns
@@ -13,20 +9,15 @@ type Params = { params: Promise<{ id: string }> };
  * All or nothing: → 201 { imported, dropIds }, or 400 invalid_rows with `issues`
  * [{ row, column, message }] naming every problem.
  */
-export const POST = route<Params>(
-  'records:write',
-  async (request, ctx, { params }) => {
-    const { id } = await params;
-    const { csv } = await parseJsonBody(request, importRequestSchema);
-    const parsed = parseImportCsv(csv);
-    if (!parsed.ok) throw invalidImport(parsed.issues);
-    const outcome = await importManualAngles(
-      { organizationId: ctx.organization.id, userId: ctx.user.id },
-      id,
-      parsed.rows,
-    );
-    await refreshBatchVerdictQuietly(ctx.organization.id, id);
-    return Response.json(outcome, { status: 201 });
+export const POST = route(
+  {
+    access: 'records:write',
+    what: 'import results',
+    params: idParamsSchema,
+    body: importRequestSchema,
+    // Up to MAX_IMPORT_CHARS characters of CSV, several bytes each in UTF-8 and JSON.
+    maxBodyBytes: 6 * 1024 * 1024,
   },
-  { what: 'import results' },
+  async ({ actor, params, body }) =>
+    json(await importManualAngles(actor, params.id, body.csv), 201),
 );

@@ -1,14 +1,15 @@
-import { getPhotoThumbnail } from '@/db/queries/photos';
-import { notFound } from '@/lib/api/errors';
-import { route } from '@/lib/auth/guard';
+import { idParamsSchema } from '@/lib/contracts/common';
+import { route } from '@/server/http/route';
+import { loadPhotoThumbnail } from '@/server/photos/pixels';
 
-type Params = { params: Promise<{ id: string }> };
-
-export const GET = route<Params>('results:read-all', async (_request, ctx, { params }) => {
-  const { id } = await params;
-  const thumbnail = await getPhotoThumbnail(ctx.organization.id, id);
-  if (!thumbnail) throw notFound('That photo');
-  return new Response(new Uint8Array(thumbnail.thumbnailPng), {
-    headers: { 'content-type': 'image/png', 'cache-control': 'private, max-age=86400, immutable' },
-  });
-});
+/** The photo's thumbnail (PNG). */
+export const GET = route(
+  { access: 'results:read-all', params: idParamsSchema },
+  async ({ ctx, params }) =>
+    new Response(new Uint8Array(await loadPhotoThumbnail(ctx.organization.id, params.id)), {
+      headers: {
+        'content-type': 'image/png',
+        'cache-control': 'private, max-age=86400, immutable',
+      },
+    }),
+);

@@ -1,0 +1,167 @@
+import 'server-only';
+import { recordAudit } from '@/db/queries/audit';
+import {
+  findLiveDropOfPhoto,
+  insertDropsAndAnalyses,
+  lockPhotoDrops,
+  moveDrop,
+  nextRevision,
+} from '@/db/queries/drops';
+import { newId } from '@/db/queries/ids';
+import { getPhoto } from '@/db/queries/photos';
+import { findRecord, ownedBy, probeLiquidVisibleTo } from '@/db/queries/records';
+import { inTransaction, type Transaction } from '@/db/queries/transaction';
+import { measurementSessions, probeLiquids, samples } from '@/db/schema';
+import { analyseDrop } from '@/lib/analysis';
+import { AnalysisError } from '@/lib/analysis/types';
+import { AppError, notFound } from '@/lib/app-error';
+import type {
+  KeptAnalysisResult,
+  SaveDropAnalysisInput,
+  SavedDropAnalysis,
+} from '@/lib/contracts/drops';
+import { SOFTWARE_VERSION } from '@/lib/measure/version';
+import type { Actor } from '../actor';
+import { refreshVerdictOfSampleQuietly } from '../alerts/refresh-verdict';
+import { loadPhotoGray } from '../photos/pixels';
+import { fromAnalysisError } from './analysis-error';
+
+const missing = (field: string, what: string) =>
+  new AppError('not_found', `${what} was not found in this organization.`, {
+    fields: { [field]: `Choose a ${what.toLowerCase()} of this organization.` },
+  });
+
+/** The sample, probe liquid and session a save names must be this organization's. */
+async function checkReferences(tx: Transaction, actor: Actor, input: SaveDropAnalysisInput) {
+  const org = actor.organizationId;
+  const sample = await findRecord<{ archivedAt: Date | null }>(
+    tx,
+    samples,
+    ownedBy(samples, org),
+    input.sampleId,
+  );
+  if (!sample || sample.archivedAt) throw missing('sampleId', 'Sample');
+  if (!(await findRecord(tx, probeLiquids, probeLiquidVisibleTo(org), input.probeLiquidId))) {
+    throw missing('probeLiquidId', 'Probe liquid');
+  }
+  const sessionId = input.sessionId ?? null;
+  if (
+    sessionId &&
+    !(await findRecord(tx, measurementSessions, ownedBy(measurementSessions, org), sessionId))
+  ) {
+    throw missing('sessionId', 'Session');
+  }
+}
+
+/**
+ * Saves a photo's analysis to a sample. The server runs lib/analysis itself on the stored photo
+ * with the method and baseline the user chose, so what is kept is what the engine computes, never
+ * numbers sent by a browser. The first save creates the drop; every save is a new analysis
+ * revision, earlier ones stay untouched. Drop, analysis and audit rows are one transaction; the
+ * batch's out-of-spec verdict is refreshed after it.
+ */
+export async function saveDropAnalysis(
+  actor: Actor,
+  photoId: string,
+  input: SaveDropAnalysisInput,
+): Promise<SavedDropAnalysis> {
+  if (!(await getPhoto(actor.organizationId, photoId))) throw notFound('That photo');
+  const image = await loadPhotoGray(actor.organizationId, photoId);
+  let analysed;
+  try {
+    analysed = await analyseDrop(image, {
+      method: input.method,
+      ...(input.baseline ? { baseline: input.baseline } : {}),
+      ...(input.scalePxPerMm ? { scalePxPerMm: input.scalePxPerMm } : {}),
+    });
+  } catch (error) {
+    if (error instanceof AnalysisError) {
+      throw fromAnalysisError(
+        error,
+        'Adjust the baseline or choose another photo, then save again.',
+      );
+    }
+    throw error;
+  }
+  const { edgePoints: _edgePoints, profile: _profile, ...kept } = analysed;
+  const result: KeptAnalysisResult = kept;
+  const sessionId = input.sessionId ?? null;
+
+  const saved = await inTransaction(async (tx) => {
+    await checkReferences(tx, actor, input);
+    await lockPhotoDrops(tx, photoId);
+    const audit = (action: string, entityType: string, entityId: string, change: object) =>
+      recordAudit(tx, {
+        actorUserId: actor.userId,
+        organizationId: actor.organizationId,
+        action,
+        entityType,
+        entityId,
+        ...change,
+      });
+    const placement = { sampleId: input.sampleId, probeLiquidId: input.probeLiquidId };
+    const existing = await findLiveDropOfPhoto(tx, photoId);
+    const dropId = existing?.id ?? newId();
+    const newDrop = existing
+      ? []
+      : [
+          {
+            id: dropId,
+            organizationId: actor.organizationId,
+            ...placement,
+            sessionId,
+            photoId,
+            source: 'photo' as const,
+            createdByUserId: actor.userId,
+          },
+        ];
+    if (
+      existing &&
+      (existing.sampleId !== input.sampleId || existing.probeLiquidId !== input.probeLiquidId)
+    ) {
+      await moveDrop(tx, dropId, { ...placement, sessionId });
+      await audit('drop.update', 'drop', dropId, {
+        before: { sampleId: existing.sampleId, probeLiquidId: existing.probeLiquidId },
+        after: placement,
+      });
+    }
+    const revision = existing ? await nextRevision(tx, dropId) : 1;
+    const analysisId = newId();
+    await insertDropsAndAnalyses(tx, newDrop, [
+      {
+        id: analysisId,
+        organizationId: actor.organizationId,
+        dropId,
+        revision,
+        method: input.method,
+        baseline: input.baseline,
+        options: {
+          scalePxPerMm: input.scalePxPerMm ?? null,
+          baselineSource: result.baselineSource,
+        },
+        result,
+        leftDeg: result.leftDeg,
+        rightDeg: result.rightDeg,
+        meanDeg: result.meanDeg,
+        leftUncertaintyDeg: result.leftUncertaintyDeg,
+        rightUncertaintyDeg: result.rightUncertaintyDeg,
+        softwareVersion: SOFTWARE_VERSION,
+        createdByUserId: actor.userId,
+      },
+    ]);
+    if (!existing) await audit('drop.create', 'drop', dropId, { after: { photoId, ...placement } });
+    await audit('analysis.create', 'analysis', analysisId, {
+      after: {
+        dropId,
+        revision,
+        method: input.method,
+        baseline: input.baseline,
+        leftDeg: result.leftDeg,
+        rightDeg: result.rightDeg,
+      },
+    });
+    return { dropId, analysisId, revision };
+  });
+  await refreshVerdictOfSampleQuietly(actor.organizationId, input.sampleId);
+  return { ...saved, result };
+}
