@@ -2,9 +2,9 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { SubmitForReviewForm } from '@/components/reviews/submit-form';
 import { EmptyState, PageHeader } from '@/components/ui/empty-state';
-import { listBatchesWithResults, listReviews } from '@/db/queries/reviews';
 import { requirePage } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/permissions';
+import { loadReviewsPage } from '@/server/reviews/load';
 
 export const metadata: Metadata = { title: 'Reviews' };
 
@@ -26,11 +26,7 @@ export default async function ReviewsPage() {
       </>
     );
   }
-  const [pending, decided, batches] = await Promise.all([
-    listReviews(ctx.organization.id, 'submitted'),
-    listReviews(ctx.organization.id, 'decided'),
-    can(role, 'records:write') ? listBatchesWithResults(ctx.organization.id) : Promise.resolve([]),
-  ]);
+  const { pending, decided, batches } = await loadReviewsPage(ctx.organization.id, role);
   const table = (rows: typeof pending, emptyText: string, label: string) =>
     rows.length === 0 ? (
       <p className="text-sm text-ink-600">{emptyText}</p>

@@ -1,30 +1,16 @@
-import { listReviews, submitForReview } from '@/db/queries/reviews';
-import { route } from '@/lib/auth/guard';
-import { submitReviewSchema } from '@/lib/validation/reviews';
+import { reviewListQuerySchema, submitReviewSchema } from '@/lib/contracts/reviews';
+import { json, route } from '@/server/http/route';
+import { listReviews } from '@/server/reviews/load';
+import { submitForReview } from '@/server/reviews/submit';
 
 /** Reviews of the organization; ?status=submitted for the queue, ?status=decided for the history. */
-export const GET = route('results:read-all', async (request, ctx) => {
-  const status = new URL(request.url).searchParams.get('status');
-  const reviews = await listReviews(
-    ctx.organization.id,
-    status === 'submitted' || status === 'decided' ? status : undefined,
-  );
-  return Response.json({ reviews });
-});
+export const GET = route(
+  { access: 'results:read-all', query: reviewListQuerySchema },
+  async ({ ctx, query }) => json({ reviews: await listReviews(ctx.organization.id, query.status) }),
+);
 
-/** Submits the latest new or rejected results of a batch (or one sample) for review. */
+/** Submits the latest new or rejected results of a batch (or one sample) for review → 201. */
 export const POST = route(
-  'records:write',
-  async (request, ctx) => {
-    const body = submitReviewSchema.parse(await request.json().catch(() => ({})));
-    const submitted = await submitForReview({
-      organizationId: ctx.organization.id,
-      userId: ctx.user.id,
-      batchId: body.batchId,
-      sampleId: body.sampleId ?? null,
-      note: body.note,
-    });
-    return Response.json(submitted, { status: 201 });
-  },
-  { what: 'submit results for review' },
+  { access: 'records:write', what: 'submit results for review', body: submitReviewSchema },
+  async ({ actor, body }) => json(await submitForReview(actor, body), 201),
 );

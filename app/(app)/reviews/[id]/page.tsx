@@ -3,16 +3,16 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { ReviewDecisionForm } from '@/components/reviews/decision-form';
 import { PageHeader } from '@/components/ui/empty-state';
-import { getReview } from '@/db/queries/reviews';
 import { requirePage } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/permissions';
+import { loadReview } from '@/server/reviews/load';
 
 export const metadata: Metadata = { title: 'Review' };
 
 export default async function ReviewPage({ params }: { params: Promise<{ id: string }> }) {
   const ctx = await requirePage('results:read-all');
   const { id } = await params;
-  const review = await getReview(ctx.organization.id, id);
+  const review = await loadReview(ctx.organization.id, id);
   if (!review) notFound();
   const title = `${review.coatingCode} · ${review.lotCode}${review.sampleLabel ? ` / ${review.sampleLabel}` : ''}`;
   return (

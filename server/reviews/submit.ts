@@ -1,0 +1,71 @@
+import 'server-only';
+import { recordAudit } from '@/db/queries/audit';
+import { newId } from '@/db/queries/ids';
+import { findRecord, ownedBy } from '@/db/queries/records';
+import {
+  findSampleOfBatch,
+  insertReview,
+  latestAnalysesUnder,
+  setAnalysesReviewStatus,
+} from '@/db/queries/reviews';
+import { database, inTransaction } from '@/db/queries/transaction';
+import { batches } from '@/db/schema';
+import { AppError } from '@/lib/app-error';
+import type { SubmitReview } from '@/lib/contracts/reviews';
+import type { Actor } from '../actor';
+
+/**
+ * Submits the latest new or rejected results of a batch (or one sample of it) for review: the
+ * review lists exactly those analysis revisions, which become 'submitted', with an audit row.
+ */
+export async function submitForReview(
+  actor: Actor,
+  input: SubmitReview,
+): Promise<{ reviewId: string; analysisCount: number }> {
+  const sampleId = input.sampleId ?? null;
+  if (
+    !(await findRecord(database(), batches, ownedBy(batches, actor.organizationId), input.batchId))
+  ) {
+    throw new AppError('not_found', 'That batch was not found in this organization.', {
+      fields: { batchId: 'Choose a batch of this organization.' },
+    });
+  }
+  if (sampleId && !(await findSampleOfBatch(actor.organizationId, input.batchId, sampleId))) {
+    throw new AppError('not_found', 'That sample is not part of the batch.', {
+      fields: { sampleId: 'Choose a sample of this batch.' },
+    });
+  }
+  const rows = (await latestAnalysesUnder(actor.organizationId, input.batchId, sampleId)).filter(
+    (r) => r.reviewStatus === 'draft' || r.reviewStatus === 'rejected',
+  );
+  if (rows.length === 0) {
+    throw new AppError(
+      'nothing_to_submit',
+      'There are no new or rejected results to submit here: every latest result is already submitted or approved.',
+    );
+  }
+  const reviewId = newId();
+  const analysisIds = rows.map((r) => r.analysisId);
+  await inTransaction(async (tx) => {
+    await insertReview(tx, {
+      id: reviewId,
+      organizationId: actor.organizationId,
+      scope: sampleId ? 'sample' : 'batch',
+      batchId: input.batchId,
+      sampleId,
+      analysisIds,
+      submittedByUserId: actor.userId,
+      submitNote: input.note,
+    });
+    await setAnalysesReviewStatus(tx, analysisIds, 'submitted');
+    await recordAudit(tx, {
+      actorUserId: actor.userId,
+      organizationId: actor.organizationId,
+      action: 'review.submit',
+      entityType: 'review',
+      entityId: reviewId,
+      after: { batchId: input.batchId, sampleId, analyses: rows.length, note: input.note },
+    });
+  });
+  return { reviewId, analysisCount: rows.length };
+}
