@@ -1,22 +1,20 @@
 'use server';
 
-import { sendEmailVerification } from '@/db/queries/account-tokens';
-import { runAction } from '@/lib/auth/guard';
-import type { FormState } from '@/components/auth/form-state';
+import { z } from 'zod';
+import { sendEmailVerification } from '@/server/account/email-verification';
+import { formAction } from '@/server/http/action';
 
 /** The dashboard banner's "Send the mail again". */
-export async function resendVerificationAction(
-  _previous: FormState,
-  _formData: FormData,
-): Promise<FormState> {
-  const result = await runAction('organization:read', async (ctx) =>
-    sendEmailVerification(ctx.user.id),
-  );
-  if (!result.ok) return { message: result.error.message, code: result.error.code };
-  return {
-    notice:
-      result.data === 'already-verified'
-        ? 'Your address is already confirmed.'
-        : 'Sent. Check your inbox for the new link.',
-  };
-}
+export const resendVerificationAction = formAction({
+  access: 'organization:read',
+  input: z.object({}),
+  async run(_input, { ctx }) {
+    const outcome = await sendEmailVerification(ctx.user.id);
+    return {
+      notice:
+        outcome === 'already-verified'
+          ? 'Your address is already confirmed.'
+          : 'Sent. Check your inbox for the new link.',
+    };
+  },
+});

@@ -1,135 +1,75 @@
 'use server';
 
-import { headers } from 'next/headers';
 import { redirect } from 'next/navigation';
-import { requestPasswordReset, resetPassword, verifyEmail } from '@/db/queries/account-tokens';
-import { acceptInvitation } from '@/db/queries/team';
-import { setActiveOrganization } from '@/db/queries/organizations';
-import { HttpError } from '@/lib/api/errors';
-import { getAuthContext } from '@/lib/auth/context';
-import { isSameOrigin } from '@/lib/auth/origin';
-import { hashPassword } from '@/lib/auth/password';
-import { startSession } from '@/lib/auth/session';
-import { fieldErrors } from '@/lib/validation/auth';
 import {
   acceptInvitationSchema,
   forgotPasswordSchema,
   resetPasswordSchema,
   tokenOnlySchema,
-} from '@/lib/validation/team';
-import type { FormState } from '@/components/auth/form-state';
-
-const BAD_ORIGIN: FormState = {
-  message: 'This form did not come from a Beadline page. Reload the page and try again.',
-};
-
-function failure(error: unknown, values?: Record<string, string>): FormState {
-  if (error instanceof HttpError)
-    return { message: error.message, code: error.code, fields: error.fields, values };
-  throw error;
-}
+} from '@/lib/contracts/team';
+import { AppError } from '@/lib/app-error';
+import { verifyEmail } from '@/server/account/email-verification';
+import { requestPasswordReset, resetPassword } from '@/server/account/password-reset';
+import { formAction } from '@/server/http/action';
+import { joinAsMember, joinWithNewAccount } from '@/server/session/join-organization';
 
 /** "Forgot password?": the same answer whether or not the address has an account. */
-export async function requestPasswordResetAction(
-  _previous: FormState,
-  formData: FormData,
-): Promise<FormState> {
-  if (!isSameOrigin(await headers())) return BAD_ORIGIN;
-  const values = { email: String(formData.get('email') ?? '') };
-  const parsed = forgotPasswordSchema.safeParse({ email: formData.get('email') });
-  if (!parsed.success) return { fields: fieldErrors(parsed.error), values };
-  await requestPasswordReset(parsed.data.email);
-  return {
-    values,
-    notice: `If ${parsed.data.email} has a Beadline account, a mail with a link to set a new password is on its way. The link works once, for one hour.`,
-  };
-}
+export const requestPasswordResetAction = formAction({
+  access: 'public',
+  input: forgotPasswordSchema,
+  keep: ['email'],
+  async run({ email }) {
+    await requestPasswordReset(email);
+    return {
+      values: { email },
+      notice: `If ${email} has a Beadline account, a mail with a link to set a new password is on its way. The link works once, for one hour.`,
+    };
+  },
+});
 
 /** Sets a new password from a reset link; every session of the account ends. */
-export async function resetPasswordAction(
-  _previous: FormState,
-  formData: FormData,
-): Promise<FormState> {
-  if (!isSameOrigin(await headers())) return BAD_ORIGIN;
-  const parsed = resetPasswordSchema.safeParse({
-    token: formData.get('token'),
-    password: formData.get('password'),
-  });
-  if (!parsed.success) return { fields: fieldErrors(parsed.error) };
-  try {
-    await resetPassword({
-      token: parsed.data.token,
-      passwordHash: await hashPassword(parsed.data.password),
-    });
-  } catch (error) {
-    return failure(error);
-  }
-  redirect('/sign-in?reason=password-reset');
-}
+export const resetPasswordAction = formAction({
+  access: 'public',
+  input: resetPasswordSchema,
+  async run(input) {
+    await resetPassword(input);
+    redirect('/sign-in?reason=password-reset');
+  },
+});
 
 /** A signed-out person without an account accepts an invitation: the account and the membership. */
-export async function acceptInvitationWithNewAccount(
-  _previous: FormState,
-  formData: FormData,
-): Promise<FormState> {
-  if (!isSameOrigin(await headers())) return BAD_ORIGIN;
-  const values = { name: String(formData.get('name') ?? '') };
-  const parsed = acceptInvitationSchema.safeParse({
-    token: formData.get('token'),
-    name: formData.get('name'),
-    password: formData.get('password'),
-  });
-  if (!parsed.success) return { fields: fieldErrors(parsed.error), values };
-  try {
-    const { userId, organizationId } = await acceptInvitation({
-      token: parsed.data.token,
-      account: {
-        kind: 'new',
-        name: parsed.data.name,
-        passwordHash: await hashPassword(parsed.data.password),
-      },
-    });
-    await startSession(userId, organizationId);
-  } catch (error) {
-    return failure(error, values);
-  }
-  redirect('/dashboard');
-}
+export const acceptInvitationWithNewAccount = formAction({
+  access: 'public',
+  input: acceptInvitationSchema,
+  keep: ['name'],
+  async run(input) {
+    await joinWithNewAccount(input);
+    redirect('/dashboard');
+  },
+});
 
 /** A signed-in user whose e-mail matches the invitation joins the organization. */
-export async function acceptInvitationAsMember(
-  _previous: FormState,
-  formData: FormData,
-): Promise<FormState> {
-  if (!isSameOrigin(await headers())) return BAD_ORIGIN;
-  const parsed = tokenOnlySchema.safeParse({ token: formData.get('token') });
-  if (!parsed.success) return { fields: fieldErrors(parsed.error) };
-  const ctx = await getAuthContext();
-  if (!ctx) return { message: 'You are not signed in any more. Sign in and open the link again.' };
-  try {
-    const { organizationId } = await acceptInvitation({
-      token: parsed.data.token,
-      account: { kind: 'existing', userId: ctx.user.id },
-    });
-    await setActiveOrganization(ctx.sessionId, organizationId);
-  } catch (error) {
-    return failure(error);
-  }
-  redirect('/dashboard');
-}
+export const acceptInvitationAsMember = formAction({
+  access: 'public',
+  input: tokenOnlySchema,
+  async run({ token }, { ctx }) {
+    if (!ctx) {
+      throw new AppError(
+        'unauthorized',
+        'You are not signed in any more. Sign in and open the link again.',
+      );
+    }
+    await joinAsMember(ctx, token);
+    redirect('/dashboard');
+  },
+});
 
 /** Confirms the address from the link in the verification mail. */
-export async function verifyEmailAction(
-  _previous: FormState,
-  formData: FormData,
-): Promise<FormState> {
-  if (!isSameOrigin(await headers())) return BAD_ORIGIN;
-  const parsed = tokenOnlySchema.safeParse({ token: formData.get('token') });
-  if (!parsed.success) return { fields: fieldErrors(parsed.error) };
-  try {
-    const { email } = await verifyEmail(parsed.data.token);
+export const verifyEmailAction = formAction({
+  access: 'public',
+  input: tokenOnlySchema,
+  async run({ token }) {
+    const { email } = await verifyEmail(token);
     return { notice: `Thank you: ${email} is confirmed.` };
-  } catch (error) {
-    return failure(error);
-  }
-}
+  },
+});

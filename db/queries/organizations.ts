@@ -1,17 +1,14 @@
 import 'server-only';
 import { and, asc, eq } from 'drizzle-orm';
-import { getDb } from '../client';
+import type { Member, MembershipSummary } from '@/lib/contracts/team';
 import { memberships, organizations, sessions, users, type Role } from '../schema';
-import { recordAudit } from './audit';
+import { slugify } from './ids';
+import { database, type Executor } from './transaction';
 
-export type MembershipSummary = {
-  organizationId: string;
-  organizationName: string;
-  role: Role;
-};
+export type { MembershipSummary };
 
 export async function listMembershipsOfUser(userId: string): Promise<MembershipSummary[]> {
-  return getDb()
+  return database()
     .select({
       organizationId: memberships.organizationId,
       organizationName: organizations.name,
@@ -23,8 +20,8 @@ export async function listMembershipsOfUser(userId: string): Promise<MembershipS
     .orderBy(asc(organizations.name));
 }
 
-export async function listMembers(organizationId: string) {
-  return getDb()
+export async function listMembers(organizationId: string): Promise<Member[]> {
+  return database()
     .select({
       userId: users.id,
       name: users.name,
@@ -38,34 +35,39 @@ export async function listMembers(organizationId: string) {
     .orderBy(asc(users.name));
 }
 
-export async function renameOrganization(input: {
-  organizationId: string;
-  name: string;
-  actorUserId: string;
-}): Promise<void> {
-  await getDb().transaction(async (tx) => {
-    const [before] = await tx
-      .select({ name: organizations.name })
-      .from(organizations)
-      .where(eq(organizations.id, input.organizationId));
-    await tx
-      .update(organizations)
-      .set({ name: input.name })
-      .where(eq(organizations.id, input.organizationId));
-    await recordAudit(tx, {
-      actorUserId: input.actorUserId,
-      organizationId: input.organizationId,
-      action: 'organization.update',
-      entityType: 'organization',
-      entityId: input.organizationId,
-      before,
-      after: { name: input.name },
-    });
+export async function findOrganization(db: Executor, organizationId: string) {
+  const [row] = await db
+    .select({ id: organizations.id, name: organizations.name })
+    .from(organizations)
+    .where(eq(organizations.id, organizationId));
+  return row ?? null;
+}
+
+export async function insertOrganization(
+  db: Executor,
+  row: { id: string; name: string },
+): Promise<void> {
+  await db.insert(organizations).values({
+    ...row,
+    slug: `${slugify(row.name)}-${row.id.slice(0, 6).toLowerCase()}`,
   });
 }
 
-export async function findMembership(userId: string, organizationId: string) {
-  const rows = await getDb()
+export async function updateOrganizationName(
+  db: Executor,
+  organizationId: string,
+  name: string,
+): Promise<void> {
+  await db.update(organizations).set({ name }).where(eq(organizations.id, organizationId));
+}
+
+/** A user's role in an organization and its name; null when not a member. */
+export async function findMembership(
+  userId: string,
+  organizationId: string,
+  db: Executor = database(),
+) {
+  const rows = await db
     .select({ role: memberships.role, organizationName: organizations.name })
     .from(memberships)
     .innerJoin(organizations, eq(organizations.id, memberships.organizationId))
@@ -74,7 +76,66 @@ export async function findMembership(userId: string, organizationId: string) {
   return rows[0] ?? null;
 }
 
+/** The member of an organization with this e-mail, if any. */
+export async function findMemberByEmail(db: Executor, organizationId: string, email: string) {
+  const [row] = await db
+    .select({ userId: users.id })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.organizationId, organizationId), eq(users.email, email)));
+  return row ?? null;
+}
+
+/** The organization's members, locked so two admins cannot demote each other at once. */
+export async function lockMembers(db: Executor, organizationId: string) {
+  return db
+    .select({
+      userId: memberships.userId,
+      role: memberships.role,
+      name: users.name,
+      email: users.email,
+    })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(eq(memberships.organizationId, organizationId))
+    .for('update', { of: memberships });
+}
+
+export async function insertMembership(
+  db: Executor,
+  row: { userId: string; organizationId: string; role: Role },
+): Promise<void> {
+  await db.insert(memberships).values(row);
+}
+
+const membershipOf = (userId: string, organizationId: string) =>
+  and(eq(memberships.userId, userId), eq(memberships.organizationId, organizationId));
+
+export async function updateMemberRole(
+  db: Executor,
+  member: { userId: string; organizationId: string },
+  role: Role,
+): Promise<void> {
+  await db
+    .update(memberships)
+    .set({ role })
+    .where(membershipOf(member.userId, member.organizationId));
+}
+
+export async function deleteMembership(
+  db: Executor,
+  member: { userId: string; organizationId: string },
+): Promise<void> {
+  await db.delete(memberships).where(membershipOf(member.userId, member.organizationId));
+}
+
 /** Makes `organizationId` the session's active organization (after joining it, say). */
-export async function setActiveOrganization(sessionId: string, organizationId: string): Promise<void> {
-  await getDb().update(sessions).set({ activeOrganizationId: organizationId }).where(eq(sessions.id, sessionId));
+export async function setActiveOrganization(
+  sessionId: string,
+  organizationId: string,
+): Promise<void> {
+  await database()
+    .update(sessions)
+    .set({ activeOrganizationId: organizationId })
+    .where(eq(sessions.id, sessionId));
 }

@@ -1,56 +1,34 @@
 import 'server-only';
 import { eq } from 'drizzle-orm';
-import { getDb } from '../client';
-import { memberships, organizations, users, type Role } from '../schema';
-import { recordAudit } from './audit';
-import { newId, slugify } from './ids';
+import { users } from '../schema';
+import { database, type Executor } from './transaction';
 
-export async function findUserByEmail(email: string) {
-  const rows = await getDb().select().from(users).where(eq(users.email, email)).limit(1);
+export async function findUserByEmail(email: string, db: Executor = database()) {
+  const rows = await db.select().from(users).where(eq(users.email, email)).limit(1);
   return rows[0] ?? null;
 }
 
-export class EmailTakenError extends Error {
-  constructor() {
-    super('An account with this e-mail address already exists. Sign in instead.');
-  }
+export async function findUserById(db: Executor, userId: string) {
+  const [row] = await db
+    .select({
+      id: users.id,
+      name: users.name,
+      email: users.email,
+      emailVerifiedAt: users.emailVerifiedAt,
+    })
+    .from(users)
+    .where(eq(users.id, userId));
+  return row ?? null;
 }
 
-/**
- * Sign-up: the user, a new organization and the user's admin membership, in one transaction.
- */
-export async function createUserWithOrganization(input: {
-  email: string;
-  name: string;
-  passwordHash: string;
-  organizationName: string;
-}): Promise<{ userId: string; organizationId: string }> {
-  const db = getDb();
-  return db.transaction(async (tx) => {
-    const existing = await tx.select({ id: users.id }).from(users).where(eq(users.email, input.email));
-    if (existing.length > 0) throw new EmailTakenError();
-    const userId = newId();
-    const organizationId = newId();
-    await tx.insert(users).values({
-      id: userId,
-      email: input.email,
-      name: input.name,
-      passwordHash: input.passwordHash,
-    });
-    await tx.insert(organizations).values({
-      id: organizationId,
-      name: input.organizationName,
-      slug: `${slugify(input.organizationName)}-${organizationId.slice(0, 6).toLowerCase()}`,
-    });
-    await tx.insert(memberships).values({ userId, organizationId, role: 'admin' satisfies Role });
-    await recordAudit(tx, {
-      actorUserId: userId,
-      organizationId,
-      action: 'organization.create',
-      entityType: 'organization',
-      entityId: organizationId,
-      after: { name: input.organizationName, createdBy: input.email },
-    });
-    return { userId, organizationId };
-  });
+export async function insertUser(db: Executor, row: typeof users.$inferInsert): Promise<void> {
+  await db.insert(users).values(row);
+}
+
+export async function updateUser(
+  db: Executor,
+  userId: string,
+  change: { passwordHash: string } | { emailVerifiedAt: Date },
+): Promise<void> {
+  await db.update(users).set(change).where(eq(users.id, userId));
 }

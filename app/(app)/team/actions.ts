@@ -1,114 +1,86 @@
 'use server';
 
 import { revalidatePath } from 'next/cache';
+import type { z } from 'zod';
 import {
-  createInvitation,
-  changeMemberRole,
-  removeMember,
-  revokeInvitation,
-} from '@/db/queries/team';
-import { runAction } from '@/lib/auth/guard';
-import { invitationSchema, roleChangeSchema } from '@/lib/validation/team';
-import type { FormState } from '@/components/auth/form-state';
+  invitationIdSchema,
+  invitationRequestSchema,
+  memberIdSchema,
+  memberRoleChangeSchema,
+} from '@/lib/contracts/team';
+import { actorOf, type Actor } from '@/server/actor';
+import { formAction } from '@/server/http/action';
+import { inviteMember as invite } from '@/server/team/invite';
+import { changeMemberRole, removeMember } from '@/server/team/members';
+import { revokeInvitation } from '@/server/team/revoke-invitation';
 
-function toFormState(
-  result: Awaited<ReturnType<typeof runAction<string>>>,
-  values?: Record<string, string>,
-): FormState {
-  if (result.ok) return { notice: result.data };
-  return {
-    message: result.error.fields ? undefined : result.error.message,
-    fields: result.error.fields,
-    code: result.error.code,
-    values,
-  };
+/** A team-page form: admins only; on success a notice, and the pages that show it refreshed. */
+function teamAction<S extends z.ZodType>(config: {
+  what: string;
+  input: S;
+  keep?: readonly string[];
+  /** '/team', or 'layout' when the change shows in the shell (roles). */
+  refresh: '/team' | 'layout';
+  run: (
+    actor: Actor & { name: string },
+    input: z.output<S>,
+  ) => Promise<{ notice: string; values?: Record<string, string> }>;
+}) {
+  return formAction({
+    access: 'team:manage',
+    what: config.what,
+    input: config.input,
+    keep: config.keep,
+    async run(input, { ctx }) {
+      const state = await config.run({ ...actorOf(ctx), name: ctx.user.name }, input);
+      if (config.refresh === 'layout') revalidatePath('/', 'layout');
+      else revalidatePath(config.refresh);
+      return state;
+    },
+  });
 }
 
 /** Invites someone by e-mail with a role; the mail goes out through the queue. */
-export async function inviteMember(_previous: FormState, formData: FormData): Promise<FormState> {
-  const values = {
-    email: String(formData.get('email') ?? ''),
-    role: String(formData.get('role') ?? ''),
-  };
-  const result = await runAction(
-    'team:manage',
-    async (ctx) => {
-      const input = invitationSchema.parse({
-        email: formData.get('email'),
-        role: formData.get('role'),
-      });
-      const invitation = await createInvitation({
-        organizationId: ctx.organization.id,
-        email: input.email,
-        role: input.role,
-        actor: { id: ctx.user.id, name: ctx.user.name },
-      });
-      return `Invitation sent to ${invitation.email}. The link works for 7 days.`;
-    },
-    { what: 'invite people' },
-  );
-  if (result.ok) revalidatePath('/team');
-  return toFormState(result, result.ok ? { role: values.role } : values);
-}
+export const inviteMember = teamAction({
+  what: 'invite people',
+  input: invitationRequestSchema,
+  keep: ['email', 'role'],
+  refresh: '/team',
+  async run(actor, input) {
+    const invitation = await invite(actor, input);
+    return {
+      notice: `Invitation sent to ${invitation.email}. The link works for 7 days.`,
+      values: { role: input.role },
+    };
+  },
+});
 
-export async function revokeInvitationAction(
-  _previous: FormState,
-  formData: FormData,
-): Promise<FormState> {
-  const result = await runAction(
-    'team:manage',
-    async (ctx) => {
-      await revokeInvitation({
-        organizationId: ctx.organization.id,
-        invitationId: String(formData.get('invitationId') ?? ''),
-        actorUserId: ctx.user.id,
-      });
-      return 'Invitation revoked.';
-    },
-    { what: 'revoke invitations' },
-  );
-  if (result.ok) revalidatePath('/team');
-  return toFormState(result);
-}
+export const revokeInvitationAction = teamAction({
+  what: 'revoke invitations',
+  input: invitationIdSchema,
+  refresh: '/team',
+  async run(actor, { invitationId }) {
+    await revokeInvitation(actor, invitationId);
+    return { notice: 'Invitation revoked.' };
+  },
+});
 
-export async function changeRoleAction(
-  _previous: FormState,
-  formData: FormData,
-): Promise<FormState> {
-  const result = await runAction(
-    'team:manage',
-    async (ctx) => {
-      const { role } = roleChangeSchema.parse({ role: formData.get('role') });
-      await changeMemberRole({
-        organizationId: ctx.organization.id,
-        userId: String(formData.get('userId') ?? ''),
-        role,
-        actorUserId: ctx.user.id,
-      });
-      return 'Role saved.';
-    },
-    { what: 'change roles' },
-  );
-  if (result.ok) revalidatePath('/', 'layout');
-  return toFormState(result);
-}
+export const changeRoleAction = teamAction({
+  what: 'change roles',
+  input: memberRoleChangeSchema,
+  refresh: 'layout',
+  async run(actor, { userId, role }) {
+    await changeMemberRole(actor, userId, role);
+    return { notice: 'Role saved.' };
+  },
+});
 
-export async function removeMemberAction(
-  _previous: FormState,
-  formData: FormData,
-): Promise<FormState> {
-  const result = await runAction(
-    'team:manage',
-    async (ctx) => {
-      await removeMember({
-        organizationId: ctx.organization.id,
-        userId: String(formData.get('userId') ?? ''),
-        actorUserId: ctx.user.id,
-      });
-      return 'Member removed.';
-    },
-    { what: 'remove members' },
-  );
-  if (result.ok) revalidatePath('/', 'layout');
-  return toFormState(result);
-}
+export const removeMemberAction = teamAction({
+  what: 'remove members',
+  input: memberIdSchema,
+  refresh: 'layout',
+  async run(actor, { userId }) {
+    await removeMember(actor, userId);
+    return { notice: 'Member removed.' };
+  },
+});

@@ -4,10 +4,9 @@ import { InvitationRow } from '@/components/team/invitation-row';
 import { InviteForm } from '@/components/team/invite-form';
 import { MemberRow } from '@/components/team/member-row';
 import { RenameOrganizationForm } from '@/components/team/rename-organization-form';
-import { listMembers } from '@/db/queries/organizations';
-import { listOpenInvitations } from '@/db/queries/team';
 import { requirePage } from '@/lib/auth/guard';
 import { ROLE_LABELS } from '@/lib/auth/permissions';
+import { loadTeam } from '@/server/team/load';
 
 export const metadata: Metadata = { title: 'Team' };
 
@@ -15,10 +14,7 @@ const day = (date: Date) => date.toISOString().slice(0, 10);
 
 export default async function TeamPage() {
   const ctx = await requirePage('team:manage');
-  const [members, invitations] = await Promise.all([
-    listMembers(ctx.organization.id),
-    listOpenInvitations(ctx.organization.id),
-  ]);
+  const { members, invitations } = await loadTeam(ctx.organization.id);
   return (
     <>
       <PageHeader title="Team" lead="Who belongs to this organization and what each role may do." />

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { passwordResetTokenStatus, resetTokenError } from '@/db/queries/account-tokens';
 import { ResetPasswordForm } from '@/components/auth/reset-password-form';
+import { resetLinkProblem } from '@/server/account/password-reset';
 
 export const metadata: Metadata = { title: 'Set a new password' };
 
@@ -11,11 +11,11 @@ export default async function ResetPasswordPage({
   searchParams: Promise<{ token?: string }>;
 }) {
   const { token = '' } = await searchParams;
-  const status = await passwordResetTokenStatus(token);
+  const problem = await resetLinkProblem(token);
   return (
     <>
       <h1 className="mb-1">Set a new password</h1>
-      {status === 'valid' ? (
+      {problem === null ? (
         <>
           <p className="mb-6 text-sm text-ink-600">
             Choose a new password. You will be signed out everywhere and can then sign in with it.
@@ -28,7 +28,7 @@ export default async function ResetPasswordPage({
             role="alert"
             className="mt-4 rounded-md border border-coral-100 bg-coral-50 px-3 py-2 text-sm text-coral-900"
           >
-            {resetTokenError(status).message}
+            {problem}
           </p>
           <p className="mt-6 text-sm">
             <Link

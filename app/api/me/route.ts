@@ -1,10 +1,6 @@
-import { route } from '@/lib/auth/guard';
+import { json, route } from '@/server/http/route';
 
 /** The signed-in user, the active organization and role, and every membership. */
-export const GET = route('organization:read', async (_request, ctx) =>
-  Response.json({
-    user: ctx.user,
-    organization: ctx.organization,
-    memberships: ctx.memberships,
-  }),
+export const GET = route({ access: 'organization:read' }, async ({ ctx }) =>
+  json({ user: ctx.user, organization: ctx.organization, memberships: ctx.memberships }),
 );

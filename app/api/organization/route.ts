@@ -1,15 +1,9 @@
-import { renameOrganization } from '@/db/queries/organizations';
-import { route } from '@/lib/auth/guard';
-import { organizationNameSchema } from '@/lib/validation/auth';
+import { organizationNameSchema } from '@/lib/contracts/team';
+import { json, route } from '@/server/http/route';
+import { renameOrganization } from '@/server/team/rename-organization';
 
-/** Renames the active organization (admins). Body: { name }. */
+/** Renames the active organization (admins). Body: { name } → { organization: { id, name } }. */
 export const PATCH = route(
-  'team:manage',
-  async (request, ctx) => {
-    const body: unknown = await request.json().catch(() => null);
-    const { name } = organizationNameSchema.parse(body ?? {});
-    await renameOrganization({ organizationId: ctx.organization.id, name, actorUserId: ctx.user.id });
-    return Response.json({ organization: { id: ctx.organization.id, name } });
-  },
-  { what: 'rename the organization' },
+  { access: 'team:manage', what: 'rename the organization', body: organizationNameSchema },
+  async ({ actor, body }) => json(await renameOrganization(actor, body.name)),
 );

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
 import { auditEvents, organizations, sessions, users } from '@/db/schema';
 import { listAuditEvents, recordAudit } from '@/db/queries/audit';
-import { closeMailQueue } from '@/lib/email/queue';
+import { closeMailQueue } from '@/server/mail/queue';
 import { signIn } from '@/app/(auth)/actions';
 import { signOut } from '@/app/(app)/actions';
 import { ROLES } from '@/lib/auth/permissions';

@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
 import { invitations, memberships, users } from '@/db/schema';
-import { closeMailQueue } from '@/lib/email/queue';
+import { closeMailQueue } from '@/server/mail/queue';
 import { hashToken } from '@/lib/auth/tokens';
 import { GET as listInvitations, POST as postInvitation } from '@/app/api/invitations/route';
 import { DELETE as deleteInvitation } from '@/app/api/invitations/[id]/route';

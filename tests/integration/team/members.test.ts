@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
 import { memberships } from '@/db/schema';
-import { closeMailQueue } from '@/lib/email/queue';
+import { closeMailQueue } from '@/server/mail/queue';
 import {
   DELETE as deleteMember,
   PATCH as patchMember,

@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
 import { emailVerificationTokens, passwordResetTokens, sessions, users } from '@/db/schema';
-import { closeMailQueue } from '@/lib/email/queue';
+import { closeMailQueue } from '@/server/mail/queue';
 import { hashToken } from '@/lib/auth/tokens';
 import { checkCredentials } from '@/lib/auth/sign-in';
 import {

@@ -1,13 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { findUserByEmail } from '@/db/queries/users';
-import { findInvitationByToken, invitationClosedError } from '@/db/queries/team';
 import {
   AcceptAsMemberForm,
   AcceptWithNewAccountForm,
 } from '@/components/auth/accept-invitation-forms';
 import { getAuthContext } from '@/lib/auth/context';
 import { ROLE_LABELS } from '@/lib/auth/permissions';
+import { loadInvitationPage } from '@/server/team/accept-invitation';
 
 export const metadata: Metadata = { title: 'Accept invitation' };
 
@@ -19,8 +18,9 @@ export default async function AcceptInvitationPage({
   searchParams: Promise<{ token?: string }>;
 }) {
   const { token = '' } = await searchParams;
-  const [invitation, ctx] = await Promise.all([findInvitationByToken(token), getAuthContext()]);
-  if (!invitation || invitation.status !== 'pending') {
+  const ctx = await getAuthContext();
+  const { invitation, problem, accountExists } = await loadInvitationPage(token, ctx !== null);
+  if (!invitation) {
     return (
       <>
         <h1 className="mb-1">Invitation</h1>
@@ -28,11 +28,7 @@ export default async function AcceptInvitationPage({
           role="alert"
           className="mt-4 rounded-md border border-coral-100 bg-coral-50 px-3 py-2 text-sm text-coral-900"
         >
-          {
-            invitationClosedError(
-              invitation ? (invitation.status as 'accepted' | 'revoked' | 'expired') : 'unknown',
-            ).message
-          }
+          {problem}
         </p>
         <p className="mt-6 text-sm">
           <Link href="/sign-in" className={linkClass}>
@@ -78,8 +74,7 @@ export default async function AcceptInvitationPage({
     );
   }
 
-  const account = await findUserByEmail(invitation.email);
-  if (account) {
+  if (accountExists) {
     return (
       <>
         <h1 className="mb-1">Join {invitation.organizationName}</h1>

@@ -1,19 +1,12 @@
-import { revokeInvitation } from '@/db/queries/team';
-import { route } from '@/lib/auth/guard';
-
-type Params = { params: Promise<{ id: string }> };
+import { idParamsSchema } from '@/lib/contracts/common';
+import { json, route } from '@/server/http/route';
+import { revokeInvitation } from '@/server/team/revoke-invitation';
 
 /** Revokes an open invitation; its link stops working → { ok: true }. */
-export const DELETE = route<Params>(
-  'team:manage',
-  async (_request, ctx, { params }) => {
-    const { id } = await params;
-    await revokeInvitation({
-      organizationId: ctx.organization.id,
-      invitationId: id,
-      actorUserId: ctx.user.id,
-    });
-    return Response.json({ ok: true });
+export const DELETE = route(
+  { access: 'team:manage', what: 'revoke invitations', params: idParamsSchema },
+  async ({ actor, params }) => {
+    await revokeInvitation(actor, params.id);
+    return json({ ok: true });
   },
-  { what: 'revoke invitations' },
 );

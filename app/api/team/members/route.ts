@@ -1,8 +1,7 @@
-import { listMembers } from '@/db/queries/organizations';
-import { route } from '@/lib/auth/guard';
+import { json, route } from '@/server/http/route';
+import { listMembers } from '@/server/team/load';
 
-export const GET = route(
-  'team:manage',
-  async (_request, ctx) => Response.json({ members: await listMembers(ctx.organization.id) }),
-  { what: 'see the member list' },
+/** The organization's members with their roles → { members }. */
+export const GET = route({ access: 'team:manage', what: 'see the member list' }, async ({ ctx }) =>
+  json({ members: await listMembers(ctx.organization.id) }),
 );

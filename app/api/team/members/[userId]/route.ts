@@ -1,34 +1,25 @@
-import { changeMemberRole, removeMember } from '@/db/queries/team';
-import { route } from '@/lib/auth/guard';
-import { roleChangeSchema } from '@/lib/validation/team';
-
-type Params = { params: Promise<{ userId: string }> };
+import { userIdParamsSchema } from '@/lib/contracts/common';
+import { roleChangeSchema } from '@/lib/contracts/team';
+import { json, route } from '@/server/http/route';
+import { changeMemberRole, removeMember } from '@/server/team/members';
 
 /** Changes a member's role. Body: { role } → { member: { userId, role } }; never the last admin. */
-export const PATCH = route<Params>(
-  'team:manage',
-  async (request, ctx, { params }) => {
-    const { userId } = await params;
-    const body: unknown = await request.json().catch(() => null);
-    const { role } = roleChangeSchema.parse(body ?? {});
-    const member = await changeMemberRole({
-      organizationId: ctx.organization.id,
-      userId,
-      role,
-      actorUserId: ctx.user.id,
-    });
-    return Response.json({ member });
+export const PATCH = route(
+  {
+    access: 'team:manage',
+    what: 'change roles',
+    params: userIdParamsSchema,
+    body: roleChangeSchema,
   },
-  { what: 'change roles' },
+  async ({ actor, params, body }) =>
+    json({ member: await changeMemberRole(actor, params.userId, body.role) }),
 );
 
 /** Removes a member from the organization → { ok: true }; never the last admin. */
-export const DELETE = route<Params>(
-  'team:manage',
-  async (_request, ctx, { params }) => {
-    const { userId } = await params;
-    await removeMember({ organizationId: ctx.organization.id, userId, actorUserId: ctx.user.id });
-    return Response.json({ ok: true });
+export const DELETE = route(
+  { access: 'team:manage', what: 'remove members', params: userIdParamsSchema },
+  async ({ actor, params }) => {
+    await removeMember(actor, params.userId);
+    return json({ ok: true });
   },
-  { what: 'remove members' },
 );
