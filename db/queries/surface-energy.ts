@@ -1,12 +1,11 @@
 import 'server-only';
 import { and, desc, eq, inArray, isNull, max, sql } from 'drizzle-orm';
-import { notFound } from '@/lib/api/errors';
-import { describe } from '@/lib/stats';
 import type {
-  LiquidAngle,
-  SampleSurfaceEnergyOptions,
-  SurfaceEnergyOutputs,
-} from '@/lib/validation/surface-energy';
+  SavedSurfaceEnergyResult,
+  SubjectSummary,
+  SurfaceEnergyChoice,
+  SurfaceEnergySubject,
+} from '@/lib/contracts/surface-energy';
 import { getDb } from '../client';
 import {
   analyses,
@@ -19,58 +18,13 @@ import {
   surfaceEnergyResults,
   users,
 } from '../schema';
-import { newId } from './ids';
-import { recordAudit } from './audit';
-import type { Actor } from './records';
+import type { Executor } from './transaction';
 
-/** What a surface energy is computed for: one sample, or all samples of one batch. */
-export type SurfaceEnergySubject = { sampleId: string } | { batchId: string };
-
-export type SubjectSummary = {
-  kind: 'sample' | 'batch';
-  id: string;
-  sampleLabel: string | null;
-  batchId: string;
-  lotCode: string;
-  coatingId: string;
-  coatingCode: string;
-  coatingName: string;
-  treatedAt: Date | null;
-  /** Surface-energy limits of the coating's specs (mN/m), if any. */
-  surfaceEnergySpecs: {
-    id: string;
-    min: number | null;
-    max: number | null;
-    /** The spec counts only drops measured within this many days of treatment. */
-    maxDaysSinceTreatment: number | null;
-    note: string;
-  }[];
-};
-
-/** One probe liquid measured on the subject: the mean angle of its drops and its components. */
-export type AngleTableRow = {
-  probeLiquidId: string;
-  name: string;
-  builtIn: boolean;
-  meanDeg: number;
-  sdDeg: number | null;
-  n: number;
-  gammaTotal: number;
-  gammaDispersive: number | null;
-  gammaPolar: number | null;
-  gammaLW: number | null;
-  gammaPlus: number | null;
-  gammaMinus: number | null;
-  sources: Record<string, string>;
-  hazardNote: string | null;
-  /** Ids of the analyses (latest revision of each drop) the mean is taken from. */
-  analysisIds: string[];
-};
-
-export async function getSurfaceEnergySubject(
+/** The sample (or batch) with its batch, coating and surface-energy specs; null when not here. */
+export async function findSurfaceEnergySubject(
   organizationId: string,
   subject: SurfaceEnergySubject,
-): Promise<SubjectSummary> {
+): Promise<SubjectSummary | null> {
   const db = getDb();
   const byBatch = 'batchId' in subject;
   const [row] = byBatch
@@ -100,7 +54,7 @@ export async function getSurfaceEnergySubject(
         .innerJoin(batches, eq(batches.id, samples.batchId))
         .innerJoin(coatings, eq(coatings.id, batches.coatingId))
         .where(and(eq(samples.id, subject.sampleId), eq(samples.organizationId, organizationId)));
-  if (!row) throw notFound(byBatch ? 'That batch' : 'That sample');
+  if (!row) return null;
   const specRows = await db
     .select({
       id: specs.id,
@@ -138,15 +92,15 @@ export async function getSurfaceEnergySubject(
 }
 
 /**
- * The angle table of a sample (or of every sample of a batch): per probe liquid, the mean, SD
- * and n of the drops' mean angles, each drop counted by its latest analysis (max revision).
- * Without `readAll` (viewers) a drop counts only when that latest analysis is approved.
+ * Every live drop of a sample (or of every live sample of a batch) by its latest analysis (max
+ * revision), with its probe liquid; without `readAll` (viewers) only drops whose latest analysis
+ * is approved.
  */
-export async function listAngleTable(
+export async function listLatestDropAngles(
   organizationId: string,
   subject: SurfaceEnergySubject,
   options: { readAll: boolean },
-): Promise<AngleTableRow[]> {
+) {
   const db = getDb();
   const latest = db
     .select({ dropId: analyses.dropId, revision: max(analyses.revision).as('latest_revision') })
@@ -164,7 +118,7 @@ export async function listAngleTable(
             .where(and(eq(samples.batchId, subject.batchId), isNull(samples.archivedAt))),
         )
       : eq(drops.sampleId, subject.sampleId);
-  const rows = await db
+  return db
     .select({
       analysisId: analyses.id,
       meanDeg: analyses.meanDeg,
@@ -186,121 +140,15 @@ export async function listAngleTable(
       ),
     )
     .orderBy(probeLiquids.name, analyses.id);
-
-  const groups = new Map<
-    string,
-    { liquid: (typeof rows)[number]['liquid']; angles: number[]; ids: string[] }
-  >();
-  for (const row of rows) {
-    const group = groups.get(row.liquid.id) ?? { liquid: row.liquid, angles: [], ids: [] };
-    group.angles.push(row.meanDeg);
-    group.ids.push(row.analysisId);
-    groups.set(row.liquid.id, group);
-  }
-  return [...groups.values()].map(({ liquid, angles, ids }) => {
-    const stats = describe(angles);
-    return {
-      probeLiquidId: liquid.id,
-      name: liquid.name,
-      builtIn: liquid.organizationId === null,
-      meanDeg: stats.mean,
-      sdDeg: stats.sd,
-      n: stats.n,
-      gammaTotal: liquid.totalMnM,
-      gammaDispersive: liquid.dispersiveMnM,
-      gammaPolar: liquid.polarMnM,
-      gammaLW: liquid.lifshitzVanDerWaalsMnM,
-      gammaPlus: liquid.acidMnM,
-      gammaMinus: liquid.baseMnM,
-      sources: liquid.sources,
-      hazardNote: liquid.hazardNote,
-      analysisIds: ids,
-    };
-  });
 }
 
-/**
- * The angle table as calculation input. A lab liquid without a dispersive/polar split carries
- * 0/0, which keeps it out of the split methods (OWRK, Wu, Fowkes); Zisman and Neumann use its
- * total alone.
- */
-export function angleTableToLiquids(table: readonly AngleTableRow[]): LiquidAngle[] {
-  return table.map((row) => ({
-    probeLiquidId: row.probeLiquidId,
-    name: row.name,
-    gammaTotal: row.gammaTotal,
-    gammaDispersive: row.gammaDispersive ?? 0,
-    gammaPolar: row.gammaPolar ?? 0,
-    gammaLW: row.gammaLW ?? undefined,
-    gammaPlus: row.gammaPlus ?? undefined,
-    gammaMinus: row.gammaMinus ?? undefined,
-    angleDeg: row.meanDeg,
-    angleSdDeg: row.sdDeg ?? 0,
-    n: row.n,
-  }));
-}
-
-export type SurfaceEnergyInputs = {
-  subject: { kind: 'sample' | 'batch'; id: string };
-  options: SampleSurfaceEnergyOptions;
-  /** The angle table exactly as used, components and their sources included. */
-  liquids: AngleTableRow[];
-  readAll: boolean;
-};
-
-export type SavedSurfaceEnergyResult = {
-  id: string;
-  sampleId: string | null;
-  batchId: string | null;
-  inputs: SurfaceEnergyInputs;
-  outputs: SurfaceEnergyOutputs;
-  createdByUserId: string | null;
-  createdByName: string | null;
-  createdAt: Date;
-};
-
-export async function saveSurfaceEnergyResult(
-  actor: Actor,
-  subject: SurfaceEnergySubject,
-  inputs: SurfaceEnergyInputs,
-  outputs: SurfaceEnergyOutputs,
+export async function insertSurfaceEnergyResult(
+  db: Executor,
+  row: typeof surfaceEnergyResults.$inferInsert,
 ): Promise<SavedSurfaceEnergyResult> {
-  const id = newId();
-  const sampleId = 'sampleId' in subject ? subject.sampleId : null;
-  const batchId = 'batchId' in subject ? subject.batchId : null;
-  const [row] = await getDb().transaction(async (tx) => {
-    const inserted = await tx
-      .insert(surfaceEnergyResults)
-      .values({
-        id,
-        organizationId: actor.organizationId,
-        sampleId,
-        batchId,
-        inputs: inputs as unknown as Record<string, unknown>,
-        outputs: outputs as unknown as Record<string, unknown>,
-        createdByUserId: actor.userId,
-      })
-      .returning();
-    await recordAudit(tx, {
-      actorUserId: actor.userId,
-      organizationId: actor.organizationId,
-      action: 'surface_energy_result.create',
-      entityType: 'surface_energy_result',
-      entityId: id,
-      after: { sampleId, batchId, methods: inputs.options.methods },
-    });
-    return inserted;
-  });
-  return {
-    id: row.id,
-    sampleId: row.sampleId,
-    batchId: row.batchId,
-    inputs,
-    outputs,
-    createdByUserId: row.createdByUserId,
-    createdByName: null,
-    createdAt: row.createdAt,
-  };
+  const [saved] = await db.insert(surfaceEnergyResults).values(row).returning();
+  const { organizationId: _organizationId, ...result } = saved;
+  return { ...result, createdByName: null };
 }
 
 /** Saved results of a sample or batch, newest first. */
@@ -323,20 +171,16 @@ export async function listSurfaceEnergyResults(
     )
     .orderBy(desc(surfaceEnergyResults.createdAt), desc(surfaceEnergyResults.id))
     .limit(limit);
-  return rows.map(({ result, createdByName }) => ({
-    id: result.id,
-    sampleId: result.sampleId,
-    batchId: result.batchId,
-    inputs: result.inputs as unknown as SurfaceEnergyInputs,
-    outputs: result.outputs as unknown as SurfaceEnergyOutputs,
-    createdByUserId: result.createdByUserId,
+  return rows.map(({ result: { organizationId: _organizationId, ...result }, createdByName }) => ({
+    ...result,
     createdByName,
-    createdAt: result.createdAt,
   }));
 }
 
 /** Coatings → batches → samples, for the page's picker. */
-export async function listSurfaceEnergyChoices(organizationId: string) {
+export async function listSurfaceEnergyChoices(
+  organizationId: string,
+): Promise<SurfaceEnergyChoice[]> {
   return getDb()
     .select({
       sampleId: samples.id,

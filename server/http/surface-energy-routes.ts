@@ -22,7 +22,11 @@ import { json, route } from './route';
 export function surfaceEnergyRoutes(kind: SubjectKind) {
   return {
     GET: route(
-      { access: 'organization:read', params: idParamsSchema, query: sampleSurfaceEnergyQuerySchema },
+      {
+        access: 'organization:read',
+        params: idParamsSchema,
+        query: sampleSurfaceEnergyQuerySchema,
+      },
       async ({ ctx, params, query }) => json(await surfaceEnergyOf(ctx, kind, params.id, query)),
     ),
     POST: route(

@@ -1,10 +1,6 @@
-import { route } from '@/lib/auth/guard';
-import { parseJsonBody } from '@/lib/validation/records';
-import {
-  computeSurfaceEnergy,
-  methodAvailability,
-  surfaceEnergyCalculateSchema,
-} from '@/lib/validation/surface-energy';
+import { surfaceEnergyCalculateSchema } from '@/lib/contracts/surface-energy';
+import { json, route } from '@/server/http/route';
+import { calculateSurfaceEnergy } from '@/server/surface-energy/calculate';
 
 /**
  * Surface free energy from liquids and their mean angles; a pure calculation, nothing stored.
@@ -12,10 +8,7 @@ import {
  * gammaMinus?, angleDeg, angleSdDeg?, n? }], methods?: ['owrk', …], uncertaintyBasis?: 'mean' |
  * 'single', envelopeAngleDeg? } → { availability, outputs }.
  */
-export const POST = route('organization:read', async (request) => {
-  const input = await parseJsonBody(request, surfaceEnergyCalculateSchema);
-  return Response.json({
-    availability: methodAvailability(input.liquids),
-    outputs: computeSurfaceEnergy(input.liquids, input),
-  });
-});
+export const POST = route(
+  { access: 'organization:read', body: surfaceEnergyCalculateSchema },
+  async ({ body }) => json(calculateSurfaceEnergy(body)),
+);

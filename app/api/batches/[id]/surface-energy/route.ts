@@ -1,4 +1,4 @@
-import { surfaceEnergyRoutes } from '@/lib/api/surface-energy-routes';
+import { surfaceEnergyRoutes } from '@/server/http/surface-energy-routes';
 
 /**
  * Surface energy of a whole batch: the drops of all its live samples pooled per probe liquid

@@ -1,4 +1,4 @@
-import { surfaceEnergyRoutes } from '@/lib/api/surface-energy-routes';
+import { surfaceEnergyRoutes } from '@/server/http/surface-energy-routes';
 
 /**
  * The sample's angle table, computed and saved surface energy (see surfaceEnergyRoutes).
