@@ -1,15 +1,15 @@
 import type { Metadata } from 'next';
 import { TensiometryWorkspace } from '@/components/tensiometry/workspace';
 import { PageHeader } from '@/components/ui/empty-state';
-import { listTensiometryResults } from '@/db/queries/tensiometry';
 import { requirePage } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/permissions';
+import { listSavedTensiometry } from '@/server/tensiometry/list';
 
 export const metadata: Metadata = { title: 'Tensiometry' };
 
 export default async function TensiometryPage() {
   const ctx = await requirePage('organization:read');
-  const saved = await listTensiometryResults(ctx.organization.id, { limit: 30 });
+  const { items: saved } = await listSavedTensiometry(ctx.organization.id, { limit: 30 });
   return (
     <>
       <PageHeader
