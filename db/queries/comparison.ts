@@ -5,7 +5,7 @@ import type {
   ComparisonDropInput,
   ComparisonLiquidInput,
   ComparisonSpecInput,
-} from '@/lib/compare/types';
+} from '@/lib/contracts/compare';
 import { getDb } from '../client';
 import { batches, coatings, probeLiquids, specs } from '../schema';
 

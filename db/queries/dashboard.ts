@@ -1,21 +1,7 @@
 import 'server-only';
 import { sql } from 'drizzle-orm';
-import { batchesOutOfSpec, buildComparison } from '@/lib/compare/build';
+import type { RecentDrop } from '@/lib/contracts/dashboard';
 import { getDb } from '../client';
-import { listComparisonCoatings, loadComparison } from './comparison';
-
-export interface RecentDrop {
-  dropId: string;
-  sampleLabel: string;
-  lotCode: string;
-  coatingCode: string;
-  liquidName: string;
-  meanDeg: number;
-  measuredAt: string;
-  /** Who recorded the drop; null when that account is gone. */
-  measuredBy: string | null;
-  reviewStatus: 'draft' | 'submitted' | 'approved' | 'rejected';
-}
 
 type RecentRow = {
   drop_id: string;
@@ -63,7 +49,10 @@ export async function recentDrops(
     coatingCode: r.coating_code,
     liquidName: r.liquid_name,
     meanDeg: Number(r.mean_deg),
-    measuredAt: (r.measured_at instanceof Date ? r.measured_at : new Date(r.measured_at)).toISOString(),
+    measuredAt: (r.measured_at instanceof Date
+      ? r.measured_at
+      : new Date(r.measured_at)
+    ).toISOString(),
     measuredBy: r.measured_by,
     reviewStatus: r.review_status,
   }));
@@ -79,37 +68,4 @@ export async function pendingReviewCount(organizationId: string): Promise<number
       and a.revision = (select max(x.revision) from analyses x where x.drop_id = a.drop_id)
   `);
   return Number(row?.n ?? 0);
-}
-
-export interface OutOfSpecBatch {
-  coatingCode: string;
-  lotCode: string;
-  producedOn: string;
-  liquidName: string;
-  rule: string;
-  reason: string;
-}
-
-/** Batches (each coating's newest twelve) whose comparison verdict is fail for some liquid. */
-export async function outOfSpecBatches(
-  organizationId: string,
-  options: { approvedOnly: boolean },
-): Promise<OutOfSpecBatch[]> {
-  const coatings = await listComparisonCoatings(organizationId);
-  const perCoating = await Promise.all(
-    coatings.map(async (coating) => {
-      const data = await loadComparison(organizationId, coating.id, {
-        approvedOnly: options.approvedOnly,
-      });
-      return batchesOutOfSpec(buildComparison(data)).map((b) => ({
-        coatingCode: coating.code,
-        lotCode: b.batch.lotCode,
-        producedOn: b.batch.producedOn,
-        liquidName: b.liquidName,
-        rule: b.rule,
-        reason: b.reason,
-      }));
-    }),
-  );
-  return perCoating.flat().sort((a, b) => b.producedOn.localeCompare(a.producedOn));
 }

@@ -2,21 +2,20 @@ import 'server-only';
 import sharp from 'sharp';
 import { analyseDrop } from '@/lib/analysis';
 import type { AnalysisResult, Baseline, FitMethod } from '@/lib/analysis/types';
-import { loadPhotoBytes } from '@/lib/measure/photo-pixels';
 import { decodeImageBytes } from '@/lib/analysis/node/decode';
 import { baselineAcross, tangentEnd } from '@/lib/measure/overlay-geometry';
 
 /**
  * The photo of a drop with its analysis drawn in (edge points, baseline, tangents and angles),
- * re-computed by lib/analysis from the stored photo with the saved method and baseline.
+ * re-computed by lib/analysis from the stored photo's bytes with the saved method and baseline.
  */
 export async function drawAnalysedDrop(input: {
-  organizationId: string;
-  photoId: string;
+  /** The stored photo's bytes (PNG, JPEG, TIFF or BMP). */
+  bytes: Buffer;
   method: FitMethod;
   baseline: Baseline | null;
 }): Promise<{ png: Buffer; result: AnalysisResult }> {
-  const { bytes } = await loadPhotoBytes(input.organizationId, input.photoId);
+  const { bytes } = input;
   const gray = await decodeImageBytes(bytes);
   const result = await analyseDrop(gray, {
     method: input.method,

@@ -2,16 +2,9 @@ import type { Metadata } from 'next';
 import { CompareControls } from '@/components/compare/compare-controls';
 import { ComparisonView } from '@/components/compare/comparison-view';
 import { EmptyState, PageHeader } from '@/components/ui/empty-state';
-import {
-  DEFAULT_BATCH_COUNT,
-  findComparisonCoating,
-  listComparisonCoatings,
-  loadComparison,
-} from '@/db/queries/comparison';
 import { requirePage } from '@/lib/auth/guard';
-import { can } from '@/lib/auth/permissions';
-import { buildComparison } from '@/lib/compare/build';
-import { compareSearch, parseCompareQuery } from '@/lib/compare/query';
+import { parseCompareQuery } from '@/lib/compare/query';
+import { DEFAULT_BATCH_COUNT, loadComparePage } from '@/server/compare/load';
 import './print.css';
 
 export const metadata: Metadata = { title: 'Compare' };
@@ -22,10 +15,9 @@ export default async function ComparePage({
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
   const ctx = await requirePage('organization:read');
-  const orgId = ctx.organization.id;
-  const role = ctx.organization.role;
   const query = parseCompareQuery(await searchParams);
-  const coatings = await listComparisonCoatings(orgId);
+  const { approvedOnly, coatings, coating, data, comparison, reference, chosenLots, unknownBatches, exportHref } =
+    await loadComparePage(ctx, query);
   const header = (
     <PageHeader
       title="Compare"
@@ -44,29 +36,6 @@ export default async function ComparePage({
     );
   }
 
-  const coating = query.coating ? await findComparisonCoating(orgId, query.coating) : null;
-  const approvedOnly = !can(role, 'results:read-all');
-  const data = coating
-    ? await loadComparison(orgId, coating.id, { batches: query.batches, approvedOnly })
-    : null;
-  const known = new Set(data?.allBatches.flatMap((b) => [b.id, b.lotCode]) ?? []);
-  const unknownBatches = query.batches.filter((b) => !known.has(b));
-  const reference = data?.batches.find((b) => b.id === query.ref || b.lotCode === query.ref) ?? null;
-  const comparison =
-    data && coating
-      ? buildComparison({
-          batches: data.batches,
-          liquids: data.liquids,
-          specs: data.specs,
-          drops: data.drops,
-          referenceBatchId: reference?.id ?? null,
-        })
-      : null;
-  const chosenLots = data?.batches.map((b) => b.lotCode) ?? [];
-  const exportHref =
-    coating && data && data.drops.length > 0 && can(role, 'results:export')
-      ? `/api/compare/drops.csv${compareSearch({ coating: coating.code, batches: chosenLots, ref: null })}`
-      : null;
 
   return (
     <div className="compare-page">

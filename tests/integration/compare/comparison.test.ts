@@ -1,14 +1,15 @@
 /** The comparison query, its CSV export and the dashboard queries against real PostgreSQL. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
-import { analyses, batches, coatings, drops, samples, specs } from '@/db/schema';
+import { specs } from '@/db/schema';
 import { newId } from '@/db/queries/ids';
 import { comparisonDrops, findComparisonCoating, loadComparison } from '@/db/queries/comparison';
-import { pendingReviewCount, recentDrops, outOfSpecBatches } from '@/db/queries/dashboard';
+import { outOfSpecBatches, pendingReviewCount, recentDrops } from '@/server/dashboard/load';
 import * as exportRoute from '@/app/api/compare/drops.csv/route';
 import { CSV_HEADER } from '@/lib/compare';
 import { apiRequest } from '../support/request';
 import { createLab, ensureLibrary, unique, type Lab } from '../records/helpers';
+import { insertBatch, insertCoating, insertDrop, insertSample } from '../support/seed';
 
 type Status = 'draft' | 'submitted' | 'approved' | 'rejected';
 
@@ -23,54 +24,22 @@ let lotNew: string;
 let otherBatch: string;
 const dropIds: Record<string, string> = {};
 
-async function addCoating(orgId: string, code: string) {
-  const id = newId();
-  await getDb().insert(coatings).values({ id, organizationId: orgId, code, name: `Topcoat ${code}` });
-  return id;
-}
+const addCoating = (orgId: string, code: string) => insertCoating(orgId, code);
+const addBatch = insertBatch;
+const addSample = (orgId: string, batchId: string, label: string) =>
+  insertSample(orgId, batchId, label, new Date('2026-03-01T08:00:00Z'));
 
-async function addBatch(orgId: string, coating: string, lotCode: string, producedOn: string) {
-  const id = newId();
-  await getDb().insert(batches).values({ id, organizationId: orgId, coatingId: coating, lotCode, producedOn });
-  return id;
-}
-
-async function addSample(orgId: string, batchId: string, label: string) {
-  const id = newId();
-  await getDb()
-    .insert(samples)
-    .values({ id, organizationId: orgId, batchId, label, treatedAt: new Date('2026-03-01T08:00:00Z') });
-  return id;
-}
-
-/** A drop with one analysis per [meanDeg, status] given, revision 1, 2, … */
-async function addDrop(orgId: string, sampleId: string, revisions: [number, Status][], measuredAt: string) {
-  const id = newId();
-  await getDb().insert(drops).values({
-    id,
-    organizationId: orgId,
-    sampleId,
-    probeLiquidId: 'liquid-water',
-    source: 'import',
+/** A drop with one analysis per [meanDeg, status] given (left/right 1° either side), revision 1, 2, … */
+const addDrop = (orgId: string, sampleId: string, revisions: [number, Status][], measuredAt: string) =>
+  insertDrop(orgId, sampleId, {
     measuredAt: new Date(measuredAt),
-  });
-  for (const [i, [meanDeg, status]] of revisions.entries()) {
-    await getDb().insert(analyses).values({
-      id: newId(),
-      organizationId: orgId,
-      dropId: id,
-      revision: i + 1,
-      method: 'manual',
-      result: {},
+    revisions: revisions.map(([meanDeg, reviewStatus]) => ({
+      meanDeg,
       leftDeg: meanDeg - 1,
       rightDeg: meanDeg + 1,
-      meanDeg,
-      softwareVersion: 'test',
-      reviewStatus: status,
-    });
-  }
-  return id;
-}
+      reviewStatus,
+    })),
+  });
 
 beforeAll(async () => {
   await ensureLibrary();

@@ -7,7 +7,7 @@ import { loadComparison } from '@/db/queries/comparison';
 import { batches, memberships, organizations, users } from '@/db/schema';
 import type { OrgContext } from '@/lib/auth/context';
 import { buildComparison } from '@/lib/compare';
-import { buildBatchReport } from '@/lib/reports/batch-report';
+import { buildBatchReport } from '@/server/reports/batch-report';
 
 afterAll(async () => {
   await closeDb();

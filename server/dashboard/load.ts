@@ -1,0 +1,50 @@
+import 'server-only';
+import { emailVerifiedAt } from '@/db/queries/account-tokens';
+import { listComparisonCoatings, loadComparison } from '@/db/queries/comparison';
+import { pendingReviewCount, recentDrops } from '@/db/queries/dashboard';
+import type { OrgContext } from '@/lib/auth/context';
+import { can } from '@/lib/auth/permissions';
+import { batchesOutOfSpec, buildComparison } from '@/lib/compare';
+import type { OutOfSpecBatch } from '@/lib/contracts/dashboard';
+
+/** Batches (each coating's newest twelve) whose comparison verdict is fail for some liquid. */
+export async function outOfSpecBatches(
+  organizationId: string,
+  options: { approvedOnly: boolean },
+): Promise<OutOfSpecBatch[]> {
+  const coatings = await listComparisonCoatings(organizationId);
+  const perCoating = await Promise.all(
+    coatings.map(async (coating) => {
+      const data = await loadComparison(organizationId, coating.id, {
+        approvedOnly: options.approvedOnly,
+      });
+      return batchesOutOfSpec(buildComparison(data)).map((b) => ({
+        coatingCode: coating.code,
+        lotCode: b.batch.lotCode,
+        producedOn: b.batch.producedOn,
+        liquidName: b.liquidName,
+        rule: b.rule,
+        reason: b.reason,
+      }));
+    }),
+  );
+  return perCoating.flat().sort((a, b) => b.producedOn.localeCompare(a.producedOn));
+}
+
+/**
+ * The dashboard: recent drops, batches out of spec (approved results only for those who may not
+ * read every result), results waiting for review, and whether the address is confirmed.
+ */
+export async function loadDashboard(ctx: OrgContext) {
+  const organizationId = ctx.organization.id;
+  const approvedOnly = !can(ctx.organization.role, 'results:read-all');
+  const [verified, drops, outOfSpec, pending] = await Promise.all([
+    emailVerifiedAt(ctx.user.id),
+    recentDrops(organizationId, { approvedOnly }),
+    outOfSpecBatches(organizationId, { approvedOnly }),
+    approvedOnly ? Promise.resolve(null) : pendingReviewCount(organizationId),
+  ]);
+  return { emailVerified: verified !== null, approvedOnly, drops, outOfSpec, pending };
+}
+
+export { pendingReviewCount, recentDrops };
