@@ -1,13 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { EmptyState, PageHeader } from '@/components/ui/empty-state';
-import {
-  AUDIT_PAGE_SIZE,
-  auditFilterOptions,
-  listAuditEvents,
-  type AuditFilters,
-} from '@/db/queries/audit';
 import { requirePage } from '@/lib/auth/guard';
+import { loadAuditLog, type AuditFilters } from '@/server/audit/list';
 
 export const metadata: Metadata = { title: 'Audit log' };
 
@@ -67,11 +62,7 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
   const search = await searchParams;
   const { filters, errors } = readFilters(search);
   const page = Math.max(1, Math.floor(Number(search.page) || 1));
-  const [{ rows, total }, options] = await Promise.all([
-    listAuditEvents(ctx.organization.id, filters, page),
-    auditFilterOptions(ctx.organization.id),
-  ]);
-  const pages = Math.max(1, Math.ceil(total / AUDIT_PAGE_SIZE));
+  const { rows, total, pages, options } = await loadAuditLog(ctx.organization.id, filters, page);
   const pageHref = (n: number) => {
     const params = new URLSearchParams();
     for (const key of ['action', 'entity', 'actor', 'from', 'to'] as const) {

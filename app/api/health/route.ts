@@ -1,16 +1,17 @@
-import { getSql } from '@/db/client';
+import { json, route } from '@/server/http/route';
+import { databaseAnswers } from '@/server/health/check';
 
 export const dynamic = 'force-dynamic';
 
 /** Liveness and database reachability, for the start script and monitoring. */
-export async function GET() {
-  try {
-    await getSql()`select 1`;
-    return Response.json({ status: 'ok' });
-  } catch {
-    return Response.json(
-      { status: 'degraded', error: { code: 'database_unreachable', message: 'The database does not answer.' } },
-      { status: 503 },
-    );
-  }
-}
+export const GET = route({ access: 'public' }, async () =>
+  (await databaseAnswers())
+    ? json({ status: 'ok' })
+    : json(
+        {
+          status: 'degraded',
+          error: { code: 'database_unreachable', message: 'The database does not answer.' },
+        },
+        503,
+      ),
+);
