@@ -16,6 +16,13 @@ import {
   uniqueIndex,
 } from 'drizzle-orm/pg-core';
 import { sql } from 'drizzle-orm';
+import type { FitMethod } from '../lib/analysis/types';
+import type { ProcessParameters } from '../lib/contracts/batches';
+import type { StoredAnalysisOptions, StoredAnalysisResult } from '../lib/contracts/drops';
+import type { Signature } from '../lib/contracts/reviews';
+import type { SurfaceEnergyInputs } from '../lib/contracts/surface-energy';
+import type { TensiometryInputs, TensiometryOutputs } from '../lib/contracts/tensiometry';
+import type { SurfaceEnergyOutputs } from '../lib/surface-energy/compute';
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => 'bytea' });
 
@@ -168,7 +175,29 @@ const orgRef = () =>
 const userRef = (name: string) => text(name).references(() => users.id, { onDelete: 'set null' });
 
 export const specScopeEnum = pgEnum('spec_scope', ['each-drop', 'mean']);
-export const reviewStatusEnum = pgEnum('review_status', ['draft', 'submitted', 'approved', 'rejected']);
+
+/** How an analysis revision was obtained: one of the engine's fits, or angles read by hand. */
+export const analysisMethodEnum = pgEnum('analysis_method', [
+  'young-laplace',
+  'circle',
+  'polynomial',
+  'ellipse',
+  'height-width',
+  'manual',
+]);
+// A fit method the engine adds needs a value above (and a migration): this stops compiling.
+const _everyFitMethod: Exclude<
+  FitMethod,
+  (typeof analysisMethodEnum.enumValues)[number]
+> extends never
+  ? true
+  : never = true;
+export const reviewStatusEnum = pgEnum('review_status', [
+  'draft',
+  'submitted',
+  'approved',
+  'rejected',
+]);
 
 /**
  * Probe liquids with their surface tension components (mN/m). organization_id null marks the
@@ -178,7 +207,9 @@ export const probeLiquids = pgTable(
   'probe_liquids',
   {
     id: text('id').primaryKey(),
-    organizationId: text('organization_id').references(() => organizations.id, { onDelete: 'cascade' }),
+    organizationId: text('organization_id').references(() => organizations.id, {
+      onDelete: 'cascade',
+    }),
     name: text('name').notNull(),
     totalMnM: doublePrecision('total_mn_m').notNull(),
     dispersiveMnM: doublePrecision('dispersive_mn_m'),
@@ -243,13 +274,7 @@ export const specs = pgTable(
   (t) => [index('specs_coating_idx').on(t.coatingId)],
 );
 
-export type ProcessParameters = {
-  cureTemperatureC?: number;
-  cureTimeMin?: number;
-  lineSpeedMPerMin?: number;
-  plasmaDoseWMinPerM2?: number;
-  coatWeightGPerM2?: number;
-};
+export type { ProcessParameters };
 
 export const batches = pgTable(
   'batches',
@@ -390,11 +415,11 @@ export const analyses = pgTable(
       .notNull()
       .references(() => drops.id, { onDelete: 'cascade' }),
     revision: integer('revision').notNull(),
-    method: text('method').notNull(),
+    method: analysisMethodEnum('method').notNull(),
     baseline: jsonb('baseline').$type<{ x1: number; y1: number; x2: number; y2: number } | null>(),
-    options: jsonb('options').$type<Record<string, unknown>>().notNull().default({}),
-    /** The engine's whole output (contact points, profile fit, warnings, …). */
-    result: jsonb('result').$type<Record<string, unknown>>().notNull(),
+    options: jsonb('options').$type<StoredAnalysisOptions>().notNull().default({}),
+    /** The engine's output without its edge points (contact points, fit, warnings, …), or the imported angles. */
+    result: jsonb('result').$type<StoredAnalysisResult>().notNull(),
     leftDeg: doublePrecision('left_deg').notNull(),
     rightDeg: doublePrecision('right_deg').notNull(),
     meanDeg: doublePrecision('mean_deg').notNull(),
@@ -463,7 +488,12 @@ export const emailVerificationTokens = pgTable(
 // ---------------------------------------------------------------------------------------------
 
 export const reviewScopeEnum = pgEnum('review_scope', ['sample', 'batch']);
-export const reviewOutcomeEnum = pgEnum('review_outcome', ['submitted', 'approved', 'rejected', 'withdrawn']);
+export const reviewOutcomeEnum = pgEnum('review_outcome', [
+  'submitted',
+  'approved',
+  'rejected',
+  'withdrawn',
+]);
 
 export const reviews = pgTable(
   'reviews',
@@ -486,13 +516,7 @@ export const reviews = pgTable(
     decidedAt: timestamp('decided_at', { withTimezone: true }),
     decisionComment: text('decision_comment').notNull().default(''),
     /** Who signed, when, how, and a digest of exactly what was signed. */
-    signature: jsonb('signature').$type<{
-      name: string;
-      email: string;
-      signedAt: string;
-      method: 'password-reconfirmed';
-      digest: string;
-    } | null>(),
+    signature: jsonb('signature').$type<Signature | null>(),
   },
   (t) => [
     index('reviews_org_status_idx').on(t.organizationId, t.status, t.submittedAt),
@@ -513,9 +537,9 @@ export const surfaceEnergyResults = pgTable(
     sampleId: text('sample_id').references(() => samples.id),
     batchId: text('batch_id').references(() => batches.id),
     /** Methods chosen and the liquids used: mean angle, SD, n and the components with their source. */
-    inputs: jsonb('inputs').$type<Record<string, unknown>>().notNull(),
+    inputs: jsonb('inputs').$type<SurfaceEnergyInputs>().notNull(),
     /** Per method: components with standard uncertainties, warnings; errors of methods that failed. */
-    outputs: jsonb('outputs').$type<Record<string, unknown>>().notNull(),
+    outputs: jsonb('outputs').$type<SurfaceEnergyOutputs>().notNull(),
     createdByUserId: userRef('created_by_user_id'),
     createdAt: createdAt(),
   },
@@ -544,8 +568,8 @@ export const tensiometryResults = pgTable(
     id: text('id').primaryKey(),
     organizationId: orgRef(),
     kind: tensiometryKindEnum('kind').notNull(),
-    inputs: jsonb('inputs').$type<Record<string, unknown>>().notNull(),
-    outputs: jsonb('outputs').$type<Record<string, unknown>>().notNull(),
+    inputs: jsonb('inputs').$type<TensiometryInputs>().notNull(),
+    outputs: jsonb('outputs').$type<TensiometryOutputs>().notNull(),
     /**
      * The pendant-drop photo the result was fitted from. No action on delete (as drops.photo_id):
      * a kept result is only checkable with its photo, so a photo in use cannot be deleted on its

@@ -1,0 +1,2 @@
+CREATE TYPE "public"."analysis_method" AS ENUM('young-laplace', 'circle', 'polynomial', 'ellipse', 'height-width', 'manual');--> statement-breakpoint
+ALTER TABLE "analyses" ALTER COLUMN "method" SET DATA TYPE "public"."analysis_method" USING "method"::"public"."analysis_method";
