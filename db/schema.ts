@@ -14,6 +14,7 @@ import {
   text,
   timestamp,
   uniqueIndex,
+  type PgColumnBuilderBase,
 } from 'drizzle-orm/pg-core';
 import { sql } from 'drizzle-orm';
 import type { FitMethod } from '../lib/analysis/types';
@@ -173,6 +174,18 @@ const orgRef = () =>
     .notNull()
     .references(() => organizations.id, { onDelete: 'cascade' });
 const userRef = (name: string) => text(name).references(() => users.id, { onDelete: 'set null' });
+/** The columns every lab record has after its own: version, archive mark and timestamps. */
+const recordTail = () => ({
+  version: version(),
+  archivedAt: archivedAt(),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+});
+/** The same, for a record that names who created it. */
+const createdRecordTail = () => ({
+  ...recordTail(),
+  createdByUserId: userRef('created_by_user_id'),
+});
 
 export const specScopeEnum = pgEnum('spec_scope', ['each-drop', 'mean']);
 
@@ -221,10 +234,7 @@ export const probeLiquids = pgTable(
     /** Where each value comes from, e.g. { total: 'Ström et al. 1987', density: '…' }. */
     sources: jsonb('sources').$type<Record<string, string>>().notNull().default({}),
     hazardNote: text('hazard_note'),
-    version: version(),
-    archivedAt: archivedAt(),
-    createdAt: createdAt(),
-    updatedAt: updatedAt(),
+    ...recordTail(),
   },
   (t) => [index('probe_liquids_org_idx').on(t.organizationId)],
 );
@@ -237,11 +247,7 @@ export const coatings = pgTable(
     code: text('code').notNull(),
     name: text('name').notNull(),
     description: text('description').notNull().default(''),
-    version: version(),
-    archivedAt: archivedAt(),
-    createdByUserId: userRef('created_by_user_id'),
-    createdAt: createdAt(),
-    updatedAt: updatedAt(),
+    ...createdRecordTail(),
   },
   (t) => [uniqueIndex('coatings_org_code_unique').on(t.organizationId, t.code)],
 );
@@ -266,10 +272,7 @@ export const specs = pgTable(
     /** Results count only within this many days of treatment (e.g. plasma-treated film). */
     maxDaysSinceTreatment: doublePrecision('max_days_since_treatment'),
     note: text('note').notNull().default(''),
-    version: version(),
-    archivedAt: archivedAt(),
-    createdAt: createdAt(),
-    updatedAt: updatedAt(),
+    ...recordTail(),
   },
   (t) => [index('specs_coating_idx').on(t.coatingId)],
 );
@@ -288,11 +291,7 @@ export const batches = pgTable(
     producedOn: date('produced_on', { mode: 'string' }).notNull(),
     process: jsonb('process').$type<ProcessParameters>().notNull().default({}),
     notes: text('notes').notNull().default(''),
-    version: version(),
-    archivedAt: archivedAt(),
-    createdByUserId: userRef('created_by_user_id'),
-    createdAt: createdAt(),
-    updatedAt: updatedAt(),
+    ...createdRecordTail(),
   },
   (t) => [
     uniqueIndex('batches_org_lot_unique').on(t.organizationId, t.lotCode),
@@ -313,11 +312,7 @@ export const samples = pgTable(
     position: text('position').notNull().default(''),
     treatedAt: timestamp('treated_at', { withTimezone: true }),
     notes: text('notes').notNull().default(''),
-    version: version(),
-    archivedAt: archivedAt(),
-    createdByUserId: userRef('created_by_user_id'),
-    createdAt: createdAt(),
-    updatedAt: updatedAt(),
+    ...createdRecordTail(),
   },
   (t) => [
     uniqueIndex('samples_batch_label_unique').on(t.batchId, t.label),
@@ -339,11 +334,7 @@ export const measurementSessions = pgTable(
     dropVolumeUl: doublePrecision('drop_volume_ul'),
     scalePxPerMm: doublePrecision('scale_px_per_mm'),
     instrumentNotes: text('instrument_notes').notNull().default(''),
-    version: version(),
-    archivedAt: archivedAt(),
-    createdByUserId: userRef('created_by_user_id'),
-    createdAt: createdAt(),
-    updatedAt: updatedAt(),
+    ...createdRecordTail(),
   },
   (t) => [index('measurement_sessions_org_time_idx').on(t.organizationId, t.measuredAt)],
 );
@@ -441,45 +432,36 @@ export const analyses = pgTable(
 // itself is only ever in the mail.
 // ---------------------------------------------------------------------------------------------
 
+/** A table of single-use tokens of one kind: the user, the token's hash, expiry and use. */
+function tokenTable<Extra extends Record<string, PgColumnBuilderBase>>(name: string, extra: Extra) {
+  return pgTable(
+    name,
+    {
+      id: text('id').primaryKey(),
+      userId: text('user_id')
+        .notNull()
+        .references(() => users.id, { onDelete: 'cascade' }),
+      ...extra,
+      tokenHash: text('token_hash').notNull(),
+      expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+      usedAt: timestamp('used_at', { withTimezone: true }),
+      createdAt: createdAt(),
+    },
+    (t) => [
+      uniqueIndex(`${name}_token_hash_unique`).on(t.tokenHash),
+      index(`${name}_user_idx`).on(t.userId),
+    ],
+  );
+}
+
 /** "Forgot password?": valid for one hour, used once. */
-export const passwordResetTokens = pgTable(
-  'password_reset_tokens',
-  {
-    id: text('id').primaryKey(),
-    userId: text('user_id')
-      .notNull()
-      .references(() => users.id, { onDelete: 'cascade' }),
-    tokenHash: text('token_hash').notNull(),
-    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
-    usedAt: timestamp('used_at', { withTimezone: true }),
-    createdAt: createdAt(),
-  },
-  (t) => [
-    uniqueIndex('password_reset_tokens_token_hash_unique').on(t.tokenHash),
-    index('password_reset_tokens_user_idx').on(t.userId),
-  ],
-);
+export const passwordResetTokens = tokenTable('password_reset_tokens', {});
 
 /** Confirms that the user owns the e-mail address they signed up with. */
-export const emailVerificationTokens = pgTable(
-  'email_verification_tokens',
-  {
-    id: text('id').primaryKey(),
-    userId: text('user_id')
-      .notNull()
-      .references(() => users.id, { onDelete: 'cascade' }),
-    /** The address the link was sent to; verifying only counts while the user still has it. */
-    email: text('email').notNull(),
-    tokenHash: text('token_hash').notNull(),
-    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
-    usedAt: timestamp('used_at', { withTimezone: true }),
-    createdAt: createdAt(),
-  },
-  (t) => [
-    uniqueIndex('email_verification_tokens_token_hash_unique').on(t.tokenHash),
-    index('email_verification_tokens_user_idx').on(t.userId),
-  ],
-);
+export const emailVerificationTokens = tokenTable('email_verification_tokens', {
+  /** The address the link was sent to; verifying only counts while the user still has it. */
+  email: text('email').notNull(),
+});
 
 // ---------------------------------------------------------------------------------------------
 // Review and sign-off: an analyst submits a sample's or a batch's results; a reviewer approves

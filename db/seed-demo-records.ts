@@ -4,10 +4,10 @@ import sharp from 'sharp';
 import { UTApi, UTFile } from 'uploadthing/server';
 import { renderDrop } from '@/fixtures/generator/render';
 import { analyseDrop } from '@/lib/analysis';
-import { SOFTWARE_VERSION } from '@/lib/measure/version';
 import { utapiOptions } from '@/lib/uploads/config';
 import type { Database } from './client';
 import { DEMO_COATINGS, DEMO_LIQUID_IDS, type DemoDrop } from './demo-scenario';
+import { engineAnalysisRow } from './queries/drops';
 import { newId } from './queries/ids';
 import {
   analyses,
@@ -214,24 +214,20 @@ export async function seedDemoRecords(
                 measuredAt,
                 createdByUserId: owner.analystUserId,
               });
-              await tx.insert(analyses).values({
-                id: newId(),
-                organizationId: owner.organizationId,
-                dropId,
-                revision: 1,
-                method: 'young-laplace',
-                baseline: null,
-                options: { scalePxPerMm: SCALE_PX_PER_MM, baselineSource: result.baselineSource },
-                result: kept,
-                leftDeg: result.leftDeg,
-                rightDeg: result.rightDeg,
-                meanDeg: result.meanDeg,
-                leftUncertaintyDeg: result.leftUncertaintyDeg,
-                rightUncertaintyDeg: result.rightUncertaintyDeg,
-                softwareVersion: SOFTWARE_VERSION,
-                createdByUserId: owner.analystUserId,
-                createdAt: measuredAt,
-              });
+              await tx.insert(analyses).values(
+                engineAnalysisRow({
+                  id: newId(),
+                  organizationId: owner.organizationId,
+                  dropId,
+                  revision: 1,
+                  method: 'young-laplace',
+                  baseline: null,
+                  options: { scalePxPerMm: SCALE_PX_PER_MM, baselineSource: result.baselineSource },
+                  result: kept,
+                  createdByUserId: owner.analystUserId,
+                  createdAt: measuredAt,
+                }),
+              );
             }
             dropCount++;
             if (dropCount % 20 === 0)

@@ -1,14 +1,6 @@
 import 'server-only';
 import { and, eq, sql } from 'drizzle-orm';
-import {
-  batches,
-  batchVerdicts,
-  coatings,
-  coatingWatchers,
-  memberships,
-  samples,
-  users,
-} from '../schema';
+import { batchVerdicts, coatingWatchers, memberships, samples, users } from '../schema';
 import { database, type Executor } from './transaction';
 
 /** A batch's overall verdict, as kept to tell when it turns to fail. */
@@ -49,21 +41,6 @@ export async function watchersOf(db: Executor, organizationId: string, coatingId
       and(eq(memberships.userId, users.id), eq(memberships.organizationId, organizationId)),
     )
     .where(eq(coatingWatchers.coatingId, coatingId));
-}
-
-/** A batch of the organization with its coating's id and code; null when there is none. */
-export async function batchWithCoating(organizationId: string, batchId: string) {
-  const [row] = await database()
-    .select({
-      id: batches.id,
-      lotCode: batches.lotCode,
-      coatingId: coatings.id,
-      coatingCode: coatings.code,
-    })
-    .from(batches)
-    .innerJoin(coatings, eq(coatings.id, batches.coatingId))
-    .where(and(eq(batches.id, batchId), eq(batches.organizationId, organizationId)));
-  return row ?? null;
 }
 
 /** Serialises verdict changes of one batch until the transaction ends. */

@@ -1,9 +1,10 @@
 import 'server-only';
-import { eq, getTableColumns, gte, isNull, lte } from 'drizzle-orm';
+import { and, eq, getTableColumns, gte, isNull, lte } from 'drizzle-orm';
 import type { BatchListItem, BatchListQuery } from '@/lib/contracts/batches';
 import type { Page } from '@/lib/contracts/common';
 import { batches, coatings } from '../schema';
 import { listPage, ownedBy, textSearch } from './records';
+import { database } from './transaction';
 
 const SORT_COLUMNS = {
   producedOn: batches.producedOn,
@@ -36,4 +37,24 @@ export async function listBatches(
     sort: SORT_COLUMNS[query.sort],
     query,
   });
+}
+
+/** A batch of the organization with its coating; null when there is none. */
+export async function findBatchWithCoating(organizationId: string, batchId: string) {
+  const [row] = await database()
+    .select({
+      id: batches.id,
+      lotCode: batches.lotCode,
+      producedOn: batches.producedOn,
+      process: batches.process,
+      notes: batches.notes,
+      coatingId: coatings.id,
+      coatingCode: coatings.code,
+      coatingName: coatings.name,
+      coatingDescription: coatings.description,
+    })
+    .from(batches)
+    .innerJoin(coatings, eq(coatings.id, batches.coatingId))
+    .where(and(eq(batches.id, batchId), eq(batches.organizationId, organizationId)));
+  return row ?? null;
 }

@@ -2,7 +2,14 @@ import 'server-only';
 import { and, asc, desc, eq, isNull, sql } from 'drizzle-orm';
 import { getDb } from '../client';
 import { analyses, batches, coatings, drops, probeLiquids, samples } from '../schema';
-import type { AnalysisRevision, DropOfPhoto } from '@/lib/contracts/drops';
+import type { Baseline, FitMethod } from '@/lib/analysis/types';
+import type {
+  AnalysisRevision,
+  DropOfPhoto,
+  KeptAnalysisResult,
+  StoredAnalysisOptions,
+} from '@/lib/contracts/drops';
+import { SOFTWARE_VERSION } from '@/lib/measure/version';
 import { probeLiquidVisibleTo } from './records';
 import type { Executor } from './transaction';
 
@@ -43,6 +50,34 @@ export async function insertDropsAndAnalyses(
   for (let i = 0; i < analysisRows.length; i += 1000) {
     await tx.insert(analyses).values(analysisRows.slice(i, i + 1000));
   }
+}
+
+/**
+ * The row of an analysis the engine computed: the angles and their uncertainties are copied
+ * from the result into their columns (for sorting and statistics), the result is kept whole.
+ */
+export function engineAnalysisRow(input: {
+  id: string;
+  organizationId: string;
+  dropId: string;
+  revision: number;
+  method: FitMethod;
+  baseline: Baseline | null;
+  options: StoredAnalysisOptions;
+  result: KeptAnalysisResult;
+  createdByUserId: string;
+  createdAt?: Date;
+}): NewAnalysis {
+  const { result } = input;
+  return {
+    ...input,
+    leftDeg: result.leftDeg,
+    rightDeg: result.rightDeg,
+    meanDeg: result.meanDeg,
+    leftUncertaintyDeg: result.leftUncertaintyDeg,
+    rightUncertaintyDeg: result.rightUncertaintyDeg,
+    softwareVersion: SOFTWARE_VERSION,
+  };
 }
 
 /** The revision number the drop's next analysis gets. */

@@ -1,41 +1,11 @@
 import 'server-only';
 import { and, desc, eq, isNull, sql } from 'drizzle-orm';
-import {
-  analyses,
-  batches,
-  coatings,
-  drops,
-  probeLiquids,
-  reviews,
-  samples,
-  specs,
-  users,
-} from '../schema';
+import { analyses, drops, probeLiquids, reviews, samples, specs, users } from '../schema';
 import { database } from './transaction';
 
 /*
  * What the certificate of analysis of a batch reads besides the comparison (db/queries/comparison).
  */
-
-/** The batch with its coating; null when the organization has no such batch. */
-export async function findBatchForReport(organizationId: string, batchId: string) {
-  const [batch] = await database()
-    .select({
-      id: batches.id,
-      lotCode: batches.lotCode,
-      producedOn: batches.producedOn,
-      process: batches.process,
-      notes: batches.notes,
-      coatingId: coatings.id,
-      coatingCode: coatings.code,
-      coatingName: coatings.name,
-      coatingDescription: coatings.description,
-    })
-    .from(batches)
-    .innerJoin(coatings, eq(coatings.id, batches.coatingId))
-    .where(and(eq(batches.id, batchId), eq(batches.organizationId, organizationId)));
-  return batch ?? null;
-}
 
 /** The coating's live specs with their probe liquid's name. */
 export async function listSpecsOfCoating(coatingId: string) {

@@ -1,5 +1,5 @@
 import 'server-only';
-import { and, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNull, sql, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import type { AnalysisReviewStatus, Signature } from '@/lib/contracts/reviews';
 import { getDb } from '../client';
@@ -115,54 +115,9 @@ export async function findSampleOfBatch(organizationId: string, batchId: string,
 const submitter = alias(users, 'submitter');
 const decider = alias(users, 'decider');
 
-export async function listReviews(organizationId: string, status?: 'submitted' | 'decided') {
+/** A review with its batch, coating, sample and the people who submitted and decided it. */
+function reviewsWithNames(where: SQL | undefined) {
   return getDb()
-    .select({
-      id: reviews.id,
-      scope: reviews.scope,
-      status: reviews.status,
-      submittedAt: reviews.submittedAt,
-      decidedAt: reviews.decidedAt,
-      submitNote: reviews.submitNote,
-      decisionComment: reviews.decisionComment,
-      analysisIds: reviews.analysisIds,
-      lotCode: batches.lotCode,
-      coatingCode: coatings.code,
-      sampleLabel: samples.label,
-      submittedBy: submitter.name,
-      decidedBy: decider.name,
-    })
-    .from(reviews)
-    .innerJoin(batches, eq(batches.id, reviews.batchId))
-    .innerJoin(coatings, eq(coatings.id, batches.coatingId))
-    .leftJoin(samples, eq(samples.id, reviews.sampleId))
-    .leftJoin(submitter, eq(submitter.id, reviews.submittedByUserId))
-    .leftJoin(decider, eq(decider.id, reviews.decidedByUserId))
-    .where(
-      and(
-        eq(reviews.organizationId, organizationId),
-        status === 'submitted'
-          ? eq(reviews.status, 'submitted')
-          : status === 'decided'
-            ? sql`${reviews.status} <> 'submitted'`
-            : undefined,
-      ),
-    )
-    .orderBy(desc(reviews.submittedAt))
-    .limit(100);
-}
-
-export async function countPendingReviews(organizationId: string): Promise<number> {
-  const [row] = await getDb()
-    .select({ n: sql<number>`count(*)::int` })
-    .from(reviews)
-    .where(and(eq(reviews.organizationId, organizationId), eq(reviews.status, 'submitted')));
-  return row?.n ?? 0;
-}
-
-/** A review with its batch, coating, sample and people; null when there is none here. */
-export async function findReview(organizationId: string, reviewId: string) {
-  const [review] = await getDb()
     .select({
       id: reviews.id,
       scope: reviews.scope,
@@ -190,7 +145,30 @@ export async function findReview(organizationId: string, reviewId: string) {
     .leftJoin(samples, eq(samples.id, reviews.sampleId))
     .leftJoin(submitter, eq(submitter.id, reviews.submittedByUserId))
     .leftJoin(decider, eq(decider.id, reviews.decidedByUserId))
-    .where(and(eq(reviews.organizationId, organizationId), eq(reviews.id, reviewId)));
+    .where(where);
+}
+
+/** The organization's newest 100 reviews; `submitted` for the queue, `decided` for the history. */
+export async function listReviews(organizationId: string, status?: 'submitted' | 'decided') {
+  return reviewsWithNames(
+    and(
+      eq(reviews.organizationId, organizationId),
+      status === 'submitted'
+        ? eq(reviews.status, 'submitted')
+        : status === 'decided'
+          ? sql`${reviews.status} <> 'submitted'`
+          : undefined,
+    ),
+  )
+    .orderBy(desc(reviews.submittedAt))
+    .limit(100);
+}
+
+/** A review of the organization; null when there is none here. */
+export async function findReview(organizationId: string, reviewId: string) {
+  const [review] = await reviewsWithNames(
+    and(eq(reviews.organizationId, organizationId), eq(reviews.id, reviewId)),
+  );
   return review ?? null;
 }
 

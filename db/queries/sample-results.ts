@@ -19,6 +19,23 @@ import { listSamples } from './samples';
 
 const WATER = builtInProbeLiquidId('water');
 
+/** Each drop's latest analysis revision (the organization's), as a subquery to join. */
+function latestAnalyses(organizationId: string) {
+  return getDb()
+    .selectDistinctOn([analyses.dropId], {
+      dropId: analyses.dropId,
+      method: analyses.method,
+      leftDeg: analyses.leftDeg,
+      rightDeg: analyses.rightDeg,
+      meanDeg: analyses.meanDeg,
+      revision: analyses.revision,
+    })
+    .from(analyses)
+    .where(eq(analyses.organizationId, organizationId))
+    .orderBy(analyses.dropId, sql`${analyses.revision} desc`)
+    .as('latest');
+}
+
 /** Drop counts and mean water contact angle of the given samples (latest revision per drop). */
 export async function sampleResults(
   organizationId: string,
@@ -26,12 +43,7 @@ export async function sampleResults(
 ): Promise<Map<string, SampleResults>> {
   const out = new Map<string, SampleResults>();
   if (sampleIds.length === 0) return out;
-  const latest = getDb()
-    .selectDistinctOn([analyses.dropId], { dropId: analyses.dropId, meanDeg: analyses.meanDeg })
-    .from(analyses)
-    .where(eq(analyses.organizationId, organizationId))
-    .orderBy(analyses.dropId, sql`${analyses.revision} desc`)
-    .as('latest');
+  const latest = latestAnalyses(organizationId);
   const rows = await getDb()
     .select({
       sampleId: drops.sampleId,
@@ -86,19 +98,7 @@ export async function listBatchDrops(
   batchId: string,
   limit = 200,
 ): Promise<BatchDrop[]> {
-  const latest = getDb()
-    .selectDistinctOn([analyses.dropId], {
-      dropId: analyses.dropId,
-      method: analyses.method,
-      leftDeg: analyses.leftDeg,
-      rightDeg: analyses.rightDeg,
-      meanDeg: analyses.meanDeg,
-      revision: analyses.revision,
-    })
-    .from(analyses)
-    .where(eq(analyses.organizationId, organizationId))
-    .orderBy(analyses.dropId, sql`${analyses.revision} desc`)
-    .as('latest');
+  const latest = latestAnalyses(organizationId);
   return getDb()
     .select({
       dropId: drops.id,

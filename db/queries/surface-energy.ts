@@ -1,5 +1,5 @@
 import 'server-only';
-import { and, desc, eq, inArray, isNull, max, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNull, max, sql, type SQL } from 'drizzle-orm';
 import type {
   SavedSurfaceEnergyResult,
   SubjectSummary,
@@ -18,7 +18,27 @@ import {
   surfaceEnergyResults,
   users,
 } from '../schema';
+import { findBatchWithCoating } from './batches';
 import type { Executor } from './transaction';
+
+/** Samples with their batch and coating. */
+function samplesWithBatchAndCoating(where: SQL | undefined) {
+  return getDb()
+    .select({
+      sampleId: samples.id,
+      sampleLabel: samples.label,
+      treatedAt: samples.treatedAt,
+      batchId: batches.id,
+      lotCode: batches.lotCode,
+      coatingId: coatings.id,
+      coatingCode: coatings.code,
+      coatingName: coatings.name,
+    })
+    .from(samples)
+    .innerJoin(batches, eq(batches.id, samples.batchId))
+    .innerJoin(coatings, eq(coatings.id, batches.coatingId))
+    .where(where);
+}
 
 /** The sample (or batch) with its batch, coating and surface-energy specs; null when not here. */
 export async function findSurfaceEnergySubject(
@@ -27,33 +47,15 @@ export async function findSurfaceEnergySubject(
 ): Promise<SubjectSummary | null> {
   const db = getDb();
   const byBatch = 'batchId' in subject;
-  const [row] = byBatch
-    ? await db
-        .select({
-          batchId: batches.id,
-          lotCode: batches.lotCode,
-          coatingId: coatings.id,
-          coatingCode: coatings.code,
-          coatingName: coatings.name,
-        })
-        .from(batches)
-        .innerJoin(coatings, eq(coatings.id, batches.coatingId))
-        .where(and(eq(batches.id, subject.batchId), eq(batches.organizationId, organizationId)))
-    : await db
-        .select({
-          sampleId: samples.id,
-          sampleLabel: samples.label,
-          treatedAt: samples.treatedAt,
-          batchId: batches.id,
-          lotCode: batches.lotCode,
-          coatingId: coatings.id,
-          coatingCode: coatings.code,
-          coatingName: coatings.name,
-        })
-        .from(samples)
-        .innerJoin(batches, eq(batches.id, samples.batchId))
-        .innerJoin(coatings, eq(coatings.id, batches.coatingId))
-        .where(and(eq(samples.id, subject.sampleId), eq(samples.organizationId, organizationId)));
+  const row = byBatch
+    ? await findBatchWithCoating(organizationId, subject.batchId).then(
+        (batch) => batch && { ...batch, batchId: batch.id },
+      )
+    : (
+        await samplesWithBatchAndCoating(
+          and(eq(samples.id, subject.sampleId), eq(samples.organizationId, organizationId)),
+        )
+      )[0];
   if (!row) return null;
   const specRows = await db
     .select({
@@ -72,11 +74,8 @@ export async function findSurfaceEnergySubject(
         sql`(${specs.minSurfaceEnergyMnM} is not null or ${specs.maxSurfaceEnergyMnM} is not null)`,
       ),
     );
-  const sampleRow = row as Partial<{
-    sampleId: string;
-    sampleLabel: string;
-    treatedAt: Date | null;
-  }>;
+  const sampleRow: Partial<{ sampleId: string; sampleLabel: string; treatedAt: Date | null }> =
+    'sampleId' in row ? row : {};
   return {
     kind: byBatch ? 'batch' : 'sample',
     id: byBatch ? row.batchId : (sampleRow.sampleId as string),
@@ -181,27 +180,14 @@ export async function listSurfaceEnergyResults(
 export async function listSurfaceEnergyChoices(
   organizationId: string,
 ): Promise<SurfaceEnergyChoice[]> {
-  return getDb()
-    .select({
-      sampleId: samples.id,
-      sampleLabel: samples.label,
-      batchId: batches.id,
-      lotCode: batches.lotCode,
-      coatingId: coatings.id,
-      coatingCode: coatings.code,
-      coatingName: coatings.name,
-    })
-    .from(samples)
-    .innerJoin(batches, eq(batches.id, samples.batchId))
-    .innerJoin(coatings, eq(coatings.id, batches.coatingId))
-    .where(
-      and(
-        eq(samples.organizationId, organizationId),
-        isNull(samples.archivedAt),
-        isNull(batches.archivedAt),
-        isNull(coatings.archivedAt),
-      ),
-    )
+  return samplesWithBatchAndCoating(
+    and(
+      eq(samples.organizationId, organizationId),
+      isNull(samples.archivedAt),
+      isNull(batches.archivedAt),
+      isNull(coatings.archivedAt),
+    ),
+  )
     .orderBy(coatings.code, batches.lotCode, samples.label)
     .limit(2000);
 }

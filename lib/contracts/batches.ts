@@ -1,12 +1,11 @@
 import { z } from 'zod';
 import {
   codeText,
-  deleteOutcomeSchema,
+  recordReplies,
   filterId,
   id,
   isoDate,
   listQuerySchema,
-  pageSchema,
   rangedNumber,
   recordColumns,
   recordId,
@@ -118,9 +117,5 @@ export const batchListItemSchema = batchSchema.extend({
 });
 export type BatchListItem = z.output<typeof batchListItemSchema>;
 
-export const batchPageSchema = pageSchema(batchListItemSchema);
-export const batchResponseSchema = z.object({ batch: batchSchema });
-export const batchDeleteResponseSchema = z.object({
-  outcome: deleteOutcomeSchema,
-  batch: batchSchema,
-});
+/** GET list → page, POST/GET/PATCH → one, DELETE → deleted. */
+export const batchReplies = recordReplies('batch', batchSchema, batchListItemSchema);

@@ -1,10 +1,9 @@
 import { z } from 'zod';
 import {
   codeText,
-  deleteOutcomeSchema,
+  recordReplies,
   id,
   listQuerySchema,
-  pageSchema,
   recordColumns,
   requiredText,
   text,
@@ -49,9 +48,5 @@ export const coatingSchema = z.object({
 });
 export type Coating = z.output<typeof coatingSchema>;
 
-export const coatingPageSchema = pageSchema(coatingSchema);
-export const coatingResponseSchema = z.object({ coating: coatingSchema });
-export const coatingDeleteResponseSchema = z.object({
-  outcome: deleteOutcomeSchema,
-  coating: coatingSchema,
-});
+/** GET list → page, POST/GET/PATCH → one, DELETE → deleted. */
+export const coatingReplies = recordReplies('coating', coatingSchema, coatingSchema);

@@ -220,6 +220,23 @@ export type ArchiveOrDeleteQuery = z.output<typeof archiveOrDeleteQuerySchema>;
 /** The answer to DELETE of a record: archived (results depend on it) or deleted. */
 export const deleteOutcomeSchema = z.enum(['archived', 'deleted']);
 
+/**
+ * The replies of a kind of record's routes: a list page of `item`, one record under `key`
+ * (`{ coating }`), and DELETE's `{ outcome, <key> }`.
+ */
+export function recordReplies<Key extends string, Record extends z.ZodType, Item extends z.ZodType>(
+  key: Key,
+  record: Record,
+  item: Item,
+) {
+  const one = { [key]: record } as { [K in Key]: Record };
+  return {
+    page: pageSchema(item),
+    one: z.object(one),
+    deleted: z.object({ outcome: deleteOutcomeSchema, ...one }),
+  };
+}
+
 /** The list query of one kind of record: `q`, `includeArchived`, sort, page, and its filters. */
 export function listQuerySchema<
   const Sort extends readonly [string, ...string[]],

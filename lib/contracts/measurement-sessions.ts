@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import {
-  deleteOutcomeSchema,
+  recordReplies,
   filterId,
   id,
   isoDate,
@@ -8,7 +8,6 @@ import {
   listQuerySchema,
   optionalNumber,
   optionalRecordId,
-  pageSchema,
   recordColumns,
   requiredNumber,
   requiredText,
@@ -91,11 +90,9 @@ export const measurementSessionListItemSchema = measurementSessionSchema.extend(
 });
 export type MeasurementSessionListItem = z.output<typeof measurementSessionListItemSchema>;
 
-export const measurementSessionPageSchema = pageSchema(measurementSessionListItemSchema);
-export const measurementSessionResponseSchema = z.object({
-  measurementSession: measurementSessionSchema,
-});
-export const measurementSessionDeleteResponseSchema = z.object({
-  outcome: deleteOutcomeSchema,
-  measurementSession: measurementSessionSchema,
-});
+/** GET list → page, POST/GET/PATCH → one, DELETE → deleted. */
+export const measurementSessionReplies = recordReplies(
+  'measurementSession',
+  measurementSessionSchema,
+  measurementSessionListItemSchema,
+);

@@ -1,12 +1,11 @@
 import { z } from 'zod';
 import {
-  deleteOutcomeSchema,
+  recordReplies,
   emptyToNull,
   given,
   id,
   listQuerySchema,
   optionalNumber,
-  pageSchema,
   recordColumns,
   report,
   requiredNumber,
@@ -172,9 +171,9 @@ export const probeLiquidSchema = z.object({
 });
 export type ProbeLiquid = z.output<typeof probeLiquidSchema>;
 
-export const probeLiquidPageSchema = pageSchema(probeLiquidSchema);
-export const probeLiquidResponseSchema = z.object({ probeLiquid: probeLiquidSchema });
-export const probeLiquidDeleteResponseSchema = z.object({
-  outcome: deleteOutcomeSchema,
-  probeLiquid: probeLiquidSchema,
-});
+/** GET list → page, POST/GET/PATCH → one, DELETE → deleted. */
+export const probeLiquidReplies = recordReplies(
+  'probeLiquid',
+  probeLiquidSchema,
+  probeLiquidSchema,
+);

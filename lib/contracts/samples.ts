@@ -1,12 +1,11 @@
 import { z } from 'zod';
 import {
-  deleteOutcomeSchema,
+  recordReplies,
   emptyToNull,
   filterId,
   id,
   isoDateTime,
   listQuerySchema,
-  pageSchema,
   recordColumns,
   recordId,
   requiredText,
@@ -99,9 +98,5 @@ export const batchDropSchema = z.object({
 });
 export type BatchDrop = z.output<typeof batchDropSchema>;
 
-export const samplePageSchema = pageSchema(sampleListItemSchema);
-export const sampleResponseSchema = z.object({ sample: sampleSchema });
-export const sampleDeleteResponseSchema = z.object({
-  outcome: deleteOutcomeSchema,
-  sample: sampleSchema,
-});
+/** GET list → page, POST/GET/PATCH → one, DELETE → deleted. */
+export const sampleReplies = recordReplies('sample', sampleSchema, sampleListItemSchema);

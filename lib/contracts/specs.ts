@@ -1,12 +1,11 @@
 import { z } from 'zod';
 import {
-  deleteOutcomeSchema,
+  recordReplies,
   filterId,
   given,
   id,
   listQuerySchema,
   optionalNumber,
-  pageSchema,
   recordColumns,
   recordId,
   report,
@@ -130,9 +129,5 @@ export const specListItemSchema = specSchema.extend({
 });
 export type SpecListItem = z.output<typeof specListItemSchema>;
 
-export const specPageSchema = pageSchema(specListItemSchema);
-export const specResponseSchema = z.object({ spec: specSchema });
-export const specDeleteResponseSchema = z.object({
-  outcome: deleteOutcomeSchema,
-  spec: specSchema,
-});
+/** GET list → page, POST/GET/PATCH → one, DELETE → deleted. */
+export const specReplies = recordReplies('spec', specSchema, specListItemSchema);

@@ -4,6 +4,7 @@ import {
   surfaceEnergyWithUncertainty,
   SurfaceEnergyInputError,
   type AngleMeasurement,
+  type LiquidComponents,
   type SurfaceEnergyMethod,
   type ValueWithUncertainty,
 } from './index';
@@ -41,16 +42,9 @@ export const SURFACE_ENERGY_METHOD_NAMES: Record<SurfaceEnergyMethod, string> = 
 export const UNCERTAINTY_BASES = ['mean', 'single'] as const;
 export type UncertaintyBasis = (typeof UNCERTAINTY_BASES)[number];
 
-/** One probe liquid with its components (mN/m) and the mean angle measured with it. */
-export type LiquidAngle = {
+/** One probe liquid with its components (mN/m), the mean angle measured with it, SD and n. */
+export type LiquidAngle = LiquidComponents & {
   probeLiquidId?: string;
-  name: string;
-  gammaTotal: number;
-  gammaDispersive: number;
-  gammaPolar: number;
-  gammaLW?: number;
-  gammaPlus?: number;
-  gammaMinus?: number;
   angleDeg: number;
   angleSdDeg?: number;
   n?: number;

@@ -1,13 +1,13 @@
 import 'server-only';
 import {
   batchIdOfSample,
-  batchWithCoating,
   findBatchVerdict,
   lockBatchVerdict,
   saveBatchVerdict,
   watchersOf,
 } from '@/db/queries/alerts';
 import { recordAudit } from '@/db/queries/audit';
+import { findBatchWithCoating } from '@/db/queries/batches';
 import { loadComparison } from '@/db/queries/comparison';
 import { inTransaction } from '@/db/queries/transaction';
 import { outOfSpecMail, overallOutcome, type BatchOutcome } from '@/lib/alerts/out-of-spec';
@@ -25,7 +25,7 @@ export async function refreshBatchVerdict(
   organizationId: string,
   batchId: string,
 ): Promise<BatchOutcome | null> {
-  const batch = await batchWithCoating(organizationId, batchId);
+  const batch = await findBatchWithCoating(organizationId, batchId);
   if (!batch) return null;
   const loaded = await loadComparison(organizationId, batch.coatingId, {
     batches: [batchId],

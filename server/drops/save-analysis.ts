@@ -1,6 +1,7 @@
 import 'server-only';
 import { recordAudit } from '@/db/queries/audit';
 import {
+  engineAnalysisRow,
   findLiveDropOfPhoto,
   insertDropsAndAnalyses,
   lockPhotoDrops,
@@ -20,7 +21,6 @@ import type {
   SaveDropAnalysisInput,
   SavedDropAnalysis,
 } from '@/lib/contracts/drops';
-import { SOFTWARE_VERSION } from '@/lib/measure/version';
 import type { Actor } from '../actor';
 import { refreshVerdictOfSampleQuietly } from '../alerts/refresh-verdict';
 import { loadPhotoGray } from '../photos/pixels';
@@ -128,26 +128,17 @@ export async function saveDropAnalysis(
     const revision = existing ? await nextRevision(tx, dropId) : 1;
     const analysisId = newId();
     await insertDropsAndAnalyses(tx, newDrop, [
-      {
+      engineAnalysisRow({
         id: analysisId,
         organizationId: actor.organizationId,
         dropId,
         revision,
         method: input.method,
         baseline: input.baseline,
-        options: {
-          scalePxPerMm: input.scalePxPerMm ?? null,
-          baselineSource: result.baselineSource,
-        },
+        options: { scalePxPerMm: input.scalePxPerMm ?? null, baselineSource: result.baselineSource },
         result,
-        leftDeg: result.leftDeg,
-        rightDeg: result.rightDeg,
-        meanDeg: result.meanDeg,
-        leftUncertaintyDeg: result.leftUncertaintyDeg,
-        rightUncertaintyDeg: result.rightUncertaintyDeg,
-        softwareVersion: SOFTWARE_VERSION,
         createdByUserId: actor.userId,
-      },
+      }),
     ]);
     if (!existing) await audit('drop.create', 'drop', dropId, { after: { photoId, ...placement } });
     await audit('analysis.create', 'analysis', analysisId, {

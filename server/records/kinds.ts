@@ -137,17 +137,10 @@ export const specRecords = defineRecordKind({
   list: listSpecs,
   exportCsv: csvExport({ fileStem: 'specs', columns: () => specColumns, list: listSpecs }),
   present: same<Spec>,
+  // Limits not given are null; the database's defaults fill the rest.
   toInsert: (actor, input) => ({
+    ...withoutUndefined(input),
     organizationId: actor.organizationId,
-    coatingId: input.coatingId,
-    probeLiquidId: input.probeLiquidId,
-    minDeg: input.minDeg ?? null,
-    maxDeg: input.maxDeg ?? null,
-    scope: input.scope,
-    minSurfaceEnergyMnM: input.minSurfaceEnergyMnM ?? null,
-    maxSurfaceEnergyMnM: input.maxSurfaceEnergyMnM ?? null,
-    maxDaysSinceTreatment: input.maxDaysSinceTreatment ?? null,
-    note: input.note ?? '',
   }),
   toUpdate: (changes) => changes,
   async checkCreate(tx, organizationId, input) {
@@ -287,18 +280,10 @@ export const probeLiquidRecords = defineRecordKind({
     list: listProbeLiquids,
   }),
   present: withOrigin,
+  // Components not given are null; the database's defaults fill the rest.
   toInsert: (actor, input) => ({
+    ...withoutUndefined(input),
     organizationId: actor.organizationId,
-    name: input.name,
-    totalMnM: input.totalMnM,
-    dispersiveMnM: input.dispersiveMnM ?? null,
-    polarMnM: input.polarMnM ?? null,
-    lifshitzVanDerWaalsMnM: input.lifshitzVanDerWaalsMnM ?? null,
-    acidMnM: input.acidMnM ?? null,
-    baseMnM: input.baseMnM ?? null,
-    densityGPerCm3: input.densityGPerCm3 ?? null,
-    sources: input.sources ?? {},
-    hazardNote: input.hazardNote ?? null,
   }),
   toUpdate: (changes) => changes,
   async checkUpdate(_tx, _organizationId, before, changes) {

@@ -1,7 +1,7 @@
 import 'server-only';
+import { findBatchWithCoating } from '@/db/queries/batches';
 import { loadComparison } from '@/db/queries/comparison';
 import {
-  findBatchForReport,
   latestAnalysisOfDrop,
   latestApprovedBatchReview,
   listSamplesWithDropCounts,
@@ -59,7 +59,7 @@ export async function buildBatchReport(
   batchId: string,
 ): Promise<{ pdf: Buffer; fileName: string }> {
   const organizationId = ctx.organization.id;
-  const batch = await findBatchForReport(organizationId, batchId);
+  const batch = await findBatchWithCoating(organizationId, batchId);
   if (!batch) throw notFound('That batch');
   const approvedOnly = !can(ctx.organization.role, 'results:read-all');
   const loaded = await loadComparison(organizationId, batch.coatingId, {

@@ -2,14 +2,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { closeDb, getDb } from '@/db/client';
 import { ensureProbeLiquidLibrary } from '@/db/probe-liquid-library';
-import { newId } from '@/db/queries/ids';
-import { auditEvents, batches, coatings, samples, specs } from '@/db/schema';
+import { auditEvents } from '@/db/schema';
 import { POST as importCsv } from '@/app/api/batches/[id]/import/route';
 import { PUT as watch } from '@/app/api/coatings/[id]/watch/route';
 import { closeMailQueue } from '@/server/mail/queue';
 import { apiRequest } from '../support/request';
 import { createMember, createOrganization } from '../support/fixtures';
 import { mailJobsTo } from '../team/support';
+import { insertBatch, insertCoating, insertSample, insertWaterSpec } from '../support/seed';
 
 type Member = Awaited<ReturnType<typeof createMember>>;
 let admin: Member;
@@ -18,34 +18,14 @@ let coatingId: string;
 let batchId: string;
 
 beforeAll(async () => {
-  const db = getDb();
-  await ensureProbeLiquidLibrary(db);
+  await ensureProbeLiquidLibrary(getDb());
   const lab = await createOrganization();
   admin = await createMember(lab.id, 'admin');
   analyst = await createMember(lab.id, 'analyst');
-  coatingId = newId();
-  batchId = newId();
-  await db
-    .insert(coatings)
-    .values({ id: coatingId, organizationId: lab.id, code: 'AL-1', name: 'Alert test coat' });
-  await db.insert(specs).values({
-    id: newId(),
-    organizationId: lab.id,
-    coatingId,
-    probeLiquidId: 'liquid-water',
-    minDeg: 100,
-    scope: 'each-drop',
-  });
-  await db
-    .insert(batches)
-    .values({
-      id: batchId,
-      organizationId: lab.id,
-      coatingId,
-      lotCode: 'AL-B1',
-      producedOn: '2026-11-20',
-    });
-  await db.insert(samples).values({ id: newId(), organizationId: lab.id, batchId, label: 'S1' });
+  coatingId = await insertCoating(lab.id, 'AL-1', 'Alert test coat');
+  await insertWaterSpec(lab.id, coatingId, 100);
+  batchId = await insertBatch(lab.id, coatingId, 'AL-B1', '2026-11-20');
+  await insertSample(lab.id, batchId, 'S1');
 });
 
 afterAll(async () => {

@@ -1,15 +1,19 @@
 /** The comparison query, its CSV export and the dashboard queries against real PostgreSQL. */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { closeDb, getDb } from '@/db/client';
-import { specs } from '@/db/schema';
-import { newId } from '@/db/queries/ids';
+import { closeDb } from '@/db/client';
 import { comparisonDrops, findComparisonCoating, loadComparison } from '@/db/queries/comparison';
 import { outOfSpecBatches, pendingReviewCount, recentDrops } from '@/server/dashboard/load';
 import * as exportRoute from '@/app/api/compare/drops.csv/route';
 import { CSV_HEADER } from '@/lib/compare';
 import { apiRequest } from '../support/request';
 import { createLab, ensureLibrary, unique, type Lab } from '../records/helpers';
-import { insertBatch, insertCoating, insertDrop, insertSample } from '../support/seed';
+import {
+  insertBatch,
+  insertCoating,
+  insertDrop,
+  insertSample,
+  insertWaterSpec,
+} from '../support/seed';
 
 type Status = 'draft' | 'submitted' | 'approved' | 'rejected';
 
@@ -30,7 +34,12 @@ const addSample = (orgId: string, batchId: string, label: string) =>
   insertSample(orgId, batchId, label, new Date('2026-03-01T08:00:00Z'));
 
 /** A drop with one analysis per [meanDeg, status] given (left/right 1° either side), revision 1, 2, … */
-const addDrop = (orgId: string, sampleId: string, revisions: [number, Status][], measuredAt: string) =>
+const addDrop = (
+  orgId: string,
+  sampleId: string,
+  revisions: [number, Status][],
+  measuredAt: string,
+) =>
   insertDrop(orgId, sampleId, {
     measuredAt: new Date(measuredAt),
     revisions: revisions.map(([meanDeg, reviewStatus]) => ({
@@ -47,14 +56,7 @@ beforeAll(async () => {
   other = await createLab();
   coatingCode = unique('CMP');
   coatingId = await addCoating(lab.id, coatingCode);
-  await getDb().insert(specs).values({
-    id: newId(),
-    organizationId: lab.id,
-    coatingId,
-    probeLiquidId: 'liquid-water',
-    minDeg: 100,
-    scope: 'each-drop',
-  });
+  await insertWaterSpec(lab.id, coatingId, 100);
   lotOld = unique('B');
   lotNew = unique('B');
   batchOld = await addBatch(lab.id, coatingId, lotOld, '2026-03-01');
@@ -62,18 +64,39 @@ beforeAll(async () => {
   const sOld = await addSample(lab.id, batchOld, 'P1');
   const sNew = await addSample(lab.id, batchNew, 'P1');
   // Old batch: three approved drops, the first re-analysed (rev 2 replaces rev 1).
-  dropIds.reanalysed = await addDrop(lab.id, sOld, [[90, 'approved'], [110, 'approved']], '2026-03-02T10:00:00Z');
+  dropIds.reanalysed = await addDrop(
+    lab.id,
+    sOld,
+    [
+      [90, 'approved'],
+      [110, 'approved'],
+    ],
+    '2026-03-02T10:00:00Z',
+  );
   dropIds.old2 = await addDrop(lab.id, sOld, [[111, 'approved']], '2026-03-02T10:01:00Z');
   dropIds.old3 = await addDrop(lab.id, sOld, [[112, 'approved']], '2026-03-02T10:02:00Z');
   // New batch: one draft, one submitted, one approved then re-analysed as a draft, one approved.
   dropIds.draft = await addDrop(lab.id, sNew, [[98, 'draft']], '2026-03-09T10:00:00Z');
   dropIds.submitted = await addDrop(lab.id, sNew, [[99, 'submitted']], '2026-03-09T10:01:00Z');
-  dropIds.supersededApproval = await addDrop(lab.id, sNew, [[104, 'approved'], [97, 'draft']], '2026-03-09T10:02:00Z');
+  dropIds.supersededApproval = await addDrop(
+    lab.id,
+    sNew,
+    [
+      [104, 'approved'],
+      [97, 'draft'],
+    ],
+    '2026-03-09T10:02:00Z',
+  );
   dropIds.newApproved = await addDrop(lab.id, sNew, [[105, 'approved']], '2026-03-09T10:03:00Z');
   // Another organization with a batch of the same coating code.
   const otherCoating = await addCoating(other.id, coatingCode);
   otherBatch = await addBatch(other.id, otherCoating, unique('B'), '2026-03-05');
-  await addDrop(other.id, await addSample(other.id, otherBatch, 'P1'), [[150, 'approved']], '2026-03-06T10:00:00Z');
+  await addDrop(
+    other.id,
+    await addSample(other.id, otherBatch, 'P1'),
+    [[150, 'approved']],
+    '2026-03-06T10:00:00Z',
+  );
 });
 
 afterAll(async () => {
@@ -115,7 +138,10 @@ describe('comparison query', () => {
   });
 
   it('loads the chosen batches by lot code, with the specs and liquids', async () => {
-    const data = await loadComparison(lab.id, coatingId, { batches: [lotNew], approvedOnly: false });
+    const data = await loadComparison(lab.id, coatingId, {
+      batches: [lotNew],
+      approvedOnly: false,
+    });
     expect(data.batches.map((b) => b.lotCode)).toEqual([lotNew]);
     expect(data.allBatches.map((b) => b.lotCode)).toEqual([lotNew, lotOld]);
     expect(data.drops).toHaveLength(4);
@@ -125,17 +151,26 @@ describe('comparison query', () => {
 });
 
 async function exportCsv(sessionId: string, query: string) {
-  const response = await exportRoute.GET(apiRequest(`/api/compare/drops.csv?${query}`, { sessionId }), {});
+  const response = await exportRoute.GET(
+    apiRequest(`/api/compare/drops.csv?${query}`, { sessionId }),
+    {},
+  );
   return { response, text: await response.text() };
 }
 
 describe('CSV export of the raw drops', () => {
   it('writes a UTF-8 header with units and one row per drop', async () => {
-    const { response, text } = await exportCsv(lab.members.analyst.sessionId, `coating=${coatingCode}`);
+    const { response, text } = await exportCsv(
+      lab.members.analyst.sessionId,
+      `coating=${coatingCode}`,
+    );
     expect(response.status).toBe(200);
     expect(response.headers.get('content-type')).toBe('text/csv; charset=utf-8');
     expect(response.headers.get('content-disposition')).toContain('attachment');
-    const lines = text.replace(/^\uFEFF/, '').trimEnd().split('\r\n');
+    const lines = text
+      .replace(/^\uFEFF/, '')
+      .trimEnd()
+      .split('\r\n');
     expect(lines[0]).toBe(CSV_HEADER.join(','));
     expect(lines[0]).toContain('Left angle (°)');
     expect(lines[0]).toContain('Mean angle (°)');
@@ -146,17 +181,23 @@ describe('CSV export of the raw drops', () => {
   });
 
   it('applies the batch filter', async () => {
-    const { text } = await exportCsv(lab.members.admin.sessionId, `coating=${coatingId}&batches=${lotOld}`);
+    const { text } = await exportCsv(
+      lab.members.admin.sessionId,
+      `coating=${coatingId}&batches=${lotOld}`,
+    );
     expect(text.trimEnd().split('\r\n')).toHaveLength(1 + 3);
   });
 
   it('is refused to viewers, who may not export', async () => {
-    const { response, text } = await exportCsv(lab.members.viewer.sessionId, `coating=${coatingCode}`);
+    const { response, text } = await exportCsv(
+      lab.members.viewer.sessionId,
+      `coating=${coatingCode}`,
+    );
     expect(response.status).toBe(403);
     expect(JSON.parse(text).error.code).toBe('forbidden');
   });
 
-  it('does not export another organization\'s coating', async () => {
+  it("does not export another organization's coating", async () => {
     const { response } = await exportCsv(other.members.analyst.sessionId, `coating=${coatingId}`);
     expect(response.status).toBe(404);
   });

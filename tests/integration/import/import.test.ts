@@ -6,15 +6,7 @@ import { analyses, auditEvents, drops } from '@/db/schema';
 import * as importRoute from '@/app/api/batches/[id]/import/route';
 import { SOFTWARE_VERSION } from '@/lib/measure/version';
 import { apiRequest } from '../support/request';
-import {
-  api,
-  bodies,
-  createLab,
-  ensureLibrary,
-  resources,
-  unique,
-  type Lab,
-} from '../records/helpers';
+import { bodies, created, labWithBatch, resources, unique, type Lab } from '../records/helpers';
 
 let lab: Lab;
 let analyst: string;
@@ -22,30 +14,13 @@ let batchId: string;
 let otherBatchId: string;
 
 beforeAll(async () => {
-  await ensureLibrary();
-  lab = await createLab();
-  const admin = lab.members.admin.sessionId;
-  analyst = lab.members.analyst.sessionId;
-  const coatingId = (
-    await api.create(resources.coatings, { sessionId: admin, body: bodies.coating() })
-  ).body.coating.id;
-  batchId = (
-    await api.create(resources.batches, { sessionId: analyst, body: bodies.batch(coatingId) })
-  ).body.batch.id;
-  otherBatchId = (
-    await api.create(resources.batches, { sessionId: analyst, body: bodies.batch(coatingId) })
-  ).body.batch.id;
+  let coatingId: string;
+  ({ lab, analyst, coatingId, batchId } = await labWithBatch());
+  otherBatchId = await created(resources.batches, analyst, bodies.batch(coatingId));
   for (const label of ['P-01', 'P-02']) {
-    const response = await api.create(resources.samples, {
-      sessionId: analyst,
-      body: bodies.sample(batchId, label),
-    });
-    expect(response.status).toBe(201);
+    await created(resources.samples, analyst, bodies.sample(batchId, label));
   }
-  await api.create(resources.samples, {
-    sessionId: analyst,
-    body: bodies.sample(otherBatchId, 'Q-01'),
-  });
+  await created(resources.samples, analyst, bodies.sample(otherBatchId, 'Q-01'));
 });
 
 afterAll(async () => {

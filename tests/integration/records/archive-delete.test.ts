@@ -4,10 +4,9 @@
  * probe liquid) and deletes one with nothing under it. Each writes its audit row.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { closeDb, getDb } from '@/db/client';
-import { newId } from '@/db/queries/ids';
-import { drops } from '@/db/schema';
-import { api, auditOf, bodies, createLab, ensureLibrary, resources, type Lab } from './helpers';
+import { closeDb } from '@/db/client';
+import { insertDrop } from '../support/seed';
+import { api, auditOf, bodies, labWithBatch, resources, type Lab } from './helpers';
 
 let lab: Lab;
 let admin: string;
@@ -16,15 +15,7 @@ let coatingId: string;
 let batchId: string;
 
 beforeAll(async () => {
-  await ensureLibrary();
-  lab = await createLab();
-  admin = lab.members.admin.sessionId;
-  analyst = lab.members.analyst.sessionId;
-  coatingId = (await api.create(resources.coatings, { sessionId: admin, body: bodies.coating() }))
-    .body.coating.id;
-  batchId = (
-    await api.create(resources.batches, { sessionId: admin, body: bodies.batch(coatingId) })
-  ).body.batch.id;
+  ({ lab, admin, analyst, coatingId, batchId } = await labWithBatch());
 });
 
 afterAll(async () => {
@@ -32,16 +23,8 @@ afterAll(async () => {
 });
 
 /** A drop read by hand (no photo), as an import would make it. */
-async function addDrop(sampleId: string, sessionId: string | null = null) {
-  await getDb().insert(drops).values({
-    id: newId(),
-    organizationId: lab.id,
-    sampleId,
-    probeLiquidId: 'liquid-water',
-    sessionId,
-    source: 'import',
-  });
-}
+const addDrop = (sampleId: string, sessionId: string | null = null) =>
+  insertDrop(lab.id, sampleId, { sessionId });
 
 describe('DELETE', () => {
   it('deletes a sample with no drops; it is gone, and the audit row keeps what it was', async () => {

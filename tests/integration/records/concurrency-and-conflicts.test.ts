@@ -10,8 +10,8 @@ import {
   auditOf,
   auditSince,
   bodies,
-  createLab,
-  ensureLibrary,
+  created,
+  labWithBatch,
   lastAuditId,
   resources,
   type Lab,
@@ -27,28 +27,12 @@ let foreignBatchId: string;
 let foreignLiquidId: string;
 
 beforeAll(async () => {
-  await ensureLibrary();
-  lab = await createLab();
-  otherLab = await createLab();
-  admin = lab.members.admin.sessionId;
-  const otherAdmin = otherLab.members.admin.sessionId;
-  coatingId = (await api.create(resources.coatings, { sessionId: admin, body: bodies.coating() }))
-    .body.coating.id;
-  batchId = (
-    await api.create(resources.batches, { sessionId: admin, body: bodies.batch(coatingId) })
-  ).body.batch.id;
-  foreignCoatingId = (
-    await api.create(resources.coatings, { sessionId: otherAdmin, body: bodies.coating() })
-  ).body.coating.id;
-  foreignBatchId = (
-    await api.create(resources.batches, {
-      sessionId: otherAdmin,
-      body: bodies.batch(foreignCoatingId),
-    })
-  ).body.batch.id;
-  foreignLiquidId = (
-    await api.create(resources.probeLiquids, { sessionId: otherAdmin, body: bodies.probeLiquid() })
-  ).body.probeLiquid.id;
+  ({ lab, admin, coatingId, batchId } = await labWithBatch());
+  const other = await labWithBatch();
+  otherLab = other.lab;
+  foreignCoatingId = other.coatingId;
+  foreignBatchId = other.batchId;
+  foreignLiquidId = await created(resources.probeLiquids, other.admin, bodies.probeLiquid());
 });
 
 afterAll(async () => {

@@ -203,3 +203,24 @@ export const bodies = {
     instrumentNotes: 'Backlight at 80 %',
   }),
 };
+
+/** Creates a record through the API as `sessionId` and returns its id (throws unless 201). */
+export async function created(r: Resource, sessionId: string, body: unknown): Promise<string> {
+  const response = await api.create(r, { sessionId, body });
+  if (response.status !== 201) {
+    throw new Error(
+      `creating a ${r.key} answered ${response.status}: ${JSON.stringify(response.body)}`,
+    );
+  }
+  return response.body[r.key].id;
+}
+
+/** The probe-liquid library, a lab with one member per role, and a coating with one batch. */
+export async function labWithBatch() {
+  await ensureLibrary();
+  const lab = await createLab();
+  const admin = lab.members.admin.sessionId;
+  const coatingId = await created(resources.coatings, admin, bodies.coating());
+  const batchId = await created(resources.batches, admin, bodies.batch(coatingId));
+  return { lab, admin, analyst: lab.members.analyst.sessionId, coatingId, batchId };
+}

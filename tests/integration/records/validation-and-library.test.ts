@@ -13,7 +13,7 @@ import {
   auditSince,
   bodies,
   createLab,
-  ensureLibrary,
+  labWithBatch,
   lastAuditId,
   resources,
   type Lab,
@@ -25,11 +25,7 @@ let admin: string;
 let coatingId: string;
 
 beforeAll(async () => {
-  await ensureLibrary();
-  lab = await createLab();
-  admin = lab.members.admin.sessionId;
-  coatingId = (await api.create(resources.coatings, { sessionId: admin, body: bodies.coating() }))
-    .body.coating.id;
+  ({ lab, admin, coatingId } = await labWithBatch());
 });
 
 afterAll(async () => {

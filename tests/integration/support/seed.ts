@@ -1,6 +1,6 @@
 import { getDb } from '@/db/client';
 import { newId } from '@/db/queries/ids';
-import { analyses, batches, coatings, drops, samples } from '@/db/schema';
+import { analyses, batches, coatings, drops, samples, specs } from '@/db/schema';
 
 /*
  * Rows written straight into the database for tests that need records to exist (invented data).
@@ -17,6 +17,18 @@ export async function insertCoating(
   const id = newId();
   await getDb().insert(coatings).values({ id, organizationId, code, name });
   return id;
+}
+
+/** A spec of the coating: water, each drop at least `minDeg`. */
+export async function insertWaterSpec(organizationId: string, coatingId: string, minDeg: number) {
+  await getDb().insert(specs).values({
+    id: newId(),
+    organizationId,
+    coatingId,
+    probeLiquidId: 'liquid-water',
+    minDeg,
+    scope: 'each-drop',
+  });
 }
 
 export async function insertBatch(

@@ -1,13 +1,12 @@
 import { z } from 'zod';
-import { parsePendantDropBody, tensiometryListQuerySchema } from '@/lib/contracts/tensiometry';
-import { json, route } from '@/server/http/route';
-import { listSavedTensiometry } from '@/server/tensiometry/list';
+import { parsePendantDropBody } from '@/lib/contracts/tensiometry';
+import { tensiometryRoutes } from '@/server/http/tensiometry-routes';
 import { pendantDrop } from '@/server/tensiometry/pendant-drop';
 
 /**
  * Pendant-drop surface tension by a Young–Laplace fit of the hanging drop's outline.
  *
- * Body, either
+ * POST body, either
  * - { photoId, needleOuterDiameterMm, densityDifferenceKgPerM3, save? }: a photo uploaded through
  *   the 'dropPhoto' upload route; the server finds the outline and the needle's width in it and
  *   answers { result, photo: { id, width, height }, extraction: { pointCount,
@@ -16,28 +15,12 @@ import { pendantDrop } from '@/server/tensiometry/pendant-drop';
  * - { edge: [{ x, y }] (px, y downward), needleOuterDiameterMm, needleOuterDiameterPx,
  *   densityDifferenceKgPerM3, save? } → { result, saved? }.
  * result: { surfaceTensionMilliNewtonPerM, shapeFactor, apexRadiusMm, rmsResidualPx, warnings, … }.
+ * GET: the saved results, with their photoId when fitted from a photo (query: limit).
  */
-export const POST = route(
-  {
-    access: 'organization:read',
-    body: z.record(z.string(), z.unknown()).transform(parsePendantDropBody),
-    // An outline of up to 20 000 points.
-    maxBodyBytes: 2 * 1024 * 1024,
-  },
-  async ({ ctx, body }) => {
-    const reply = await pendantDrop(ctx, body);
-    return json(reply, reply.saved ? 201 : 200);
-  },
-);
-
-/** Saved pendant-drop results (with their photoId, if fitted from a photo), newest first. Query: limit. */
-export const GET = route(
-  { access: 'organization:read', query: tensiometryListQuerySchema },
-  async ({ ctx, query }) =>
-    json(
-      await listSavedTensiometry(ctx.organization.id, {
-        kinds: ['pendant-drop'],
-        limit: query.limit,
-      }),
-    ),
-);
+export const { POST, GET } = tensiometryRoutes({
+  body: z.record(z.string(), z.unknown()).transform(parsePendantDropBody),
+  // An outline of up to 20 000 points.
+  maxBodyBytes: 2 * 1024 * 1024,
+  kinds: ['pendant-drop'],
+  compute: pendantDrop,
+});
