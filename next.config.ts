@@ -6,8 +6,8 @@ const nextConfig: NextConfig = {
   poweredByHeader: false,
   // A second build folder lets a developer build and serve a branch beside a running one.
   distDir: process.env.NEXT_DIST_DIR ?? '.next',
-  // `npm test` type-checks the whole repository (tsc) before it builds; no need to do it twice.
-  typescript: { ignoreBuildErrors: true },
+  // No typescript.ignoreBuildErrors: `next build` type-checks, so every path that builds
+  // (npm start, npm run build, npm test) checks the types before it serves anything.
   turbopack: {
     resolveAlias: {
       fs: { browser: './workers/node-builtin-stub.ts' },

@@ -7,7 +7,10 @@ import { databaseUrl } from './url';
 export type Database = PostgresJsDatabase<typeof schema>;
 
 // One pool per process; Next's dev server reloads modules, so keep it on globalThis.
-const globalForDb = globalThis as unknown as { beadlineSql?: postgres.Sql; beadlineDb?: Database };
+const globalForDb = globalThis as typeof globalThis & {
+  beadlineSql?: postgres.Sql;
+  beadlineDb?: Database;
+};
 
 export function getSql(): postgres.Sql {
   globalForDb.beadlineSql ??= postgres(databaseUrl(), {

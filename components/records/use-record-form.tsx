@@ -3,7 +3,7 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useForm, type DefaultValues, type FieldValues, type Resolver } from 'react-hook-form';
+import { useForm, type DefaultValues, type FieldValues } from 'react-hook-form';
 import type { z } from 'zod';
 import { FormNotice } from '@/components/ui/form-field';
 import { applyServerErrors, RecordApiError, sendJson } from './api';
@@ -27,7 +27,8 @@ export function useRecordForm<V extends FieldValues>(options: {
 }) {
   const router = useRouter();
   const form = useForm<V>({
-    resolver: zodResolver(options.schema as never) as unknown as Resolver<V>,
+    // The schemas' input (form text) and output (parsed values) types differ from V on purpose.
+    resolver: zodResolver(options.schema as never) as never,
     defaultValues: options.defaultValues,
   });
   const [notice, setNotice] = useState<{ tone: 'error' | 'success'; text: string } | null>(null);
