@@ -1,6 +1,7 @@
 'use server';
 
 import { redirect } from 'next/navigation';
+import type { z } from 'zod';
 import {
   acceptInvitationSchema,
   forgotPasswordSchema,
@@ -27,26 +28,38 @@ export const requestPasswordResetAction = formAction({
   },
 });
 
+/** A signed-out form that goes to another page once its service succeeds. */
+function thenGoTo<S extends z.ZodType>(
+  input: S,
+  run: (values: z.output<S>) => Promise<unknown>,
+  to: string,
+  keep?: readonly string[],
+) {
+  return formAction({
+    access: 'public',
+    input,
+    keep,
+    async run(values) {
+      await run(values);
+      redirect(to);
+    },
+  });
+}
+
 /** Sets a new password from a reset link; every session of the account ends. */
-export const resetPasswordAction = formAction({
-  access: 'public',
-  input: resetPasswordSchema,
-  async run(input) {
-    await resetPassword(input);
-    redirect('/sign-in?reason=password-reset');
-  },
-});
+export const resetPasswordAction = thenGoTo(
+  resetPasswordSchema,
+  resetPassword,
+  '/sign-in?reason=password-reset',
+);
 
 /** A signed-out person without an account accepts an invitation: the account and the membership. */
-export const acceptInvitationWithNewAccount = formAction({
-  access: 'public',
-  input: acceptInvitationSchema,
-  keep: ['name'],
-  async run(input) {
-    await joinWithNewAccount(input);
-    redirect('/dashboard');
-  },
-});
+export const acceptInvitationWithNewAccount = thenGoTo(
+  acceptInvitationSchema,
+  joinWithNewAccount,
+  '/dashboard',
+  ['name'],
+);
 
 /** A signed-in user whose e-mail matches the invitation joins the organization. */
 export const acceptInvitationAsMember = formAction({

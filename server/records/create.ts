@@ -5,6 +5,7 @@ import { inTransaction } from '@/db/queries/transaction';
 import type { Actor } from '../actor';
 import { auditChange } from './audit';
 import { withUniqueChecks } from './errors';
+import { checkReferences } from './references';
 import type { AnyRecordKind, CreateOf, RecordOf, RowOf } from './kind';
 
 /** Creates a record (its references checked) with its audit row, in one transaction. */
@@ -16,7 +17,12 @@ export async function createRecord<K extends AnyRecordKind>(
   return withUniqueChecks(
     () =>
       inTransaction(async (tx) => {
-        await kind.checkCreate?.(tx, actor.organizationId, input);
+        await checkReferences(
+          tx,
+          kind.references,
+          actor.organizationId,
+          input as Record<string, unknown>,
+        );
         const row = await insertRecord<RowOf<K>>(tx, kind.table, {
           id: newId(),
           ...kind.toInsert(actor, input),

@@ -2,6 +2,7 @@ import 'server-only';
 import type { SQL } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { Transaction } from '@/db/queries/transaction';
+import type { ReferenceKind } from './references';
 import type { RecordTable } from '@/db/queries/records';
 import type { AppError } from '@/lib/app-error';
 import type { Action } from '@/lib/auth/permissions';
@@ -48,15 +49,13 @@ export type RecordKind<
   toInsert(actor: Actor, input: z.output<Create>): Record<string, unknown>;
   /** Columns an update sets (its version already taken off). */
   toUpdate(changes: Omit<z.output<Update>, 'version'>): Record<string, unknown>;
-  /** Referenced records must be this organization's and current. */
-  checkCreate?(tx: Transaction, organizationId: string, input: z.output<Create>): Promise<void>;
-  /** The same for changed references, and cross-field rules on the merged record. */
-  checkUpdate?(
-    tx: Transaction,
-    organizationId: string,
-    before: Row,
-    changes: Omit<z.output<Update>, 'version'>,
-  ): Promise<void>;
+  /**
+   * Fields that name another record, and its kind: on create, and when an update changes them,
+   * the record must be this organization's (or the library's) and current.
+   */
+  references?: Record<string, ReferenceKind>;
+  /** Cross-field rules on the record as it will be after an update (the body alone may not tell). */
+  checkMerged?(merged: Row): void;
   /** Whether results depend on the record (then DELETE archives it). */
   hasDependents(tx: Transaction, id: string): Promise<boolean>;
   /** Unique constraints and the duplicate error each means. */

@@ -65,7 +65,6 @@ import {
 } from '@/lib/csv/columns';
 import { duplicate } from './errors';
 import { csvExport, defineRecordKind, withoutUndefined } from './kind';
-import { requireReference } from './references';
 
 /*
  * The six kinds of lab record. Everything they share (list, get, create, update with optimistic
@@ -143,20 +142,8 @@ export const specRecords = defineRecordKind({
     organizationId: actor.organizationId,
   }),
   toUpdate: (changes) => changes,
-  async checkCreate(tx, organizationId, input) {
-    await requireReference(tx, 'coating', organizationId, input.coatingId);
-    await requireReference(tx, 'probeLiquid', organizationId, input.probeLiquidId);
-  },
-  async checkUpdate(tx, organizationId, before, changes) {
-    // The limits rules hold for the record as it will be, not only for the fields sent.
-    checkSpecLimits({ ...before, ...withoutUndefined(changes) });
-    if (changes.coatingId !== undefined && changes.coatingId !== before.coatingId) {
-      await requireReference(tx, 'coating', organizationId, changes.coatingId);
-    }
-    if (changes.probeLiquidId !== undefined && changes.probeLiquidId !== before.probeLiquidId) {
-      await requireReference(tx, 'probeLiquid', organizationId, changes.probeLiquidId);
-    }
-  },
+  references: { coatingId: 'coating', probeLiquidId: 'probeLiquid' },
+  checkMerged: (spec) => checkSpecLimits(spec),
   // Nothing refers to a spec, so DELETE removes it unless ?mode=archive asks to keep it.
   hasDependents: async () => false,
 });
@@ -184,13 +171,7 @@ export const batchRecords = defineRecordKind({
   }),
   // `process`, when sent, replaces the stored parameters as a whole.
   toUpdate: (changes) => changes,
-  checkCreate: (tx, organizationId, input) =>
-    requireReference(tx, 'coating', organizationId, input.coatingId),
-  async checkUpdate(tx, organizationId, before, changes) {
-    if (changes.coatingId !== undefined && changes.coatingId !== before.coatingId) {
-      await requireReference(tx, 'coating', organizationId, changes.coatingId);
-    }
-  },
+  references: { coatingId: 'coating' },
   hasDependents: (tx, id) => anyRowWith(tx, samples, samples.batchId, id),
   unique: {
     batches_org_lot_unique: () =>
@@ -229,13 +210,7 @@ export const sampleRecords = defineRecordKind({
     createdByUserId: actor.userId,
   }),
   toUpdate: ({ treatedAt, ...changes }) => ({ ...changes, treatedAt: toDate(treatedAt) }),
-  checkCreate: (tx, organizationId, input) =>
-    requireReference(tx, 'batch', organizationId, input.batchId),
-  async checkUpdate(tx, organizationId, before, changes) {
-    if (changes.batchId !== undefined && changes.batchId !== before.batchId) {
-      await requireReference(tx, 'batch', organizationId, changes.batchId);
-    }
-  },
+  references: { batchId: 'batch' },
   hasDependents: (tx, id) => anyRowWith(tx, drops, drops.sampleId, id),
   unique: {
     samples_batch_label_unique: () =>
@@ -286,10 +261,7 @@ export const probeLiquidRecords = defineRecordKind({
     organizationId: actor.organizationId,
   }),
   toUpdate: (changes) => changes,
-  async checkUpdate(_tx, _organizationId, before, changes) {
-    // Components must add up for the liquid as it will be, not only for the fields sent.
-    checkProbeLiquidComponents({ ...before, ...withoutUndefined(changes) });
-  },
+  checkMerged: (liquid) => checkProbeLiquidComponents(liquid),
   hasDependents: async (tx, id) =>
     (await anyRowWith(tx, specs, specs.probeLiquidId, id)) ||
     (await anyRowWith(tx, drops, drops.probeLiquidId, id)) ||
@@ -339,16 +311,7 @@ export const measurementSessionRecords = defineRecordKind({
     ...changes,
     measuredAt: measuredAt === undefined ? undefined : new Date(measuredAt),
   }),
-  async checkCreate(tx, organizationId, input) {
-    if (input.probeLiquidId) {
-      await requireReference(tx, 'probeLiquid', organizationId, input.probeLiquidId);
-    }
-  },
-  async checkUpdate(tx, organizationId, before, changes) {
-    if (changes.probeLiquidId && changes.probeLiquidId !== before.probeLiquidId) {
-      await requireReference(tx, 'probeLiquid', organizationId, changes.probeLiquidId);
-    }
-  },
+  references: { probeLiquidId: 'probeLiquid' },
   hasDependents: (tx, id) => anyRowWith(tx, drops, drops.sessionId, id),
 });
 

@@ -4,7 +4,14 @@ import { inTransaction } from '@/db/queries/transaction';
 import type { Actor } from '../actor';
 import { auditChange } from './audit';
 import { assertEditable, failedUpdate, withUniqueChecks } from './errors';
-import type { AnyRecordKind, RecordOf, RowOf, UpdateOf } from './kind';
+import {
+  withoutUndefined,
+  type AnyRecordKind,
+  type RecordOf,
+  type RowOf,
+  type UpdateOf,
+} from './kind';
+import { checkReferences } from './references';
 
 /**
  * Changes a record with optimistic concurrency: refused when it is archived or moved on from
@@ -27,7 +34,9 @@ export async function updateRecord<K extends AnyRecordKind>(
         const readOnly = before && kind.readOnly?.(before);
         if (readOnly) throw readOnly;
         assertEditable(kind.what, before, version, present);
-        await kind.checkUpdate?.(tx, actor.organizationId, before, changes);
+        // Cross-field rules hold for the record as it will be, not only for the fields sent.
+        kind.checkMerged?.({ ...before, ...withoutUndefined(changes) });
+        await checkReferences(tx, kind.references, actor.organizationId, changes, before);
         const row = await updateRecordAtVersion<RowOf<K>>(
           tx,
           kind.table,

@@ -14,17 +14,20 @@ import { inviteMember as invite } from '@/server/team/invite';
 import { changeMemberRole, removeMember } from '@/server/team/members';
 import { revokeInvitation } from '@/server/team/revoke-invitation';
 
-/** A team-page form: admins only; on success a notice, and the pages that show it refreshed. */
+/**
+ * A team-page form: admins only; on success a notice, and the pages that show the change
+ * refreshed.
+ */
 function teamAction<S extends z.ZodType>(config: {
   what: string;
   input: S;
   keep?: readonly string[];
   /** '/team', or 'layout' when the change shows in the shell (roles). */
   refresh: '/team' | 'layout';
-  run: (
-    actor: Actor & { name: string },
-    input: z.output<S>,
-  ) => Promise<{ notice: string; values?: Record<string, string> }>;
+  run: (actor: Actor & { name: string }, input: z.output<S>) => Promise<unknown>;
+  notice: (input: z.output<S>) => string;
+  /** What the form keeps after success. */
+  values?: (input: z.output<S>) => Record<string, string>;
 }) {
   return formAction({
     access: 'team:manage',
@@ -32,10 +35,10 @@ function teamAction<S extends z.ZodType>(config: {
     input: config.input,
     keep: config.keep,
     async run(input, { ctx }) {
-      const state = await config.run({ ...actorOf(ctx), name: ctx.user.name }, input);
+      await config.run({ ...actorOf(ctx), name: ctx.user.name }, input);
       if (config.refresh === 'layout') revalidatePath('/', 'layout');
       else revalidatePath(config.refresh);
-      return state;
+      return { notice: config.notice(input), values: config.values?.(input) };
     },
   });
 }
@@ -46,41 +49,31 @@ export const inviteMember = teamAction({
   input: invitationRequestSchema,
   keep: ['email', 'role'],
   refresh: '/team',
-  async run(actor, input) {
-    const invitation = await invite(actor, input);
-    return {
-      notice: `Invitation sent to ${invitation.email}. The link works for 7 days.`,
-      values: { role: input.role },
-    };
-  },
+  run: invite,
+  notice: ({ email }) => `Invitation sent to ${email}. The link works for 7 days.`,
+  values: ({ role }) => ({ role }),
 });
 
 export const revokeInvitationAction = teamAction({
   what: 'revoke invitations',
   input: invitationIdSchema,
   refresh: '/team',
-  async run(actor, { invitationId }) {
-    await revokeInvitation(actor, invitationId);
-    return { notice: 'Invitation revoked.' };
-  },
+  run: (actor, { invitationId }) => revokeInvitation(actor, invitationId),
+  notice: () => 'Invitation revoked.',
 });
 
 export const changeRoleAction = teamAction({
   what: 'change roles',
   input: memberRoleChangeSchema,
   refresh: 'layout',
-  async run(actor, { userId, role }) {
-    await changeMemberRole(actor, userId, role);
-    return { notice: 'Role saved.' };
-  },
+  run: (actor, { userId, role }) => changeMemberRole(actor, userId, role),
+  notice: () => 'Role saved.',
 });
 
 export const removeMemberAction = teamAction({
   what: 'remove members',
   input: memberIdSchema,
   refresh: 'layout',
-  async run(actor, { userId }) {
-    await removeMember(actor, userId);
-    return { notice: 'Member removed.' };
-  },
+  run: (actor, { userId }) => removeMember(actor, userId),
+  notice: () => 'Member removed.',
 });
