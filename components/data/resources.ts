@@ -47,15 +47,17 @@ export type PhotoDrop = {
   revisions: DropRevision[];
 };
 
-export const photoDropUrl = (photoId: string) => `/api/photos/${photoId}/drop`;
+export const photoDropUrl = (photoId: string) => `/api/photos/${encodeURIComponent(photoId)}/drop`;
 
 /** The drop saved from a photo with all its revisions, or null while the photo is unsaved. */
 export function usePhotoDrop(
   photoId: string | null,
-  options: { onLoaded?: (drop: PhotoDrop | null) => void } = {},
+  options: { onLoaded?: (drop: PhotoDrop | null, photoId: string) => void } = {},
 ) {
   const query = useApi<{ drop: PhotoDrop | null }>(photoId ? photoDropUrl(photoId) : null, {
-    onSuccess: (data) => options.onLoaded?.(data.drop),
+    // The photo of the answer, which may no longer be the one selected.
+    onSuccess: (data, key: string) =>
+      options.onLoaded?.(data.drop, decodeURIComponent(key.split('/')[3] ?? '')),
   });
   return {
     drop: query.data?.drop ?? null,
