@@ -1,5 +1,6 @@
 'use client';
 
+import { useEffect, useRef } from 'react';
 import useSWR, { type SWRConfiguration } from 'swr';
 import type { ZodType } from 'zod';
 import type { ApiError } from './api-error';
@@ -15,17 +16,27 @@ const READ_DEFAULTS: SWRConfiguration = {
   shouldRetryOnError: false,
 };
 
-/** GET `url` through `apiFetch` with SWR; null pauses the hook. */
+/**
+ * GET `url` through `apiFetch` with SWR; null pauses the hook. Data the page rendered on the
+ * server (`fallbackData`) is the newest there is when the hook mounts: it replaces whatever the
+ * cache kept from an earlier visit, and is not fetched again.
+ */
 export function useApi<T>(
   url: string | null,
   options: SWRConfiguration<T, ApiError> & { schema?: ZodType<T> } = {},
 ) {
   const { schema, ...config } = options;
-  return useSWR<T, ApiError>(url, (key: string) => apiFetch<T>(key, { schema }), {
+  const query = useSWR<T, ApiError>(url, (key: string) => apiFetch<T>(key, { schema }), {
     ...READ_DEFAULTS,
     ...(config.fallbackData !== undefined ? { revalidateOnMount: false } : {}),
     ...config,
   });
+  const rendered = useRef(config.fallbackData);
+  const { mutate } = query;
+  useEffect(() => {
+    if (rendered.current !== undefined) void mutate(rendered.current, { revalidate: false });
+  }, [mutate]);
+  return query;
 }
 
 /**
