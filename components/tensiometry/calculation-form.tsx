@@ -1,0 +1,58 @@
+'use client';
+
+import type { ReactNode } from 'react';
+
+/**
+ * The frame of a tensiometry form: the inputs, a button that computes and one that computes
+ * and saves (for those who may save), and the answer's error.
+ */
+export function CalculationForm({
+  onSend,
+  busy,
+  disabled = false,
+  canSave,
+  labels,
+  message,
+  children,
+}: {
+  onSend: (save: boolean) => void;
+  busy: boolean;
+  disabled?: boolean;
+  canSave: boolean;
+  labels: { run: string; running: string; save: string };
+  message: string | null;
+  children: ReactNode;
+}) {
+  return (
+    <form
+      noValidate
+      onSubmit={(event) => {
+        event.preventDefault();
+        onSend(false);
+      }}
+      className="grid gap-4"
+    >
+      {children}
+      <div className="flex flex-wrap gap-3">
+        <button type="submit" className="btn-primary" disabled={busy || disabled}>
+          {busy ? labels.running : labels.run}
+        </button>
+        {canSave ? (
+          <button
+            type="button"
+            className="btn-quiet"
+            disabled={busy || disabled}
+            onClick={() => onSend(true)}
+          >
+            {labels.save}
+          </button>
+        ) : null}
+      </div>
+      {message ? (
+        <p role="alert" className="field-error">
+          {message}
+        </p>
+      ) : null}
+    </form>
+  );
+}
