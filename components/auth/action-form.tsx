@@ -1,7 +1,7 @@
 'use client';
 
 import { useActionState, type ReactNode } from 'react';
-import { FormNotice } from '@/components/ui/fields';
+import { FormNotice, TextField } from '@/components/ui/fields';
 import { initialFormState, type FormState } from './form-state';
 
 type Action = (previous: FormState, formData: FormData) => Promise<FormState>;
@@ -49,5 +49,54 @@ export function ActionForm({
   );
 }
 
-/** A new password with the rule next to it. */
-export const NEW_PASSWORD_HINT = 'At least 10 characters.';
+/** The e-mail address, kept as typed when the form comes back. */
+export function EmailField({ state, label = 'E-mail' }: { state: FormState; label?: string }) {
+  return (
+    <TextField
+      name="email"
+      label={label}
+      type="email"
+      autoComplete="email"
+      required
+      defaultValue={state.values?.email}
+      error={state.fields?.email}
+    />
+  );
+}
+
+export function NameField({ state }: { state: FormState }) {
+  return (
+    <TextField
+      name="name"
+      label="Your name"
+      autoComplete="name"
+      required
+      defaultValue={state.values?.name}
+      error={state.fields?.name}
+    />
+  );
+}
+
+/** A password: the current one to sign in, or a new one with its rule beside it. */
+export function PasswordField({
+  state,
+  label = 'Password',
+  isNew,
+}: {
+  state: FormState;
+  label?: string;
+  isNew: boolean;
+}) {
+  return (
+    <TextField
+      name="password"
+      label={label}
+      type="password"
+      autoComplete={isNew ? 'new-password' : 'current-password'}
+      required
+      hint={isNew ? 'At least 10 characters.' : undefined}
+      // A reset link that no longer works is reported on the password it would have set.
+      error={state.fields?.password ?? state.fields?.token}
+    />
+  );
+}

@@ -1,8 +1,7 @@
 'use client';
 
 import { resetPasswordAction } from '@/app/(auth)/account-actions';
-import { TextField } from '@/components/ui/fields';
-import { ActionForm, NEW_PASSWORD_HINT } from './action-form';
+import { ActionForm, PasswordField } from './action-form';
 
 export function ResetPasswordForm({ token }: { token: string }) {
   return (
@@ -12,17 +11,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
       busy="Saving…"
       hidden={{ token }}
     >
-      {(state) => (
-        <TextField
-          name="password"
-          label="New password"
-          type="password"
-          autoComplete="new-password"
-          required
-          hint={NEW_PASSWORD_HINT}
-          error={state.fields?.password ?? state.fields?.token}
-        />
-      )}
+      {(state) => <PasswordField state={state} label="New password" isNew />}
     </ActionForm>
   );
 }

@@ -2,39 +2,16 @@
 
 import { signUp } from '@/app/(auth)/actions';
 import { TextField } from '@/components/ui/fields';
-import { ActionForm, NEW_PASSWORD_HINT } from './action-form';
+import { ActionForm, EmailField, NameField, PasswordField } from './action-form';
 
 export function SignUpForm() {
   return (
     <ActionForm action={signUp} submit="Create account" busy="Creating your lab…">
       {(state) => (
         <>
-          <TextField
-            name="name"
-            label="Your name"
-            autoComplete="name"
-            required
-            defaultValue={state.values?.name}
-            error={state.fields?.name}
-          />
-          <TextField
-            name="email"
-            label="Work e-mail"
-            type="email"
-            autoComplete="email"
-            required
-            defaultValue={state.values?.email}
-            error={state.fields?.email}
-          />
-          <TextField
-            name="password"
-            label="Password"
-            type="password"
-            autoComplete="new-password"
-            required
-            hint={NEW_PASSWORD_HINT}
-            error={state.fields?.password}
-          />
+          <NameField state={state} />
+          <EmailField state={state} label="Work e-mail" />
+          <PasswordField state={state} isNew />
           <TextField
             name="organizationName"
             label="Lab or organization"

@@ -1,6 +1,7 @@
 'use client';
 
 import type { ReactNode } from 'react';
+import { NumberField } from '@/components/ui/fields';
 
 /**
  * The frame of a tensiometry form: the inputs, a button that computes and one that computes
@@ -54,5 +55,37 @@ export function CalculationForm({
         </p>
       ) : null}
     </form>
+  );
+}
+
+export type NumberInput<Field extends string> = {
+  key: Field;
+  label: string;
+  unit: string;
+  hint?: string;
+};
+
+/** The number inputs of a form, each bound by `bind` (see useCalculation). */
+export function NumberInputs<Field extends string>({
+  inputs,
+  bind,
+  className,
+}: {
+  inputs: NumberInput<Field>[];
+  bind: (key: Field) => object;
+  className: string;
+}) {
+  return (
+    <div className={className}>
+      {inputs.map((input) => (
+        <NumberField
+          key={input.key}
+          label={input.label}
+          unit={input.unit}
+          hint={input.hint}
+          {...bind(input.key)}
+        />
+      ))}
+    </div>
   );
 }

@@ -2,13 +2,27 @@
 
 import { useState } from 'react';
 import type { SavedTensiometry } from '@/components/data/resources';
-import { NumberField } from '@/components/ui/fields';
-import { CalculationForm } from './calculation-form';
+import { CalculationForm, NumberInputs, type NumberInput } from './calculation-form';
 import { FitFigures, PendantPhotoInput, PendantPhotoView, type PhotoFit } from './pendant-photo';
 import { toNumbers, useCalculation } from './use-calculation';
 import { usePendantUpload } from './use-pendant-upload';
 
-const FIELDS = ['photoId', 'needleOuterDiameterMm', 'densityDifferenceKgPerM3'] as const;
+type Field = 'needleOuterDiameterMm' | 'densityDifferenceKgPerM3';
+
+const INPUTS: NumberInput<Field>[] = [
+  {
+    key: 'needleOuterDiameterMm',
+    label: 'Needle outer diameter',
+    unit: 'mm',
+    hint: 'Sets the scale of the photo.',
+  },
+  {
+    key: 'densityDifferenceKgPerM3',
+    label: 'Density difference Δρ',
+    unit: 'kg/m³',
+    hint: 'Drop minus surrounding phase; about 997 for water in air at 23 °C.',
+  },
+];
 
 /**
  * Pendant drop: the photo is uploaded through the upload service like the measurement
@@ -17,21 +31,13 @@ const FIELDS = ['photoId', 'needleOuterDiameterMm', 'densityDifferenceKgPerM3'] 
  */
 export function PendantDropForm({ onSaved }: { onSaved: (s: SavedTensiometry) => void }) {
   const { upload, choose } = usePendantUpload();
-  const [values, setValues] = useState({ needleOuterDiameterMm: '', densityDifferenceKgPerM3: '' });
   const [notice, setNotice] = useState<string | null>(null);
-  const calc = useCalculation<PhotoFit>({
+  const calc = useCalculation<Field, PhotoFit>({
     url: '/api/tensiometry/pendant-drop',
-    fields: FIELDS,
+    initial: { needleOuterDiameterMm: '', densityDifferenceKgPerM3: '' },
+    idPrefix: 'pd-',
     onSaved,
   });
-  const bind = (key: keyof typeof values) => ({
-    id: `pd-${key}`,
-    value: values[key],
-    onChange: (event: React.ChangeEvent<HTMLInputElement>) =>
-      setValues((s) => ({ ...s, [key]: event.target.value })),
-    error: calc.errors[key],
-  });
-
   function send(save: boolean) {
     if (upload.kind !== 'stored') {
       setNotice(
@@ -42,7 +48,7 @@ export function PendantDropForm({ onSaved }: { onSaved: (s: SavedTensiometry) =>
       return;
     }
     setNotice(null);
-    void calc.submit({ photoId: upload.photo.id, ...toNumbers(values), save });
+    void calc.submit({ photoId: upload.photo.id, ...toNumbers(calc.values), save });
   }
 
   const fit = calc.reply;
@@ -71,20 +77,7 @@ export function PendantDropForm({ onSaved }: { onSaved: (s: SavedTensiometry) =>
             void choose(file);
           }}
         />
-        <div className="grid gap-4 sm:grid-cols-2">
-          <NumberField
-            label="Needle outer diameter"
-            unit="mm"
-            hint="Sets the scale of the photo."
-            {...bind('needleOuterDiameterMm')}
-          />
-          <NumberField
-            label="Density difference Δρ"
-            unit="kg/m³"
-            hint="Drop minus surrounding phase; about 997 for water in air at 23 °C."
-            {...bind('densityDifferenceKgPerM3')}
-          />
-        </div>
+        <NumberInputs className="grid gap-4 sm:grid-cols-2" bind={calc.bind} inputs={INPUTS} />
       </CalculationForm>
       {upload.kind === 'stored' ? (
         <div className="mt-4 grid gap-4 md:grid-cols-2">

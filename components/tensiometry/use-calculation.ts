@@ -23,20 +23,25 @@ export function toNumbers(
 }
 
 /**
- * One tensiometry calculation: posts the inputs, keeps the answer (cleared by a failure or by
- * `clear`), the errors per field and the pending state; a result saved with it is handed on.
+ * One tensiometry form: its inputs as typed, and the calculation they are posted to. The answer
+ * is kept until a failure or `clear`; the server's errors go to the inputs they name; a result
+ * saved with it is handed on.
  */
-export function useCalculation<Reply extends { saved?: SavedTensiometry }>({
+export function useCalculation<Field extends string, Reply extends { saved?: SavedTensiometry }>({
   url,
-  fields,
+  initial,
+  idPrefix = '',
   onSaved,
 }: {
   url: string;
-  /** The inputs this form shows, for the server's field errors. */
-  fields: readonly string[];
+  /** Every input with its starting text. */
+  initial: Record<Field, string>;
+  /** Before each input's id, when names could repeat on the page. */
+  idPrefix?: string;
   onSaved?: (saved: SavedTensiometry) => void;
 }) {
-  const mutation = useMutation<Reply>({ fields });
+  const [values, setValues] = useState(initial);
+  const mutation = useMutation<Reply>({ fields: [...Object.keys(initial), 'photoId'] });
   const [reply, setReply] = useState<Reply | null>(null);
 
   async function submit(body: Record<string, unknown>) {
@@ -50,7 +55,19 @@ export function useCalculation<Reply extends { saved?: SavedTensiometry }>({
     mutation.reset();
   }
 
+  /** Binds a number field to an input: its id, its text and its error. */
+  const bind = (key: Field) => ({
+    id: `${idPrefix}${key}`,
+    name: key,
+    value: values[key],
+    onChange: (event: React.ChangeEvent<HTMLInputElement>) =>
+      setValues((s) => ({ ...s, [key]: event.target.value })),
+    error: mutation.fieldErrors[key],
+  });
+
   return {
+    values,
+    bind,
     reply,
     errors: mutation.fieldErrors,
     message: mutation.message,

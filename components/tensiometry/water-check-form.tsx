@@ -1,12 +1,10 @@
 'use client';
 
-import { useState } from 'react';
 import type { SavedTensiometry } from '@/components/data/resources';
 import { DefinitionList } from '@/components/ui/definition-list';
-import { NumberField } from '@/components/ui/fields';
 import { fmt } from '@/components/ui/format';
 import type { ProbeLiquidCheck } from '@/lib/tensiometry';
-import { CalculationForm } from './calculation-form';
+import { CalculationForm, NumberInputs, type NumberInput } from './calculation-form';
 import { toNumbers, useCalculation } from './use-calculation';
 
 const FLAG_TEXT: Record<ProbeLiquidCheck['flag'], { label: string; tone: string }> = {
@@ -21,8 +19,13 @@ const FLAG_TEXT: Record<ProbeLiquidCheck['flag'], { label: string; tone: string 
   },
 };
 
-const FIELDS = ['measuredMilliNewtonPerM', 'temperatureC', 'toleranceMilliNewtonPerM'] as const;
-type Field = (typeof FIELDS)[number];
+type Field = 'measuredMilliNewtonPerM' | 'temperatureC' | 'toleranceMilliNewtonPerM';
+
+const INPUTS: NumberInput<Field>[] = [
+  { key: 'measuredMilliNewtonPerM', label: 'Measured γ', unit: 'mN/m' },
+  { key: 'temperatureC', label: 'Temperature', unit: '°C' },
+  { key: 'toleranceMilliNewtonPerM', label: 'Tolerance', unit: '± mN/m', hint: 'Set by your lab.' },
+];
 
 /** The probe water's measured surface tension against IAPWS R1-76(2014) at its temperature. */
 export function WaterCheckForm({
@@ -32,24 +35,12 @@ export function WaterCheckForm({
   canSave: boolean;
   onSaved: (s: SavedTensiometry) => void;
 }) {
-  const [values, setValues] = useState<Record<Field, string>>({
-    measuredMilliNewtonPerM: '',
-    temperatureC: '20',
-    toleranceMilliNewtonPerM: '1.0',
-  });
-  const calc = useCalculation<{ result: ProbeLiquidCheck; saved?: SavedTensiometry }>({
+  const calc = useCalculation<Field, { result: ProbeLiquidCheck; saved?: SavedTensiometry }>({
     url: '/api/tensiometry/water-check',
-    fields: FIELDS,
+    initial: { measuredMilliNewtonPerM: '', temperatureC: '20', toleranceMilliNewtonPerM: '1.0' },
     onSaved,
   });
-  const bind = (key: Field) => ({
-    id: key,
-    name: key,
-    value: values[key],
-    onChange: (event: React.ChangeEvent<HTMLInputElement>) =>
-      setValues((s) => ({ ...s, [key]: event.target.value })),
-    error: calc.errors[key],
-  });
+  const { values, bind } = calc;
   const result = calc.reply?.result;
   return (
     <section className="card" aria-label="Water check">
@@ -65,16 +56,7 @@ export function WaterCheckForm({
         labels={{ run: 'Check', running: 'Checking…', save: 'Check and save' }}
         message={calc.message}
       >
-        <div className="grid gap-4 sm:grid-cols-3">
-          <NumberField label="Measured γ" unit="mN/m" {...bind('measuredMilliNewtonPerM')} />
-          <NumberField label="Temperature" unit="°C" {...bind('temperatureC')} />
-          <NumberField
-            label="Tolerance"
-            unit="± mN/m"
-            hint="Set by your lab."
-            {...bind('toleranceMilliNewtonPerM')}
-          />
-        </div>
+        <NumberInputs className="grid gap-4 sm:grid-cols-3" bind={bind} inputs={INPUTS} />
       </CalculationForm>
       {result ? (
         <div className="mt-4 grid gap-2" data-testid="water-check-result" aria-live="polite">

@@ -3,10 +3,9 @@
 import { useState } from 'react';
 import type { SavedTensiometry } from '@/components/data/resources';
 import { DefinitionList } from '@/components/ui/definition-list';
-import { NumberField } from '@/components/ui/fields';
 import { fmt } from '@/components/ui/format';
 import type { WilhelmyContactAngleResult, WilhelmySurfaceTensionResult } from '@/lib/tensiometry';
-import { CalculationForm } from './calculation-form';
+import { CalculationForm, NumberInputs, type NumberInput } from './calculation-form';
 import { toNumbers, useCalculation } from './use-calculation';
 
 export type WilhelmyMode = 'tension' | 'angle';
@@ -15,15 +14,41 @@ type Reply = {
   saved?: SavedTensiometry;
 };
 
-const FIELDS = [
-  'forceMilliNewton',
-  'plateWidthMm',
-  'plateThicknessMm',
-  'immersionDepthMm',
-  'liquidDensityGPerCm3',
-  'liquidSurfaceTensionMilliNewtonPerM',
-] as const;
-type Field = (typeof FIELDS)[number];
+type Field =
+  | 'forceMilliNewton'
+  | 'plateWidthMm'
+  | 'plateThicknessMm'
+  | 'immersionDepthMm'
+  | 'liquidDensityGPerCm3'
+  | 'liquidSurfaceTensionMilliNewtonPerM';
+
+const INPUTS: NumberInput<Field>[] = [
+  { key: 'forceMilliNewton', label: 'Force', unit: 'mN' },
+  { key: 'plateWidthMm', label: 'Plate width w', unit: 'mm' },
+  { key: 'plateThicknessMm', label: 'Plate thickness t', unit: 'mm' },
+  {
+    key: 'immersionDepthMm',
+    label: 'Immersion depth d',
+    unit: 'mm',
+    hint: '0 when the plate just touches the surface.',
+  },
+  {
+    key: 'liquidDensityGPerCm3',
+    label: 'Liquid density ρ',
+    unit: 'g/cm³',
+    hint: 'Needed for the buoyancy correction when d > 0.',
+  },
+];
+const SURFACE_TENSION_INPUT: NumberInput<Field> = {
+  key: 'liquidSurfaceTensionMilliNewtonPerM',
+  label: 'Liquid surface tension γ',
+  unit: 'mN/m',
+};
+
+const MODES: { mode: WilhelmyMode; label: string }[] = [
+  { mode: 'tension', label: 'Surface tension of the liquid (platinum plate, θ = 0)' },
+  { mode: 'angle', label: 'Contact angle on a plate of another material (γ known)' },
+];
 
 /**
  * Wilhelmy plate: the surface tension of a liquid (platinum plate, θ = 0), or the contact angle
@@ -38,31 +63,33 @@ export function WilhelmyForm({
   onSaved: (s: SavedTensiometry) => void;
 }) {
   const [mode, setMode] = useState<WilhelmyMode>('tension');
-  const [values, setValues] = useState<Record<Field, string>>({
-    forceMilliNewton: '',
-    plateWidthMm: '19.62',
-    plateThicknessMm: '0.10',
-    immersionDepthMm: '0',
-    liquidDensityGPerCm3: '',
-    liquidSurfaceTensionMilliNewtonPerM: '',
+  const calc = useCalculation<
+    | 'forceMilliNewton'
+    | 'plateWidthMm'
+    | 'plateThicknessMm'
+    | 'immersionDepthMm'
+    | 'liquidDensityGPerCm3'
+    | 'liquidSurfaceTensionMilliNewtonPerM',
+    Reply
+  >({
+    url: '/api/tensiometry/wilhelmy',
+    initial: {
+      forceMilliNewton: '',
+      plateWidthMm: '19.62',
+      plateThicknessMm: '0.10',
+      immersionDepthMm: '0',
+      liquidDensityGPerCm3: '',
+      liquidSurfaceTensionMilliNewtonPerM: '',
+    },
+    onSaved,
   });
-  const calc = useCalculation<Reply>({ url: '/api/tensiometry/wilhelmy', fields: FIELDS, onSaved });
-  const bind = (key: Field) => ({
-    id: key,
-    name: key,
-    value: values[key],
-    onChange: (event: React.ChangeEvent<HTMLInputElement>) =>
-      setValues((s) => ({ ...s, [key]: event.target.value })),
-    error: calc.errors[key],
-  });
-
   function switchTo(next: WilhelmyMode) {
     setMode(next);
     calc.clear();
   }
 
   function send(save: boolean) {
-    const { liquidSurfaceTensionMilliNewtonPerM, ...common } = values;
+    const { liquidSurfaceTensionMilliNewtonPerM, ...common } = calc.values;
     const body = toNumbers(
       mode === 'angle' ? { ...common, liquidSurfaceTensionMilliNewtonPerM } : common,
       ['liquidDensityGPerCm3', 'immersionDepthMm'],
@@ -87,49 +114,23 @@ export function WilhelmyForm({
       >
         <fieldset className="flex flex-wrap gap-4 text-sm">
           <legend className="field-label mb-1">Compute</legend>
-          <label className="flex items-center gap-2">
-            <input
-              type="radio"
-              name="wilhelmy-mode"
-              checked={mode === 'tension'}
-              onChange={() => switchTo('tension')}
-            />
-            Surface tension of the liquid (platinum plate, θ = 0)
-          </label>
-          <label className="flex items-center gap-2">
-            <input
-              type="radio"
-              name="wilhelmy-mode"
-              checked={mode === 'angle'}
-              onChange={() => switchTo('angle')}
-            />
-            Contact angle on a plate of another material (γ known)
-          </label>
+          {MODES.map((choice) => (
+            <label key={choice.mode} className="flex items-center gap-2">
+              <input
+                type="radio"
+                name="wilhelmy-mode"
+                checked={mode === choice.mode}
+                onChange={() => switchTo(choice.mode)}
+              />
+              {choice.label}
+            </label>
+          ))}
         </fieldset>
-        <div className="grid gap-4 sm:grid-cols-2">
-          <NumberField label="Force" unit="mN" {...bind('forceMilliNewton')} />
-          <NumberField label="Plate width w" unit="mm" {...bind('plateWidthMm')} />
-          <NumberField label="Plate thickness t" unit="mm" {...bind('plateThicknessMm')} />
-          <NumberField
-            label="Immersion depth d"
-            unit="mm"
-            hint="0 when the plate just touches the surface."
-            {...bind('immersionDepthMm')}
-          />
-          <NumberField
-            label="Liquid density ρ"
-            unit="g/cm³"
-            hint="Needed for the buoyancy correction when d > 0."
-            {...bind('liquidDensityGPerCm3')}
-          />
-          {mode === 'angle' ? (
-            <NumberField
-              label="Liquid surface tension γ"
-              unit="mN/m"
-              {...bind('liquidSurfaceTensionMilliNewtonPerM')}
-            />
-          ) : null}
-        </div>
+        <NumberInputs
+          className="grid gap-4 sm:grid-cols-2"
+          bind={calc.bind}
+          inputs={mode === 'angle' ? [...INPUTS, SURFACE_TENSION_INPUT] : INPUTS}
+        />
       </CalculationForm>
       {result ? (
         <div aria-live="polite">

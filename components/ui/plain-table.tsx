@@ -12,6 +12,7 @@ export function PlainTable({
   label,
   testId,
   bodyTestId,
+  caption,
   className = '',
 }: {
   head: HeadCell[];
@@ -20,6 +21,8 @@ export function PlainTable({
   label?: string;
   testId?: string;
   bodyTestId?: string;
+  /** Says what the table holds, for screen readers. */
+  caption?: string;
   className?: string;
 }) {
   return (
@@ -29,6 +32,7 @@ export function PlainTable({
         aria-label={label}
         data-testid={testId}
       >
+        {caption ? <caption className="sr-only">{caption}</caption> : null}
         <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
           <tr>
             {head.map((cell, i) => {

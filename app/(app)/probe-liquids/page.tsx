@@ -1,13 +1,12 @@
 import type { Metadata } from 'next';
 import { listProbeLiquids } from '@/db/queries/probe-liquids';
 import {
-  exportHref,
   listQueryFromPage,
+  listTableProps,
   type PageSearchParams,
 } from '@/components/records/list-query';
 import { ProbeLiquidsPanel } from '@/components/records/probe-liquids';
-import { PageHeader } from '@/components/ui/empty-state';
-import { ListFilters } from '@/components/ui/list-filters';
+import { RecordListPage } from '@/components/records/record-pages';
 import { requirePage } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/permissions';
 import { probeLiquidListQuerySchema } from '@/lib/validation/records';
@@ -20,14 +19,12 @@ export default async function Page({ searchParams }: { searchParams: Promise<Pag
   const list = await listProbeLiquids(ctx.organization.id, query);
   const role = ctx.organization.role;
   return (
-    <>
-      <PageHeader
-        title="Probe liquids"
-        lead="Surface tension and its components, in mN/m, for each test liquid. The built-in library carries published values with their sources; add your own liquids with yours."
-      />
-      <ListFilters
-        label="Filter probe liquids"
-        fields={[
+    <RecordListPage
+      title="Probe liquids"
+      lead="Surface tension and its components, in mN/m, for each test liquid. The built-in library carries published values with their sources; add your own liquids with yours."
+      filters={{
+        label: 'Filter probe liquids',
+        fields: [
           { name: 'q', label: 'Name', type: 'text', placeholder: 'Water' },
           {
             name: 'origin',
@@ -40,22 +37,17 @@ export default async function Page({ searchParams }: { searchParams: Promise<Pag
             ],
           },
           { name: 'includeArchived', label: 'Show archived', type: 'checkbox' },
-        ]}
-      />
+        ],
+      }}
+    >
       <ProbeLiquidsPanel
         canManage={can(role, 'catalog:manage')}
-        rows={list.items}
-        total={list.total}
-        page={list.page}
-        pageSize={list.pageSize}
-        sort={query.sort}
-        dir={query.dir}
-        exportHref={
-          can(role, 'results:export')
-            ? exportHref('/api/probe-liquids/export.csv', probeLiquidListQuerySchema, query)
-            : null
-        }
+        {...listTableProps(list, query, {
+          path: '/api/probe-liquids/export.csv',
+          schema: probeLiquidListQuerySchema,
+          allowed: can(role, 'results:export'),
+        })}
       />
-    </>
+    </RecordListPage>
   );
 }
