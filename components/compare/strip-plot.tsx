@@ -18,13 +18,7 @@ import type { SpecLine } from '@/lib/compare/types';
 export type StripBatch = {
   lotCode: string;
   /** Mean angle of each drop, with its sample and whether Tukey's fences flag it. */
-  drops: {
-    value: number;
-    sample: string;
-    outlier: boolean;
-    outsideAgeWindow: boolean;
-    ageDays: number | null;
-  }[];
+  drops: { value: number; sample: string; outlier: boolean; outsideAgeWindow: boolean; ageDays: number | null }[];
   mean: number | null;
   ciLower: number | null;
   ciUpper: number | null;
@@ -33,13 +27,7 @@ export type StripBatch = {
 type Point = { x: number; y: number; label: string; err?: [number, number] };
 
 // Print-safe colours that also differ in shape, not only in hue.
-const COLOURS = {
-  drop: '#116467',
-  outlier: '#b32f1d',
-  mean: '#0e141c',
-  min: '#b32f1d',
-  max: '#9a5206',
-};
+const COLOURS = { drop: '#116467', outlier: '#b32f1d', mean: '#0e141c', min: '#b32f1d', max: '#9a5206' };
 
 function yDomain(batches: StripBatch[], lines: SpecLine[]): [number, number] {
   const values = [
@@ -86,10 +74,7 @@ export function StripPlot({
         x: i + 0.3,
         y: b.mean,
         label: `${b.lotCode} mean`,
-        err:
-          b.ciLower !== null && b.ciUpper !== null
-            ? [b.mean - b.ciLower, b.ciUpper - b.mean]
-            : [0, 0],
+        err: b.ciLower !== null && b.ciUpper !== null ? [b.mean - b.ciLower, b.ciUpper - b.mean] : [0, 0],
       });
     }
   });
@@ -119,14 +104,7 @@ export function StripPlot({
               tickFormatter={(v: number) => `${v}°`}
               width={52}
               name="Angle"
-              label={{
-                value: `${liquidName} contact angle (°)`,
-                angle: -90,
-                position: 'insideLeft',
-                fontSize: 12,
-                fill: '#263040',
-                dy: 70,
-              }}
+              label={{ value: `${liquidName} contact angle (°)`, angle: -90, position: 'insideLeft', fontSize: 12, fill: '#263040', dy: 70 }}
             />
             <ZAxis range={[42, 42]} />
             <Tooltip
@@ -150,21 +128,10 @@ export function StripPlot({
                 strokeDasharray={l.scope === 'mean' ? '8 4' : '3 3'}
                 strokeWidth={1.5}
                 ifOverflow="extendDomain"
-                label={{
-                  value: l.label,
-                  position: 'insideBottomRight',
-                  fontSize: 11,
-                  fill: '#263040',
-                }}
+                label={{ value: l.label, position: 'insideBottomRight', fontSize: 11, fill: '#263040' }}
               />
             ))}
-            <Scatter
-              name="Drop"
-              data={drops}
-              fill={COLOURS.drop}
-              shape="circle"
-              isAnimationActive={false}
-            />
+            <Scatter name="Drop" data={drops} fill={COLOURS.drop} shape="circle" isAnimationActive={false} />
             {aged.length > 0 ? (
               <Scatter
                 name="Outside the spec's age window (not counted)"
@@ -183,30 +150,17 @@ export function StripPlot({
               shape="cross"
               isAnimationActive={false}
             />
-            <Scatter
-              name="Mean ± 95 % CI"
-              data={means}
-              fill={COLOURS.mean}
-              shape="diamond"
-              isAnimationActive={false}
-            >
-              <ErrorBar
-                dataKey="err"
-                direction="y"
-                width={8}
-                stroke={COLOURS.mean}
-                strokeWidth={1.5}
-              />
+            <Scatter name="Mean ± 95 % CI" data={means} fill={COLOURS.mean} shape="diamond" isAnimationActive={false}>
+              <ErrorBar dataKey="err" direction="y" width={8} stroke={COLOURS.mean} strokeWidth={1.5} />
             </Scatter>
             <Legend verticalAlign="bottom" height={28} wrapperStyle={{ fontSize: 12 }} />
           </ScatterChart>
         </ResponsiveContainer>
       </div>
       <figcaption className="mt-1 text-xs text-ink-600">
-        {liquidName}: every drop per batch (circles; crosses are drops flagged by Tukey&apos;s
-        fences; hollow circles are drops outside a spec&apos;s age window, which that spec does not
-        count), the batch mean (diamond) with its 95 % confidence interval, and the spec limits
-        (dashed lines; long dashes are limits on the mean).
+        {liquidName}: every drop per batch (circles; crosses are drops flagged by Tukey&apos;s fences; hollow circles are drops outside a spec&apos;s age window, which that spec does not count), the batch mean
+        (diamond) with its 95 % confidence interval, and the spec limits (dashed lines; long dashes are limits on the
+        mean).
       </figcaption>
     </figure>
   );
