@@ -3,7 +3,7 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useForm, type DefaultValues, type FieldValues, type Resolver } from 'react-hook-form';
+import { useForm, type DefaultValues, type FieldValues } from 'react-hook-form';
 import type { z } from 'zod';
 import { useMutation } from '@/components/data/use-mutation';
 import { fieldsOf } from '@/components/ui/fields';
@@ -40,9 +40,10 @@ export function useRecordForm<V extends FieldValues, R extends Versioned>(option
   const router = useRouter();
   const editValues = (r: R) => ({ ...toValues(r), version: r.version }) as DefaultValues<V>;
   const form = useForm<V>({
+    // The form holds the text typed; the schema's output (numbers, dates) is what is sent.
     resolver: zodResolver(
-      (record ? options.schemas.update : options.schemas.create) as never,
-    ) as unknown as Resolver<V>,
+      (record ? options.schemas.update : options.schemas.create) as z.ZodType<V, V>,
+    ),
     defaultValues: record ? editValues(record) : (blank as DefaultValues<V>),
   });
   const mutation = useMutation<Record<string, R>, V>({ form, fields: options.fields });
