@@ -20,6 +20,17 @@ export default defineConfig({
       {
         resolve: { alias },
         test: {
+          name: 'component',
+          // Client components and hooks, rendered in happy-dom with Testing Library; no services.
+          include: ['tests/component/**/*.test.{ts,tsx}'],
+          setupFiles: ['tests/component/setup.ts'],
+          environment: 'happy-dom',
+          testTimeout: 30_000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
           name: 'integration',
           include: ['tests/integration/**/*.test.ts'],
           setupFiles: ['tests/integration/setup.ts'],

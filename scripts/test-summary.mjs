@@ -4,7 +4,7 @@ import { readFileSync } from 'node:fs';
 const report = JSON.parse(readFileSync(process.argv[2], 'utf8'));
 const layers = {};
 for (const file of report.testResults) {
-  const layer = /tests\/(unit|integration|e2e)\//.exec(file.name)?.[1] ?? 'other';
+  const layer = /tests\/(unit|component|integration|e2e)\//.exec(file.name)?.[1] ?? 'other';
   layers[layer] ??= { passed: 0, failed: 0, skipped: 0 };
   for (const t of file.assertionResults) {
     if (t.status === 'passed') layers[layer].passed++;
@@ -13,7 +13,9 @@ for (const file of report.testResults) {
   }
   if (file.status === 'failed' && file.assertionResults.length === 0) layers[layer].failed++;
 }
-for (const [layer, c] of Object.entries(layers)) {
+const ORDER = ['unit', 'component', 'integration', 'e2e', 'other'];
+const sorted = Object.entries(layers).sort(([a], [b]) => ORDER.indexOf(a) - ORDER.indexOf(b));
+for (const [layer, c] of sorted) {
   console.log(`  ${layer.padEnd(12)} ${c.passed} passed, ${c.failed} failed, ${c.skipped} skipped`);
 }
 const total = Object.values(layers).reduce(

@@ -1,7 +1,8 @@
 'use client';
 
 import { useState } from 'react';
-import { apiFetch } from '@/components/measure/api';
+import { useMutation } from '@/components/data/use-mutation';
+import { watchReplySchema } from '@/lib/contracts/coatings';
 
 /** Subscribe to an e-mail when a batch of this coating turns out of spec. */
 export function WatchCoatingButton({
@@ -12,40 +13,29 @@ export function WatchCoatingButton({
   initiallyWatching: boolean;
 }) {
   const [watching, setWatching] = useState(initiallyWatching);
-  const [pending, setPending] = useState(false);
-  const [error, setError] = useState<string | null>(null);
+  const toggle = useMutation<{ watching: boolean }>();
   return (
     <div className="flex flex-wrap items-center gap-2">
       <button
         type="button"
         className="btn-quiet py-1"
         aria-pressed={watching}
-        disabled={pending}
+        disabled={toggle.pending}
         onClick={async () => {
-          setPending(true);
-          setError(null);
-          try {
-            const result = await apiFetch<{ watching: boolean }>(
-              `/api/coatings/${coatingId}/watch`,
-              {
-                method: watching ? 'DELETE' : 'PUT',
-              },
-            );
-            setWatching(result.watching);
-          } catch (caught) {
-            setError(caught instanceof Error ? caught.message : 'That did not work. Try again.');
-          } finally {
-            setPending(false);
-          }
+          const result = await toggle.run(`/api/coatings/${coatingId}/watch`, {
+            method: watching ? 'DELETE' : 'PUT',
+            schema: watchReplySchema,
+          });
+          if (result.ok) setWatching(result.data.watching);
         }}
       >
         {watching
           ? 'Watching: e-mail me when a batch fails'
           : 'Watch: e-mail me when a batch fails'}
       </button>
-      {error ? (
+      {toggle.message ? (
         <span role="alert" className="text-sm text-coral-700">
-          {error}
+          {toggle.message}
         </span>
       ) : null}
     </div>

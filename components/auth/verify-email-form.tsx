@@ -3,7 +3,7 @@
 import Link from 'next/link';
 import { useActionState } from 'react';
 import { verifyEmailAction } from '@/app/(auth)/account-actions';
-import { FormMessages } from './form-messages';
+import { FormMessages } from './action-form';
 import { initialFormState } from './form-state';
 
 export function VerifyEmailForm({ token }: { token: string }) {

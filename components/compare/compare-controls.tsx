@@ -3,6 +3,7 @@
 import { useRouter } from 'next/navigation';
 import { useState, useTransition } from 'react';
 import { compareSearch } from '@/lib/compare/query';
+import { SelectField } from '@/components/ui/fields';
 
 type Option = { id: string; code: string; name: string };
 type BatchOption = { id: string; lotCode: string; producedOn: string };
@@ -59,37 +60,29 @@ export function CompareControls({
         go(compareSearch({ coating: coatingCode, batches: order, ref: ref || null }));
       }}
     >
-      <div>
-        <label htmlFor="compare-coating" className="field-label">
-          Coating
-        </label>
-        <select
-          id="compare-coating"
-          name="coating"
-          className="field-input"
-          value={coatingCode ?? ''}
-          onChange={(event) => {
-            const code = event.target.value;
-            setSelected([]);
-            setRef('');
-            setError(null);
-            go(compareSearch({ coating: code || null, batches: [], ref: null }));
-          }}
-        >
-          <option value="">Choose a coating…</option>
-          {coatings.map((c) => (
-            <option key={c.id} value={c.code}>
-              {c.code} — {c.name}
-            </option>
-          ))}
-        </select>
-      </div>
+      <SelectField
+        id="compare-coating"
+        name="coating"
+        label="Coating"
+        placeholder="Choose a coating…"
+        options={coatings.map((c) => ({ value: c.code, label: `${c.code} — ${c.name}` }))}
+        value={coatingCode ?? ''}
+        onChange={(event) => {
+          const code = event.target.value;
+          setSelected([]);
+          setRef('');
+          setError(null);
+          go(compareSearch({ coating: code || null, batches: [], ref: null }));
+        }}
+      />
 
       <fieldset disabled={!coatingCode} aria-describedby={error ? 'compare-error' : undefined}>
         <legend className="field-label">Batches</legend>
         {batches.length === 0 ? (
           <p className="mt-1 text-sm text-ink-600">
-            {coatingCode ? 'This coating has no batches yet.' : 'Choose a coating to list its batches.'}
+            {coatingCode
+              ? 'This coating has no batches yet.'
+              : 'Choose a coating to list its batches.'}
           </p>
         ) : (
           <div className="mt-1 flex max-h-40 flex-wrap gap-x-4 gap-y-1 overflow-y-auto">
@@ -111,7 +104,11 @@ export function CompareControls({
         )}
         {batches.length > 0 ? (
           <div className="mt-2 flex gap-2 text-xs">
-            <button type="button" className="text-lagoon-700 underline" onClick={() => setSelected(batches.map((b) => b.lotCode))}>
+            <button
+              type="button"
+              className="text-lagoon-700 underline"
+              onClick={() => setSelected(batches.map((b) => b.lotCode))}
+            >
               All
             </button>
             <button
@@ -121,36 +118,34 @@ export function CompareControls({
             >
               Newest 12
             </button>
-            <button type="button" className="text-lagoon-700 underline" onClick={() => setSelected([])}>
+            <button
+              type="button"
+              className="text-lagoon-700 underline"
+              onClick={() => setSelected([])}
+            >
               None
             </button>
           </div>
         ) : null}
       </fieldset>
 
-      <div>
-        <label htmlFor="compare-ref" className="field-label">
-          Reference batch <span className="font-normal text-ink-500">(optional)</span>
-        </label>
-        <select
-          id="compare-ref"
-          name="ref"
-          className="field-input"
-          value={ref}
-          disabled={!coatingCode}
-          onChange={(event) => setRef(event.target.value)}
-        >
-          <option value="">None</option>
-          {batches
-            .filter((b) => selected.includes(b.lotCode))
-            .map((b) => (
-              <option key={b.id} value={b.lotCode}>
-                {b.lotCode}
-              </option>
-            ))}
-        </select>
-        <p className="mt-1 text-xs text-ink-500">E.g. the last good batch; every other batch is tested against it.</p>
-      </div>
+      <SelectField
+        id="compare-ref"
+        name="ref"
+        label={
+          <>
+            Reference batch <span className="font-normal text-ink-500">(optional)</span>
+          </>
+        }
+        hint="E.g. the last good batch; every other batch is tested against it."
+        placeholder="None"
+        options={batches
+          .filter((b) => selected.includes(b.lotCode))
+          .map((b) => ({ value: b.lotCode, label: b.lotCode }))}
+        value={ref}
+        disabled={!coatingCode}
+        onChange={(event) => setRef(event.target.value)}
+      />
 
       <div className="lg:pt-6">
         <button type="submit" className="btn-primary w-full" disabled={pending || !coatingCode}>

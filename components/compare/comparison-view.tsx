@@ -6,6 +6,7 @@ import type {
   SpecVerdict,
   SurfaceEnergyComparison,
 } from '@/lib/compare/types';
+import { PlainTable } from '@/components/ui/plain-table';
 import { StripPlot, type StripBatch } from './strip-plot';
 import { TrendChart } from './trend-chart';
 
@@ -15,14 +16,19 @@ const fmt = (v: number | null | undefined, digits = 1) =>
 const VERDICT_STYLE: Record<BatchVerdict['outcome'], { label: string; className: string }> = {
   pass: { label: 'Pass', className: 'bg-leaf-100 text-leaf-900 border-leaf-500' },
   fail: { label: 'Fail', className: 'bg-coral-100 text-coral-900 border-coral-500' },
-  'not-enough-data': { label: 'Not enough data', className: 'bg-amber-100 text-amber-900 border-amber-500' },
+  'not-enough-data': {
+    label: 'Not enough data',
+    className: 'bg-amber-100 text-amber-900 border-amber-500',
+  },
   'no-spec': { label: 'No spec', className: 'bg-ink-100 text-ink-800 border-ink-300' },
 };
 
 export function VerdictBadge({ outcome }: { outcome: BatchVerdict['outcome'] }) {
   const style = VERDICT_STYLE[outcome];
   return (
-    <span className={`inline-block rounded border px-2 py-0.5 text-xs font-semibold ${style.className}`}>
+    <span
+      className={`inline-block rounded border px-2 py-0.5 text-xs font-semibold ${style.className}`}
+    >
       {style.label}
     </span>
   );
@@ -68,11 +74,17 @@ function BatchRow({ r, liquidId }: { r: BatchLiquidResult; liquidId: string }) {
   const d = r.description;
   const outliers = r.drops.filter((x) => x.outlier).length;
   return (
-    <tr className="border-t border-ink-100 align-top" data-testid={`batch-row-${liquidId}-${r.batch.lotCode}`}>
+    <tr
+      className="border-t border-ink-100 align-top"
+      data-testid={`batch-row-${liquidId}-${r.batch.lotCode}`}
+    >
       <th scope="row" className="py-2 pr-3 text-left font-normal">
         <span className="font-mono font-medium">{r.batch.lotCode}</span>
         <span className="block text-xs text-ink-500">{r.batch.producedOn}</span>
-        <a href={`/api/batches/${r.batch.id}/report`} className="block text-xs text-lagoon-700 underline print:hidden">
+        <a
+          href={`/api/batches/${r.batch.id}/report`}
+          className="block text-xs text-lagoon-700 underline print:hidden"
+        >
           Certificate (PDF)
         </a>
       </th>
@@ -88,9 +100,15 @@ function BatchRow({ r, liquidId }: { r: BatchLiquidResult; liquidId: string }) {
       </td>
       <td className="py-2 pr-3 text-sm">{r.wettingClass ? r.wettingClass.label : '—'}</td>
       <td className="py-2 pr-3" data-testid={`verdict-${liquidId}-${r.batch.lotCode}`}>
-        <VerdictDetail verdict={r.verdict} noSpec="The coating has no angle spec for this liquid." />
+        <VerdictDetail
+          verdict={r.verdict}
+          noSpec="The coating has no angle spec for this liquid."
+        />
       </td>
-      <td className="py-2 pr-3 text-right tabular-nums" title={r.capability?.rule ?? r.capabilityNote ?? ''}>
+      <td
+        className="py-2 pr-3 text-right tabular-nums"
+        title={r.capability?.rule ?? r.capabilityNote ?? ''}
+      >
         {r.capability ? fmt(r.capability.cpk, 2) : '—'}
       </td>
       <td className="py-2 text-right tabular-nums">{r.outliers ? outliers : '—'}</td>
@@ -98,7 +116,13 @@ function BatchRow({ r, liquidId }: { r: BatchLiquidResult; liquidId: string }) {
   );
 }
 
-function LiquidSection({ liquid, referenceLot }: { liquid: LiquidComparison; referenceLot: string | null }) {
+function LiquidSection({
+  liquid,
+  referenceLot,
+}: {
+  liquid: LiquidComparison;
+  referenceLot: string | null;
+}) {
   const measured = liquid.batches.filter((r) => r.drops.length > 0);
   const id = liquid.liquid.id;
   const capabilityRule = liquid.batches.find((r) => r.capability)?.capability;
@@ -108,14 +132,23 @@ function LiquidSection({ liquid, referenceLot }: { liquid: LiquidComparison; ref
       {liquid.specs.length > 0 ? (
         <p className="mt-1 text-sm text-ink-600">
           Spec: {liquid.specLines.map((l) => l.label).join('; ')}
-          {liquid.specs.some((s) => s.note) ? ` — ${liquid.specs.map((s) => s.note).filter(Boolean).join(' ')}` : ''}
+          {liquid.specs.some((s) => s.note)
+            ? ` — ${liquid.specs
+                .map((s) => s.note)
+                .filter(Boolean)
+                .join(' ')}`
+            : ''}
         </p>
       ) : (
-        <p className="mt-1 text-sm text-ink-600">The coating has no angle spec for {liquid.liquid.name.toLowerCase()}.</p>
+        <p className="mt-1 text-sm text-ink-600">
+          The coating has no angle spec for {liquid.liquid.name.toLowerCase()}.
+        </p>
       )}
 
       {measured.length === 0 ? (
-        <p className="mt-4 text-sm text-ink-700">No drops of this liquid in the chosen batches yet.</p>
+        <p className="mt-4 text-sm text-ink-700">
+          No drops of this liquid in the chosen batches yet.
+        </p>
       ) : (
         <>
           <div className="mt-4">
@@ -127,43 +160,48 @@ function LiquidSection({ liquid, referenceLot }: { liquid: LiquidComparison; ref
             />
           </div>
 
-          <div className="mt-4 overflow-x-auto">
-            <table className="w-full min-w-[52rem] text-sm">
-              <caption className="sr-only">{liquid.liquid.name}: batches, statistics and verdicts</caption>
-              <thead>
-                <tr className="text-left text-xs uppercase tracking-wide text-ink-500">
-                  <th scope="col" className="py-2 pr-3">Batch</th>
-                  <th scope="col" className="py-2 pr-3 text-right">n</th>
-                  <th scope="col" className="py-2 pr-3 text-right">Mean (°)</th>
-                  <th scope="col" className="py-2 pr-3 text-right">SD (°)</th>
-                  <th scope="col" className="py-2 pr-3 text-right">95 % CI (°)</th>
-                  <th scope="col" className="py-2 pr-3">Class</th>
-                  <th scope="col" className="py-2 pr-3">Verdict</th>
-                  <th scope="col" className="py-2 pr-3 text-right">Cpk</th>
-                  <th scope="col" className="py-2 text-right">Outliers</th>
-                </tr>
-              </thead>
-              <tbody>
-                {liquid.batches.map((r) => (
-                  <BatchRow key={r.batch.id} r={r} liquidId={id} />
-                ))}
-              </tbody>
-            </table>
+          <div className="mt-4">
+            <PlainTable
+              className="min-w-[52rem]"
+              caption={`${liquid.liquid.name}: batches, statistics and verdicts`}
+              head={[
+                'Batch',
+                { label: 'n', align: 'right' },
+                { label: 'Mean (°)', align: 'right' },
+                { label: 'SD (°)', align: 'right' },
+                { label: '95 % CI (°)', align: 'right' },
+                'Class',
+                'Verdict',
+                { label: 'Cpk', align: 'right' },
+                { label: 'Outliers', align: 'right' },
+              ]}
+            >
+              {liquid.batches.map((r) => (
+                <BatchRow key={r.batch.id} r={r} liquidId={id} />
+              ))}
+            </PlainTable>
           </div>
           <p className="mt-2 text-xs text-ink-600">
-            CI: Student t interval of the mean. Class: water only, from the batch mean by common-practice thresholds
-            (below 90° hydrophilic, above 90° hydrophobic). Cpk:{' '}
-            {capabilityRule ? `${capabilityRule.rule}, σ ${capabilityRule.sigmaMethod}` : 'needs spec limits and at least two drops with some spread'}
-            . Outliers: drops flagged by Tukey&apos;s fences (k = 1.5) within their batch, kept in every statistic.
+            CI: Student t interval of the mean. Class: water only, from the batch mean by
+            common-practice thresholds (below 90° hydrophilic, above 90° hydrophobic). Cpk:{' '}
+            {capabilityRule
+              ? `${capabilityRule.rule}, σ ${capabilityRule.sigmaMethod}`
+              : 'needs spec limits and at least two drops with some spread'}
+            . Outliers: drops flagged by Tukey&apos;s fences (k = 1.5) within their batch, kept in
+            every statistic.
           </p>
 
           <h3 className="mt-5 text-base font-semibold">Batch against batch</h3>
           {liquid.vsPrevious.length === 0 ? (
-            <p className="mt-1 text-sm text-ink-700">Only one batch has drops; there is nothing to test it against.</p>
+            <p className="mt-1 text-sm text-ink-700">
+              Only one batch has drops; there is nothing to test it against.
+            </p>
           ) : (
             <div className="mt-1 grid gap-3 md:grid-cols-2" data-testid={`tests-${id}`}>
               <div>
-                <h4 className="text-sm font-medium text-ink-800">Against the batch produced before</h4>
+                <h4 className="text-sm font-medium text-ink-800">
+                  Against the batch produced before
+                </h4>
                 <ul className="mt-1 list-disc space-y-1 pl-5 text-sm">
                   {liquid.vsPrevious.map((t) => (
                     <li key={t.batchId}>{t.sentence}</li>
@@ -231,68 +269,81 @@ function SurfaceEnergySection({ se }: { se: SurfaceEnergyComparison }) {
   const pm = (v: { value: number; standardUncertainty: number } | null) =>
     v ? `${fmt(v.value)} ± ${fmt(k * v.standardUncertainty)}` : '—';
   return (
-    <section className="card compare-section mb-6" aria-labelledby="surface-energy-heading" data-testid="surface-energy-section">
+    <section
+      className="card compare-section mb-6"
+      aria-labelledby="surface-energy-heading"
+      data-testid="surface-energy-section"
+    >
       <h2 id="surface-energy-heading">Surface free energy</h2>
       <p className="mt-1 text-sm text-ink-600">
         {se.specs.length > 0
           ? `Spec: ${se.limitLabels.join('; ')}`
           : 'The coating has no surface-energy limit; the values are shown for information.'}
-        {se.windowDays !== null ? ` — values from drops measured within ${se.windowDays} days of treatment.` : ''}
+        {se.windowDays !== null
+          ? ` — values from drops measured within ${se.windowDays} days of treatment.`
+          : ''}
       </p>
-      <div className="mt-4 overflow-x-auto">
-        <table className="w-full min-w-[48rem] text-sm">
-          <caption className="sr-only">Surface free energy of each batch and its verdict</caption>
-          <thead>
-            <tr className="text-left text-xs uppercase tracking-wide text-ink-500">
-              <th scope="col" className="py-2 pr-3">Batch</th>
-              <th scope="col" className="py-2 pr-3">Liquids (n, mean angle)</th>
-              <th scope="col" className="py-2 pr-3 text-right">Total ± U (mN/m)</th>
-              <th scope="col" className="py-2 pr-3 text-right">Dispersive ± U</th>
-              <th scope="col" className="py-2 pr-3 text-right">Polar ± U</th>
-              <th scope="col" className="py-2">Verdict</th>
-            </tr>
-          </thead>
-          <tbody>
-            {se.batches.map((r) => (
-              <tr
-                key={r.batch.id}
-                className="border-t border-ink-100 align-top"
-                data-testid={`surface-energy-row-${r.batch.lotCode}`}
+      <div className="mt-4">
+        <PlainTable
+          className="min-w-[48rem]"
+          caption="Surface free energy of each batch and its verdict"
+          head={[
+            'Batch',
+            'Liquids (n, mean angle)',
+            { label: 'Total ± U (mN/m)', align: 'right' },
+            { label: 'Dispersive ± U', align: 'right' },
+            { label: 'Polar ± U', align: 'right' },
+            'Verdict',
+          ]}
+        >
+          {se.batches.map((r) => (
+            <tr
+              key={r.batch.id}
+              className="border-t border-ink-100 align-top"
+              data-testid={`surface-energy-row-${r.batch.lotCode}`}
+            >
+              <th scope="row" className="py-2 pr-3 text-left font-normal">
+                <span className="font-mono font-medium">{r.batch.lotCode}</span>
+                <a
+                  href={`/surface-energy?batch=${encodeURIComponent(r.batch.id)}`}
+                  className="block text-xs text-lagoon-700 underline print:hidden"
+                >
+                  Other methods
+                </a>
+              </th>
+              <td className="py-2 pr-3 text-xs">
+                {r.liquids.length === 0
+                  ? '—'
+                  : r.liquids.map((l) => (
+                      <span key={l.id} className="block whitespace-nowrap">
+                        {l.name}: n = {l.n}, {fmt(l.meanDeg)}°
+                      </span>
+                    ))}
+              </td>
+              <td
+                className="py-2 pr-3 text-right tabular-nums whitespace-nowrap"
+                data-testid="surface-energy-total"
               >
-                <th scope="row" className="py-2 pr-3 text-left font-normal">
-                  <span className="font-mono font-medium">{r.batch.lotCode}</span>
-                  <a
-                    href={`/surface-energy?batch=${encodeURIComponent(r.batch.id)}`}
-                    className="block text-xs text-lagoon-700 underline print:hidden"
-                  >
-                    Other methods
-                  </a>
-                </th>
-                <td className="py-2 pr-3 text-xs">
-                  {r.liquids.length === 0
-                    ? '—'
-                    : r.liquids.map((l) => (
-                        <span key={l.id} className="block whitespace-nowrap">
-                          {l.name}: n = {l.n}, {fmt(l.meanDeg)}°
-                        </span>
-                      ))}
-                </td>
-                <td className="py-2 pr-3 text-right tabular-nums whitespace-nowrap" data-testid="surface-energy-total">
-                  {r.total ? pm(r.total) : <span className="text-xs text-ink-600">{r.note}</span>}
-                </td>
-                <td className="py-2 pr-3 text-right tabular-nums whitespace-nowrap">{pm(r.dispersive)}</td>
-                <td className="py-2 pr-3 text-right tabular-nums whitespace-nowrap">{pm(r.polar)}</td>
-                <td className="py-2" data-testid={`verdict-surface-energy-${r.batch.lotCode}`}>
-                  <VerdictDetail verdict={r.verdict} noSpec="The coating has no surface-energy limit." />
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+                {r.total ? pm(r.total) : <span className="text-xs text-ink-600">{r.note}</span>}
+              </td>
+              <td className="py-2 pr-3 text-right tabular-nums whitespace-nowrap">
+                {pm(r.dispersive)}
+              </td>
+              <td className="py-2 pr-3 text-right tabular-nums whitespace-nowrap">{pm(r.polar)}</td>
+              <td className="py-2" data-testid={`verdict-surface-energy-${r.batch.lotCode}`}>
+                <VerdictDetail
+                  verdict={r.verdict}
+                  noSpec="The coating has no surface-energy limit."
+                />
+              </td>
+            </tr>
+          ))}
+        </PlainTable>
       </div>
       <p className="mt-2 text-xs text-ink-600">
-        {se.method}. {se.basis} The surface-energy page shows one standard uncertainty instead. The verdict is on the value itself; a limit within its uncertainty makes the verdict
-        marginal, and the reason says so.
+        {se.method}. {se.basis} The surface-energy page shows one standard uncertainty instead. The
+        verdict is on the value itself; a limit within its uncertainty makes the verdict marginal,
+        and the reason says so.
       </p>
     </section>
   );
@@ -306,14 +357,20 @@ export function ComparisonView({ comparison }: { comparison: Comparison }) {
         role="note"
         aria-label="Safety note"
       >
-        <strong>Safety note:</strong> these verdicts support the lab&apos;s judgement. Results that release product for
-        safety-relevant uses must follow the lab&apos;s validated procedure and qualified sign-off.
+        <strong>Safety note:</strong> these verdicts support the lab&apos;s judgement. Results that
+        release product for safety-relevant uses must follow the lab&apos;s validated procedure and
+        qualified sign-off.
       </div>
       <p className="mb-4 text-xs text-ink-600">
-        {comparison.angleBasis} A verdict needs at least 3 drops; with fewer it says so instead of passing or failing.
+        {comparison.angleBasis} A verdict needs at least 3 drops; with fewer it says so instead of
+        passing or failing.
       </p>
       {comparison.liquids.map((liquid) => (
-        <LiquidSection key={liquid.liquid.id} liquid={liquid} referenceLot={comparison.referenceBatch?.lotCode ?? null} />
+        <LiquidSection
+          key={liquid.liquid.id}
+          liquid={liquid}
+          referenceLot={comparison.referenceBatch?.lotCode ?? null}
+        />
       ))}
       {comparison.surfaceEnergy ? <SurfaceEnergySection se={comparison.surfaceEnergy} /> : null}
     </div>

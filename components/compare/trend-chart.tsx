@@ -18,7 +18,11 @@ type DotProps = { cx?: number; cy?: number; payload?: TrendPoint; index?: number
 function TrendDot({ cx, cy, payload }: DotProps) {
   if (cx === undefined || cy === undefined || !payload) return null;
   return payload.outsideLimits ? (
-    <path d={`M${cx - 5},${cy - 5}L${cx + 5},${cy + 5}M${cx - 5},${cy + 5}L${cx + 5},${cy - 5}`} stroke="#b32f1d" strokeWidth={2.5} />
+    <path
+      d={`M${cx - 5},${cy - 5}L${cx + 5},${cy + 5}M${cx - 5},${cy + 5}L${cx + 5},${cy - 5}`}
+      stroke="#b32f1d"
+      strokeWidth={2.5}
+    />
   ) : (
     <circle cx={cx} cy={cy} r={4} fill="#116467" />
   );
@@ -53,7 +57,11 @@ export function TrendChart({
     <figure className="compare-chart" data-testid={testId}>
       <div className="h-72 w-full">
         <ResponsiveContainer width="100%" height="100%">
-          <LineChart data={data} margin={{ top: 12, right: 90, bottom: 8, left: 4 }} accessibilityLayer>
+          <LineChart
+            data={data}
+            margin={{ top: 12, right: 90, bottom: 8, left: 4 }}
+            accessibilityLayer
+          >
             <CartesianGrid stroke="#e6eaef" />
             <XAxis
               dataKey="lotCode"
@@ -87,22 +95,43 @@ export function TrendChart({
                   <div className="rounded border border-ink-200 bg-white px-2 py-1 text-xs shadow">
                     <div className="font-medium">{p.label}</div>
                     <div>
-                      mean {p.mean.toFixed(2)}°{p.outsideLimits ? ' · outside the control limits' : ''}
+                      mean {p.mean.toFixed(2)}°
+                      {p.outsideLimits ? ' · outside the control limits' : ''}
                     </div>
                   </div>
                 );
               }}
             />
-            <ReferenceLine y={centreLine} stroke="#354154" label={{ value: `CL ${centreLine.toFixed(1)}°`, position: 'right', fontSize: 11, fill: '#263040' }} />
-            <ReferenceLine y={ucl} stroke="#55667d" strokeDasharray="6 3" label={{ value: `UCL ${ucl.toFixed(1)}°`, position: 'right', fontSize: 11, fill: '#263040' }} />
-            <ReferenceLine y={lcl} stroke="#55667d" strokeDasharray="6 3" label={{ value: `LCL ${lcl.toFixed(1)}°`, position: 'right', fontSize: 11, fill: '#263040' }} />
+            {[
+              { y: centreLine, name: 'CL', stroke: '#354154', dash: undefined },
+              { y: ucl, name: 'UCL', stroke: '#55667d', dash: '6 3' },
+              { y: lcl, name: 'LCL', stroke: '#55667d', dash: '6 3' },
+            ].map((line) => (
+              <ReferenceLine
+                key={line.name}
+                y={line.y}
+                stroke={line.stroke}
+                strokeDasharray={line.dash}
+                label={{
+                  value: `${line.name} ${line.y.toFixed(1)}°`,
+                  position: 'right',
+                  fontSize: 11,
+                  fill: '#263040',
+                }}
+              />
+            ))}
             {specLines.map((l) => (
               <ReferenceLine
                 key={`${l.specId}-${l.kind}`}
                 y={l.value}
                 stroke={l.kind === 'min' ? '#b32f1d' : '#9a5206'}
                 strokeDasharray={l.scope === 'mean' ? '8 4' : '3 3'}
-                label={{ value: l.label, position: 'insideBottomLeft', fontSize: 11, fill: '#263040' }}
+                label={{
+                  value: l.label,
+                  position: 'insideBottomLeft',
+                  fontSize: 11,
+                  fill: '#263040',
+                }}
               />
             ))}
             <Line

@@ -1,5 +1,7 @@
 import Link from 'next/link';
 import type { OutOfSpecBatch, RecentDrop } from '@/lib/contracts/dashboard';
+import { fmtUtc } from '@/components/ui/format';
+import { PlainTable } from '@/components/ui/plain-table';
 
 const STATUS: Record<RecentDrop['reviewStatus'], string> = {
   draft: 'Draft',
@@ -8,12 +10,13 @@ const STATUS: Record<RecentDrop['reviewStatus'], string> = {
   rejected: 'Rejected',
 };
 
-const when = (iso: string) =>
-  new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }).format(
-    new Date(iso),
-  ) + ' UTC';
-
-export function RecentDrops({ drops, approvedOnly }: { drops: RecentDrop[]; approvedOnly: boolean }) {
+export function RecentDrops({
+  drops,
+  approvedOnly,
+}: {
+  drops: RecentDrop[];
+  approvedOnly: boolean;
+}) {
   return (
     <section className="card lg:col-span-2" aria-labelledby="recent-drops">
       <h2 id="recent-drops">Recent drops</h2>
@@ -24,34 +27,33 @@ export function RecentDrops({ drops, approvedOnly }: { drops: RecentDrop[]; appr
             : 'No drop photos have been measured in this organization yet.'}
         </p>
       ) : (
-        <div className="mt-3 overflow-x-auto">
-          <table className="w-full min-w-[36rem] text-sm" data-testid="recent-drops">
-            <thead>
-              <tr className="text-left text-xs uppercase tracking-wide text-ink-500">
-                <th scope="col" className="py-1.5 pr-3">Sample</th>
-                <th scope="col" className="py-1.5 pr-3">Liquid</th>
-                <th scope="col" className="py-1.5 pr-3 text-right">Mean angle</th>
-                <th scope="col" className="py-1.5 pr-3">When</th>
-                <th scope="col" className="py-1.5 pr-3">Who</th>
-                <th scope="col" className="py-1.5">Status</th>
+        <div className="mt-3">
+          <PlainTable
+            testId="recent-drops"
+            className="min-w-[36rem]"
+            head={[
+              'Sample',
+              'Liquid',
+              { label: 'Mean angle', align: 'right' },
+              'When',
+              'Who',
+              'Status',
+            ]}
+          >
+            {drops.map((d) => (
+              <tr key={d.dropId} className="border-t border-ink-100">
+                <td className="py-1.5 pr-3">
+                  <span className="font-mono">{d.lotCode}</span> · {d.sampleLabel}
+                  <span className="block text-xs text-ink-500">{d.coatingCode}</span>
+                </td>
+                <td className="py-1.5 pr-3">{d.liquidName}</td>
+                <td className="py-1.5 pr-3 text-right tabular-nums">{d.meanDeg.toFixed(1)}°</td>
+                <td className="py-1.5 pr-3 whitespace-nowrap">{fmtUtc(d.measuredAt)}</td>
+                <td className="py-1.5 pr-3">{d.measuredBy ?? 'Former member'}</td>
+                <td className="py-1.5">{STATUS[d.reviewStatus]}</td>
               </tr>
-            </thead>
-            <tbody>
-              {drops.map((d) => (
-                <tr key={d.dropId} className="border-t border-ink-100">
-                  <td className="py-1.5 pr-3">
-                    <span className="font-mono">{d.lotCode}</span> · {d.sampleLabel}
-                    <span className="block text-xs text-ink-500">{d.coatingCode}</span>
-                  </td>
-                  <td className="py-1.5 pr-3">{d.liquidName}</td>
-                  <td className="py-1.5 pr-3 text-right tabular-nums">{d.meanDeg.toFixed(1)}°</td>
-                  <td className="py-1.5 pr-3 whitespace-nowrap">{when(d.measuredAt)}</td>
-                  <td className="py-1.5 pr-3">{d.measuredBy ?? 'Former member'}</td>
-                  <td className="py-1.5">{STATUS[d.reviewStatus]}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+            ))}
+          </PlainTable>
         </div>
       )}
     </section>
@@ -63,10 +65,15 @@ export function PendingReviews({ count }: { count: number | null }) {
     <section className="card" aria-labelledby="pending-reviews">
       <h2 id="pending-reviews">Pending reviews</h2>
       {count === null ? (
-        <p className="mt-2 text-sm text-ink-600">Reviews are handled by reviewers; you see results once they are approved.</p>
+        <p className="mt-2 text-sm text-ink-600">
+          Reviews are handled by reviewers; you see results once they are approved.
+        </p>
       ) : (
         <>
-          <p className="mt-2 text-3xl font-semibold tabular-nums text-ink-950" data-testid="pending-reviews-count">
+          <p
+            className="mt-2 text-3xl font-semibold tabular-nums text-ink-950"
+            data-testid="pending-reviews-count"
+          >
             {count}
           </p>
           <p className="text-sm text-ink-600">
@@ -98,7 +105,9 @@ export function OutOfSpec({ batches }: { batches: OutOfSpecBatch[] }) {
               >
                 {b.coatingCode} {b.lotCode}
               </Link>{' '}
-              <span className="text-ink-500">({b.producedOn}, {b.liquidName})</span>
+              <span className="text-ink-500">
+                ({b.producedOn}, {b.liquidName})
+              </span>
               <span className="block text-ink-700">
                 Fails: {b.rule}. {b.reason}
               </span>
@@ -107,8 +116,8 @@ export function OutOfSpec({ batches }: { batches: OutOfSpecBatch[] }) {
         </ul>
       )}
       <p className="mt-2 text-xs text-ink-600">
-        Results that release product for safety-relevant uses must follow the lab&apos;s validated procedure and qualified
-        sign-off.
+        Results that release product for safety-relevant uses must follow the lab&apos;s validated
+        procedure and qualified sign-off.
       </p>
     </section>
   );

@@ -1,19 +1,11 @@
 'use client';
 
 import { useState } from 'react';
+import { NumberField, SelectField, TextField } from '@/components/ui/fields';
 import type { Point } from '@/lib/analysis/types';
-import type { LiquidChoice } from './workspace';
+import type { LiquidChoice, SessionDetails } from './types';
 
-export type SessionDetails = {
-  probeLiquidId: string;
-  operatorName: string;
-  temperatureC: string;
-  humidityPct: string;
-  dropVolumeUl: string;
-  scalePxPerMm: string;
-  /** Created on the first save with these details; cleared when they change. */
-  sessionId: string | null;
-};
+export type { SessionDetails };
 
 /** The sitting at the instrument: liquid, conditions, operator and camera scale. */
 export function SessionPanel(props: {
@@ -26,61 +18,52 @@ export function SessionPanel(props: {
 }) {
   const { value, onChange } = props;
   const [needleMm, setNeedleMm] = useState('0.51');
-  const field = (key: keyof SessionDetails, label: string, unit: string, inputMode: 'decimal' | 'text' = 'decimal') => (
-    <div>
-      <label htmlFor={`session-${key}`} className="field-label">
-        {label} <span className="font-normal text-ink-500">{unit}</span>
-      </label>
-      <input
-        id={`session-${key}`}
-        className="field-input"
-        inputMode={inputMode}
-        value={value[key] ?? ''}
-        onChange={(e) => onChange({ ...value, [key]: e.target.value })}
-      />
-    </div>
-  );
+  const bind = (key: keyof Omit<SessionDetails, 'sessionId'>) => ({
+    id: `session-${key}`,
+    value: value[key],
+    onChange: (event: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) =>
+      onChange({ ...value, [key]: event.target.value }),
+  });
   const picked = props.picked;
-  const pixelDistance = picked && picked.length >= 2 ? Math.hypot(picked[1][0] - picked[0][0], picked[1][1] - picked[0][1]) : null;
+  const pixelDistance =
+    picked && picked.length >= 2
+      ? Math.hypot(picked[1][0] - picked[0][0], picked[1][1] - picked[0][1])
+      : null;
+  const needle = Number(needleMm);
   return (
     <section className="card space-y-3" aria-label="Session">
       <h2>Session</h2>
-      <div>
-        <label htmlFor="session-liquid" className="field-label">
-          Probe liquid
-        </label>
-        <select
-          id="session-liquid"
-          className="field-input"
-          value={value.probeLiquidId}
-          onChange={(e) => onChange({ ...value, probeLiquidId: e.target.value })}
-        >
-          {props.liquids.map((l) => (
-            <option key={l.id} value={l.id}>
-              {l.name}
-            </option>
-          ))}
-        </select>
-      </div>
-      {field('operatorName', 'Operator', '', 'text')}
+      <SelectField
+        label="Probe liquid"
+        options={props.liquids.map((l) => ({ value: l.id, label: l.name }))}
+        {...bind('probeLiquidId')}
+        id="session-liquid"
+      />
+      <TextField label="Operator" {...bind('operatorName')} />
       <div className="grid grid-cols-3 gap-2">
-        {field('temperatureC', 'Temp.', '°C')}
-        {field('humidityPct', 'RH', '%')}
-        {field('dropVolumeUl', 'Drop', 'µL')}
+        <NumberField label="Temp." unit="°C" {...bind('temperatureC')} />
+        <NumberField label="RH" unit="%" {...bind('humidityPct')} />
+        <NumberField label="Drop" unit="µL" {...bind('dropVolumeUl')} />
       </div>
-      {field('scalePxPerMm', 'Camera scale', 'px/mm')}
+      <NumberField label="Camera scale" unit="px/mm" {...bind('scalePxPerMm')} />
       <div className="rounded-md bg-ink-50 p-2 text-sm">
         <p className="mb-1 text-ink-700">Measure the scale on the needle:</p>
         <div className="flex items-end gap-2">
-          <div className="flex-1">
-            <label htmlFor="needle-mm" className="text-xs text-ink-600">
-              Needle outer diameter (mm)
-            </label>
-            <input id="needle-mm" className="field-input" inputMode="decimal" value={needleMm} onChange={(e) => setNeedleMm(e.target.value)} />
-          </div>
-          {pixelDistance !== null && Number(needleMm) > 0 ? (
-            <button type="button" className="btn-primary" onClick={() => props.onCalibrated(pixelDistance / Number(needleMm))}>
-              Use {(pixelDistance / Number(needleMm)).toFixed(1)} px/mm
+          <NumberField
+            id="needle-mm"
+            className="flex-1"
+            label="Needle outer diameter"
+            unit="mm"
+            value={needleMm}
+            onChange={(e) => setNeedleMm(e.target.value)}
+          />
+          {pixelDistance !== null && needle > 0 ? (
+            <button
+              type="button"
+              className="btn-primary"
+              onClick={() => props.onCalibrated(pixelDistance / needle)}
+            >
+              Use {(pixelDistance / needle).toFixed(1)} px/mm
             </button>
           ) : (
             <button type="button" className="btn-quiet" onClick={props.onCalibrate}>

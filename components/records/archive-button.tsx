@@ -2,7 +2,8 @@
 
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { RecordApiError, sendJson } from './api';
+import { useMutation } from '@/components/data/use-mutation';
+import { deleteReplySchema } from '@/lib/contracts/common';
 
 /**
  * Archive-or-delete: the API deletes a record with nothing under it and archives one that has
@@ -22,8 +23,8 @@ export function ArchiveButton({
   label?: string;
 }) {
   const router = useRouter();
-  const [message, setMessage] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const archiving = useMutation<{ outcome: 'archived' | 'deleted' }>();
+  const [outcome, setOutcome] = useState<'archived' | 'deleted' | null>(null);
   const run = async () => {
     if (
       !window.confirm(
@@ -31,30 +32,26 @@ export function ArchiveButton({
       )
     )
       return;
-    setBusy(true);
-    try {
-      const body = await sendJson<{ outcome: 'archived' | 'deleted' }>(
-        `${url}?version=${version}`,
-        'DELETE',
-      );
-      setMessage(
-        body.outcome === 'archived'
-          ? `The ${what} was archived: it has records under it, so it is kept but can no longer be changed.`
-          : `The ${what} was deleted: nothing referred to it.`,
-      );
-      if (body.outcome === 'deleted' && afterDeleteHref) router.push(afterDeleteHref);
-      else router.refresh();
-    } catch (error) {
-      setMessage(
-        error instanceof RecordApiError ? error.message : 'Something went wrong. Try again.',
-      );
-    } finally {
-      setBusy(false);
-    }
+    setOutcome(null);
+    const result = await archiving.run(`${url}?version=${version}`, {
+      method: 'DELETE',
+      schema: deleteReplySchema,
+    });
+    if (!result.ok) return;
+    setOutcome(result.data.outcome);
+    if (result.data.outcome === 'deleted' && afterDeleteHref) router.push(afterDeleteHref);
+    else router.refresh();
   };
+  const message =
+    archiving.message ??
+    (outcome === 'archived'
+      ? `The ${what} was archived: it has records under it, so it is kept but can no longer be changed.`
+      : outcome === 'deleted'
+        ? `The ${what} was deleted: nothing referred to it.`
+        : null);
   return (
     <span className="inline-flex flex-col gap-1">
-      <button type="button" className="btn-quiet py-1" onClick={run} disabled={busy}>
+      <button type="button" className="btn-quiet py-1" onClick={run} disabled={archiving.pending}>
         {label}
       </button>
       {message ? (

@@ -2,14 +2,22 @@
 
 import { useRouter } from 'next/navigation';
 import type { ColumnDef } from '@tanstack/react-table';
-import type { Batch, BatchListItem } from '@/lib/contracts/batches';
 import { DataTable, TableLink, type DataTableProps } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
-import { InputField, SelectField, TextAreaField } from '@/components/ui/form-field';
-import { PROCESS_PARAMETERS, batchCreateSchema, batchUpdateSchema, type ProcessParameterKey } from '@/lib/contracts/batches';
+import { NumberField, SelectField, TextAreaField, TextField } from '@/components/ui/fields';
+import {
+  PROCESS_PARAMETERS,
+  batchCreateSchema,
+  batchReplies,
+  batchUpdateSchema,
+  type Batch,
+  type BatchListItem,
+  type ProcessParameterKey,
+} from '@/lib/contracts/batches';
 import { fmtDate } from './format';
+import { RecordForm } from './record-form';
 import type { Choice } from './specs';
-import { FormMessages, useRecordForm } from './use-record-form';
+import { useRecordForm } from './use-record-form';
 
 const PARAMETER_KEYS = Object.keys(PROCESS_PARAMETERS) as ProcessParameterKey[];
 
@@ -87,6 +95,7 @@ const LABELS: Record<string, string> = {
   ),
 };
 const FIELDS = ['coatingId', 'lotCode', 'producedOn', 'process', 'notes'];
+const SCHEMAS = { create: batchCreateSchema, update: batchUpdateSchema };
 
 type BatchValues = {
   coatingId: string;
@@ -113,29 +122,29 @@ export function BatchForm({
   defaultCoatingId?: string;
 }) {
   const router = useRouter();
-  const formId = batch ? `batch-${batch.id}` : 'batch-new';
-  const blank: BatchValues = {
-    coatingId: defaultCoatingId ?? '',
-    lotCode: '',
-    producedOn: '',
-    process: processText({}),
-    notes: '',
-  };
-  const { form, onSubmit, notice, conflict, reapply } = useRecordForm<BatchValues>({
-    schema: batch ? batchUpdateSchema : batchCreateSchema,
-    defaultValues: batch
-      ? {
-          coatingId: batch.coatingId,
-          lotCode: batch.lotCode,
-          producedOn: batch.producedOn,
-          process: processText(batch.process),
-          notes: batch.notes,
-          version: batch.version,
-        }
-      : blank,
+  const { field, formProps } = useRecordForm<BatchValues, Batch>({
+    noun: 'batch',
+    collection: '/api/batches',
+    replyKey: 'batch',
+    reply: batchReplies.one,
+    record: batch,
+    schemas: SCHEMAS,
+    blank: {
+      coatingId: defaultCoatingId ?? '',
+      lotCode: '',
+      producedOn: '',
+      process: processText({}),
+      notes: '',
+    },
+    toValues: (saved) => ({
+      coatingId: saved.coatingId,
+      lotCode: saved.lotCode,
+      producedOn: saved.producedOn,
+      process: processText(saved.process),
+      notes: saved.notes,
+    }),
+    labels: LABELS,
     fields: FIELDS,
-    url: batch ? `/api/batches/${batch.id}` : '/api/batches',
-    method: batch ? 'PATCH' : 'POST',
     toBody: (values) => ({
       ...values,
       // Parameters left empty are not recorded (the schema turns '' into undefined).
@@ -143,65 +152,33 @@ export function BatchForm({
         Object.entries(values.process ?? {}).filter(([, v]) => v !== undefined),
       ),
     }),
-    onSaved: (body) => {
-      const saved = body.batch as Batch;
-      if (!batch) router.push(`/batches/${saved.id}`);
-      else
-        form.reset({
-          coatingId: saved.coatingId,
-          lotCode: saved.lotCode,
-          producedOn: saved.producedOn,
-          process: processText(saved.process),
-          notes: saved.notes,
-          version: saved.version,
-        });
-    },
+    onCreated: (saved) => router.push(`/batches/${saved.id}`),
   });
   return (
-    <form
-      onSubmit={onSubmit}
-      noValidate
-      className="space-y-3"
-      aria-label={batch ? 'Edit batch' : 'New batch'}
-    >
-      <FormMessages notice={notice} conflict={conflict} labels={LABELS} onReapply={reapply} />
+    <RecordForm {...formProps}>
       <div className="grid gap-3 sm:grid-cols-3">
         <SelectField
-          form={form}
-          formId={formId}
-          name="coatingId"
           label="Coating"
           options={coatings}
           placeholder="Choose a coating"
+          {...field('coatingId')}
         />
-        <InputField
-          form={form}
-          formId={formId}
-          name="lotCode"
-          label="Lot code"
-          hint="Like B-0412"
-        />
-        <InputField form={form} formId={formId} name="producedOn" label="Produced on" type="date" />
+        <TextField label="Lot code" hint="Like B-0412" {...field('lotCode')} />
+        <TextField label="Produced on" type="date" {...field('producedOn')} />
       </div>
       <fieldset>
         <legend className="field-label">Process parameters (leave empty when not recorded)</legend>
         <div className="mt-1 grid gap-3 sm:grid-cols-3">
           {PARAMETER_KEYS.map((key) => (
-            <InputField
+            <NumberField
               key={key}
-              form={form}
-              formId={formId}
-              name={`process.${key}`}
               label={`${PROCESS_PARAMETERS[key].label} (${PROCESS_PARAMETERS[key].unit})`}
-              inputMode="decimal"
+              {...field(`process.${key}`)}
             />
           ))}
         </div>
       </fieldset>
-      <TextAreaField form={form} formId={formId} name="notes" label="Notes" />
-      <button type="submit" className="btn-primary" disabled={form.formState.isSubmitting}>
-        {batch ? 'Save batch' : 'Add batch'}
-      </button>
-    </form>
+      <TextAreaField label="Notes" {...field('notes')} />
+    </RecordForm>
   );
 }

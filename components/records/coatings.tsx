@@ -1,13 +1,18 @@
 'use client';
 
 import type { ColumnDef } from '@tanstack/react-table';
-import type { Coating } from '@/lib/contracts/coatings';
 import { DataTable, TableLink, type DataTableProps } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
-import { InputField, TextAreaField } from '@/components/ui/form-field';
-import { coatingCreateSchema, coatingUpdateSchema } from '@/lib/contracts/coatings';
+import { TextAreaField, TextField } from '@/components/ui/fields';
+import {
+  coatingCreateSchema,
+  coatingReplies,
+  coatingUpdateSchema,
+  type Coating,
+} from '@/lib/contracts/coatings';
 import { fmtDate } from './format';
-import { FormMessages, useRecordForm } from './use-record-form';
+import { RecordForm } from './record-form';
+import { useRecordForm } from './use-record-form';
 
 const columns: ColumnDef<Coating, unknown>[] = [
   {
@@ -50,61 +55,31 @@ export function CoatingsTable(
 
 const LABELS = { code: 'Code', name: 'Name', description: 'Description' };
 const FIELDS = ['code', 'name', 'description'] as const;
+const SCHEMAS = { create: coatingCreateSchema, update: coatingUpdateSchema };
 
 type CoatingValues = { code: string; name: string; description: string; version?: number };
 
 /** New coating (POST) or edit (PATCH with version). */
-export function CoatingForm({
-  coating,
-  onSaved,
-}: {
-  coating?: Coating;
-  onSaved?: (id: string) => void;
-}) {
-  const editing = Boolean(coating);
-  const formId = editing ? `coating-${coating!.id}` : 'coating-new';
-  const { form, onSubmit, notice, conflict, reapply } = useRecordForm<CoatingValues>({
-    schema: editing ? coatingUpdateSchema : coatingCreateSchema,
-    defaultValues: coating
-      ? {
-          code: coating.code,
-          name: coating.name,
-          description: coating.description,
-          version: coating.version,
-        }
-      : { code: '', name: '', description: '' },
+export function CoatingForm({ coating }: { coating?: Coating }) {
+  const { field, formProps } = useRecordForm<CoatingValues, Coating>({
+    noun: 'coating',
+    collection: '/api/coatings',
+    replyKey: 'coating',
+    reply: coatingReplies.one,
+    record: coating,
+    schemas: SCHEMAS,
+    blank: { code: '', name: '', description: '' },
+    toValues: (saved) => ({ code: saved.code, name: saved.name, description: saved.description }),
+    labels: LABELS,
     fields: FIELDS,
-    url: editing ? `/api/coatings/${coating!.id}` : '/api/coatings',
-    method: editing ? 'PATCH' : 'POST',
-    onSaved: (body) => {
-      const saved = body.coating as Coating;
-      if (!editing) form.reset({ code: '', name: '', description: '' });
-      else
-        form.reset({
-          code: saved.code,
-          name: saved.name,
-          description: saved.description,
-          version: saved.version,
-        });
-      onSaved?.(saved.id);
-    },
   });
   return (
-    <form
-      onSubmit={onSubmit}
-      noValidate
-      className="space-y-3"
-      aria-label={editing ? 'Edit coating' : 'New coating'}
-    >
-      <FormMessages notice={notice} conflict={conflict} labels={LABELS} onReapply={reapply} />
+    <RecordForm {...formProps}>
       <div className="grid gap-3 sm:grid-cols-2">
-        <InputField form={form} formId={formId} name="code" label="Code" hint="Like HT-200" />
-        <InputField form={form} formId={formId} name="name" label="Name" />
+        <TextField label="Code" hint="Like HT-200" {...field('code')} />
+        <TextField label="Name" {...field('name')} />
       </div>
-      <TextAreaField form={form} formId={formId} name="description" label="Description" />
-      <button type="submit" className="btn-primary" disabled={form.formState.isSubmitting}>
-        {editing ? 'Save coating' : 'Add coating'}
-      </button>
-    </form>
+      <TextAreaField label="Description" {...field('description')} />
+    </RecordForm>
   );
 }

@@ -5,9 +5,14 @@ import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
-import { FormNotice, TextAreaField } from '@/components/ui/form-field';
-import { IMPORT_TEMPLATE, importRequestSchema, type ImportIssue } from '@/lib/contracts/import';
-import { RecordApiError, sendJson } from './api';
+import { useMutation } from '@/components/data/use-mutation';
+import { FormNotice, TextAreaField, fieldsOf } from '@/components/ui/fields';
+import {
+  IMPORT_TEMPLATE,
+  importRequestSchema,
+  importResponseSchema,
+  type ImportIssue,
+} from '@/lib/contracts/import';
 
 type Values = { csv: string };
 
@@ -21,30 +26,30 @@ export function ImportForm({ batchId, lotCode }: { batchId: string; lotCode: str
     resolver: zodResolver(importRequestSchema),
     defaultValues: { csv: '' },
   });
-  const [issues, setIssues] = useState<ImportIssue[]>([]);
-  const [message, setMessage] = useState<{ tone: 'error' | 'success'; text: string } | null>(null);
+  const importing = useMutation<{ imported: number }, Values>({ form, fields: ['csv'] });
+  const [imported, setImported] = useState<number | null>(null);
+  const issues = importing.error?.extra.issues;
+  const listed = Array.isArray(issues) ? (issues as ImportIssue[]) : [];
+  const message = importing.message
+    ? { tone: 'error' as const, text: importing.message }
+    : imported !== null
+      ? {
+          tone: 'success' as const,
+          text: `Imported ${imported} ${imported === 1 ? 'drop' : 'drops'} into batch ${lotCode}.`,
+        }
+      : null;
 
   const onSubmit = form.handleSubmit(async ({ csv }) => {
-    setIssues([]);
-    setMessage(null);
-    try {
-      const body = await sendJson<{ imported: number }>(`/api/batches/${batchId}/import`, 'POST', {
-        csv,
-      });
-      setMessage({
-        tone: 'success',
-        text: `Imported ${body.imported} ${body.imported === 1 ? 'drop' : 'drops'} into batch ${lotCode}.`,
-      });
-      form.reset({ csv: '' });
-      router.refresh();
-    } catch (error) {
-      if (!(error instanceof RecordApiError)) throw error;
-      const listed = error.body?.issues;
-      if (Array.isArray(listed)) setIssues(listed as ImportIssue[]);
-      const field = error.body?.error.fields?.csv;
-      if (field) form.setError('csv', { type: 'server', message: field });
-      setMessage({ tone: 'error', text: error.message });
-    }
+    setImported(null);
+    const result = await importing.run(`/api/batches/${batchId}/import`, {
+      method: 'POST',
+      json: { csv },
+      schema: importResponseSchema,
+    });
+    if (!result.ok) return;
+    setImported(result.data.imported);
+    form.reset({ csv: '' });
+    router.refresh();
   });
 
   const loadFile = async (file: File | undefined) => {
@@ -64,7 +69,7 @@ export function ImportForm({ batchId, lotCode }: { batchId: string; lotCode: str
           ) : null}
         </FormNotice>
       ) : null}
-      {issues.length > 0 ? (
+      {listed.length > 0 ? (
         <div className="overflow-x-auto rounded-lg border border-coral-500 bg-white">
           <table className="min-w-full text-sm" aria-label="Problems in the file">
             <thead className="bg-coral-50 text-left">
@@ -75,7 +80,7 @@ export function ImportForm({ batchId, lotCode }: { batchId: string; lotCode: str
               </tr>
             </thead>
             <tbody>
-              {issues.map((issue, index) => (
+              {listed.map((issue, index) => (
                 <tr key={index} className="border-t border-ink-100" data-testid="import-issue">
                   <td className="px-3 py-2 font-mono">{issue.row}</td>
                   <td className="px-3 py-2">{issue.column}</td>
@@ -99,12 +104,10 @@ export function ImportForm({ batchId, lotCode }: { batchId: string; lotCode: str
         />
       </div>
       <TextAreaField
-        form={form}
-        formId="import"
-        name="csv"
         label="…or paste the CSV text"
         rows={10}
         hint="Header row first. Comma, semicolon or tab separated; UTF-8."
+        {...fieldsOf(form, 'import')('csv')}
       />
       <div className="flex flex-wrap gap-2">
         <button type="submit" className="btn-primary" disabled={form.formState.isSubmitting}>

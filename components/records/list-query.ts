@@ -37,3 +37,23 @@ export function exportHref<Schema extends z.ZodType>(
   const search = params.toString();
   return search ? `${path}?${search}` : path;
 }
+
+/**
+ * A list page's table props from the loaded page of rows and its query: the rows, the paging,
+ * the sort and, when the viewer may export, the CSV link with the same filters.
+ */
+export function listTableProps<Schema extends z.ZodType, Row>(
+  list: { items: Row[]; total: number; page: number; pageSize: number },
+  query: z.output<Schema> & { sort: string; dir: 'asc' | 'desc' },
+  exported: { path: string; schema: Schema; allowed: boolean },
+) {
+  return {
+    rows: list.items,
+    total: list.total,
+    page: list.page,
+    pageSize: list.pageSize,
+    sort: query.sort,
+    dir: query.dir,
+    exportHref: exported.allowed ? exportHref(exported.path, exported.schema, query) : null,
+  };
+}

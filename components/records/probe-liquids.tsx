@@ -1,16 +1,21 @@
 'use client';
 
-import { useState } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
 import { z } from 'zod';
-import type { ProbeLiquid } from '@/lib/contracts/probe-liquids';
 import { DataTable, type DataTableProps } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
-import { InputField, TextAreaField } from '@/components/ui/form-field';
-import { PROBE_LIQUID_VALUES, probeLiquidCreateSchema, probeLiquidUpdateSchema } from '@/lib/contracts/probe-liquids';
-import { ArchiveButton } from './archive-button';
+import { NumberField, TextAreaField, TextField } from '@/components/ui/fields';
+import {
+  PROBE_LIQUID_VALUES,
+  probeLiquidCreateSchema,
+  probeLiquidReplies,
+  probeLiquidUpdateSchema,
+  type ProbeLiquid,
+} from '@/lib/contracts/probe-liquids';
 import { fmtNumber } from './format';
-import { FormMessages, useRecordForm } from './use-record-form';
+import { RecordEditor, RowActions } from './record-editor';
+import { RecordForm } from './record-form';
+import { useRecordForm } from './use-record-form';
 
 type ValueKey = (typeof PROBE_LIQUID_VALUES)[number];
 
@@ -57,8 +62,7 @@ export function ProbeLiquidsPanel({
 }: Omit<DataTableProps<ProbeLiquid>, 'columns' | 'label' | 'rowId' | 'empty' | 'sortable'> & {
   canManage: boolean;
 }) {
-  const [editing, setEditing] = useState<string | null>(null);
-  const columns: ColumnDef<ProbeLiquid, unknown>[] = [
+  const columns = (edit: (id: string) => void): ColumnDef<ProbeLiquid, unknown>[] => [
     {
       id: 'name',
       header: 'Name',
@@ -103,60 +107,43 @@ export function ProbeLiquidsPanel({
               row.original.builtIn ? (
                 <span className="text-xs text-ink-500">Read-only</span>
               ) : (
-                <span className="flex gap-2">
-                  <button
-                    type="button"
-                    className="btn-quiet py-1"
-                    onClick={() => setEditing(row.original.id)}
-                  >
-                    Edit
-                  </button>
-                  <ArchiveButton
-                    url={`/api/probe-liquids/${row.original.id}`}
-                    version={row.original.version}
-                    what="probe liquid"
-                  />
-                </span>
+                <RowActions
+                  onEdit={() => edit(row.original.id)}
+                  archive={{
+                    url: `/api/probe-liquids/${row.original.id}`,
+                    version: row.original.version,
+                    what: 'probe liquid',
+                  }}
+                />
               ),
           } satisfies ColumnDef<ProbeLiquid, unknown>,
         ]
       : []),
   ];
-  const current = table.rows.find((row) => row.id === editing && !row.builtIn);
   return (
-    <div className="space-y-4">
-      <DataTable
-        {...table}
-        label="probe-liquids"
-        columns={columns}
-        sortable={['name', 'totalMnM', 'createdAt']}
-        rowId={(row) => row.id}
-        empty={
-          <EmptyState title="No probe liquids match">
-            Clear the filters to see the built-in library.
-          </EmptyState>
-        }
-      />
-      {canManage && current ? (
-        <section className="card" aria-label="Edit probe liquid">
-          <div className="mb-3 flex items-center justify-between">
-            <h3 className="font-semibold">Edit {current.name}</h3>
-            <button type="button" className="btn-quiet py-1" onClick={() => setEditing(null)}>
-              Close
-            </button>
-          </div>
-          <ProbeLiquidForm key={current.id} liquid={current} />
-        </section>
-      ) : null}
-      {canManage ? (
-        <details className="card">
-          <summary className="cursor-pointer font-semibold">Add your own probe liquid</summary>
-          <div className="mt-3">
-            <ProbeLiquidForm />
-          </div>
-        </details>
-      ) : null}
-    </div>
+    <RecordEditor
+      rows={table.rows}
+      canEdit={canManage}
+      isEditable={(liquid) => !liquid.builtIn}
+      noun="probe liquid"
+      editTitle={(liquid) => `Edit ${liquid.name}`}
+      addSummary="Add your own probe liquid"
+      form={(liquid) => <ProbeLiquidForm liquid={liquid} />}
+      table={(edit) => (
+        <DataTable
+          {...table}
+          label="probe-liquids"
+          columns={columns(edit)}
+          sortable={['name', 'totalMnM', 'createdAt']}
+          rowId={(row) => row.id}
+          empty={
+            <EmptyState title="No probe liquids match">
+              Clear the filters to see the built-in library.
+            </EmptyState>
+          }
+        />
+      )}
+    />
   );
 }
 
@@ -179,78 +166,56 @@ const withoutEmptySources = (schema: z.ZodType) =>
     );
     return { ...record, sources };
   }, schema);
-const createSchema = withoutEmptySources(probeLiquidCreateSchema);
-const updateSchema = withoutEmptySources(probeLiquidUpdateSchema);
+const SCHEMAS = {
+  create: withoutEmptySources(probeLiquidCreateSchema),
+  update: withoutEmptySources(probeLiquidUpdateSchema),
+};
 
 type LiquidValues = Record<string, unknown>;
 
 const toText = (value: unknown) => (value === null || value === undefined ? '' : String(value));
 
+const BLANK: LiquidValues = {
+  name: '',
+  hazardNote: '',
+  sources: Object.fromEntries(VALUES.map((v) => [v.key, ''])),
+  ...Object.fromEntries(VALUES.map((v) => [v.field, ''])),
+};
+
 export function ProbeLiquidForm({ liquid }: { liquid?: ProbeLiquid }) {
-  const formId = liquid ? `liquid-${liquid.id}` : 'liquid-new';
-  const blank: LiquidValues = {
-    name: '',
-    hazardNote: '',
-    sources: Object.fromEntries(VALUES.map((v) => [v.key, ''])),
-    ...Object.fromEntries(VALUES.map((v) => [v.field, ''])),
-  };
-  const { form, onSubmit, notice, conflict, reapply } = useRecordForm<LiquidValues>({
-    schema: liquid ? updateSchema : createSchema,
-    defaultValues: liquid
-      ? {
-          name: liquid.name,
-          hazardNote: liquid.hazardNote ?? '',
-          sources: Object.fromEntries(VALUES.map((v) => [v.key, liquid.sources[v.key] ?? ''])),
-          ...Object.fromEntries(VALUES.map((v) => [v.field, toText(liquid[v.field])])),
-          version: liquid.version,
-        }
-      : blank,
+  const { field, formProps } = useRecordForm<LiquidValues, ProbeLiquid>({
+    noun: 'probe liquid',
+    collection: '/api/probe-liquids',
+    replyKey: 'probeLiquid',
+    reply: probeLiquidReplies.one,
+    record: liquid,
+    schemas: SCHEMAS,
+    blank: BLANK,
+    toValues: (saved) => ({
+      name: saved.name,
+      hazardNote: saved.hazardNote ?? '',
+      sources: Object.fromEntries(VALUES.map((v) => [v.key, saved.sources[v.key] ?? ''])),
+      ...Object.fromEntries(VALUES.map((v) => [v.field, toText(saved[v.field])])),
+    }),
+    labels: LABELS,
     fields: FIELDS,
-    url: liquid ? `/api/probe-liquids/${liquid.id}` : '/api/probe-liquids',
-    method: liquid ? 'PATCH' : 'POST',
-    onSaved: () => {
-      if (!liquid) form.reset(blank);
-    },
   });
   return (
-    <form
-      onSubmit={onSubmit}
-      noValidate
-      className="space-y-3"
-      aria-label={liquid ? 'Edit probe liquid' : 'New probe liquid'}
-    >
-      <FormMessages notice={notice} conflict={conflict} labels={LABELS} onReapply={reapply} />
-      <InputField
-        form={form}
-        formId={formId}
-        name="name"
-        label="Name"
-        hint='Like "Water (lab supply)"'
-      />
+    <RecordForm {...formProps}>
+      <TextField label="Name" hint='Like "Water (lab supply)"' {...field('name')} />
       <div className="grid gap-3 sm:grid-cols-2">
         {VALUES.map((value) => (
           <div key={value.key} className="grid grid-cols-[8rem_1fr] gap-2">
-            <InputField
-              form={form}
-              formId={formId}
-              name={value.field}
-              label={`${value.label} (${value.unit})`}
-              inputMode="decimal"
-            />
-            <InputField
-              form={form}
-              formId={formId}
-              name={`sources.${value.key}`}
+            <NumberField label={`${value.label} (${value.unit})`} {...field(value.field)} />
+            <TextField
               label="Source"
               hint="Paper, data sheet or in-house"
+              {...field(`sources.${value.key}`)}
             />
           </div>
         ))}
       </div>
-      <TextAreaField form={form} formId={formId} name="hazardNote" label="Hazard note" rows={2} />
-      <button type="submit" className="btn-primary" disabled={form.formState.isSubmitting}>
-        {liquid ? 'Save probe liquid' : 'Add probe liquid'}
-      </button>
-    </form>
+      <TextAreaField label="Hazard note" rows={2} {...field('hazardNote')} />
+    </RecordForm>
   );
 }

@@ -1,18 +1,23 @@
 'use client';
 
-import { useState } from 'react';
 import Link from 'next/link';
 import type { ColumnDef } from '@tanstack/react-table';
 import { z } from 'zod';
-import type { BatchDrop, SampleWithResults } from '@/lib/contracts/samples';
-import type { Sample } from '@/lib/contracts/samples';
 import { DataTable, type DataTableProps } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
-import { InputField, TextAreaField } from '@/components/ui/form-field';
-import { sampleCreateSchema, sampleUpdateSchema } from '@/lib/contracts/samples';
-import { ArchiveButton } from './archive-button';
+import { TextAreaField, TextField } from '@/components/ui/fields';
+import {
+  sampleCreateSchema,
+  sampleReplies,
+  sampleUpdateSchema,
+  type BatchDrop,
+  type Sample,
+  type SampleWithResults,
+} from '@/lib/contracts/samples';
 import { fmtDateTime, fmtNumber, fmtSince, fromLocalInput, toLocalInput } from './format';
-import { FormMessages, useRecordForm } from './use-record-form';
+import { RecordEditor, RowActions } from './record-editor';
+import { RecordForm } from './record-form';
+import { useRecordForm } from './use-record-form';
 
 /** The samples of a batch with their drop counts and mean water angle; writers edit in place. */
 export function SamplesPanel({
@@ -23,8 +28,7 @@ export function SamplesPanel({
   batchId: string;
   canWrite: boolean;
 }) {
-  const [editing, setEditing] = useState<string | null>(null);
-  const columns: ColumnDef<SampleWithResults, unknown>[] = [
+  const columns = (edit: (id: string) => void): ColumnDef<SampleWithResults, unknown>[] => [
     { id: 'label', header: 'Label', accessorKey: 'label', enableHiding: false },
     { id: 'substrate', header: 'Substrate', accessorKey: 'substrate' },
     { id: 'position', header: 'Position', accessorKey: 'position' },
@@ -60,67 +64,47 @@ export function SamplesPanel({
       id: 'actions',
       header: 'Actions',
       enableHiding: false,
-      cell: ({ row }) => (
-        <span className="flex flex-wrap gap-2">
-          {canWrite ? (
-            <>
-              <Link className="btn-quiet py-1" href={`/measure?sample=${row.original.id}`}>
-                Measure on this sample
-              </Link>
-              <button
-                type="button"
-                className="btn-quiet py-1"
-                onClick={() => setEditing(row.original.id)}
-              >
-                Edit
-              </button>
-              <ArchiveButton
-                url={`/api/samples/${row.original.id}`}
-                version={row.original.version}
-                what="sample"
-              />
-            </>
-          ) : null}
-        </span>
-      ),
+      cell: ({ row }) =>
+        canWrite ? (
+          <RowActions
+            onEdit={() => edit(row.original.id)}
+            archive={{
+              url: `/api/samples/${row.original.id}`,
+              version: row.original.version,
+              what: 'sample',
+            }}
+          >
+            <Link className="btn-quiet py-1" href={`/measure?sample=${row.original.id}`}>
+              Measure on this sample
+            </Link>
+          </RowActions>
+        ) : null,
     },
   ];
-  const current = table.rows.find((row) => row.id === editing);
   return (
-    <div className="space-y-4">
-      <DataTable
-        {...table}
-        label="samples"
-        columns={columns}
-        sortable={['label', 'treatedAt', 'createdAt', 'updatedAt']}
-        paramPrefix="s"
-        rowId={(row) => row.id}
-        empty={
-          <EmptyState title="No samples yet">
-            Add the panels or coupons cut from this batch; drops are measured on samples.
-          </EmptyState>
-        }
-      />
-      {canWrite && current ? (
-        <section className="card" aria-label="Edit sample">
-          <div className="mb-3 flex items-center justify-between">
-            <h3 className="font-semibold">Edit sample {current.label}</h3>
-            <button type="button" className="btn-quiet py-1" onClick={() => setEditing(null)}>
-              Close
-            </button>
-          </div>
-          <SampleForm key={current.id} batchId={batchId} sample={current} />
-        </section>
-      ) : null}
-      {canWrite ? (
-        <details className="card">
-          <summary className="cursor-pointer font-semibold">Add a sample</summary>
-          <div className="mt-3">
-            <SampleForm batchId={batchId} />
-          </div>
-        </details>
-      ) : null}
-    </div>
+    <RecordEditor
+      rows={table.rows}
+      canEdit={canWrite}
+      noun="sample"
+      editTitle={(sample) => `Edit sample ${sample.label}`}
+      addSummary="Add a sample"
+      form={(sample) => <SampleForm batchId={batchId} sample={sample} />}
+      table={(edit) => (
+        <DataTable
+          {...table}
+          label="samples"
+          columns={columns(edit)}
+          sortable={['label', 'treatedAt', 'createdAt', 'updatedAt']}
+          paramPrefix="s"
+          rowId={(row) => row.id}
+          empty={
+            <EmptyState title="No samples yet">
+              Add the panels or coupons cut from this batch; drops are measured on samples.
+            </EmptyState>
+          }
+        />
+      )}
+    />
   );
 }
 
@@ -145,78 +129,48 @@ const withLocalTime = (schema: z.ZodType) =>
         : value,
     schema,
   );
-const createSchema = withLocalTime(sampleCreateSchema);
-const updateSchema = withLocalTime(sampleUpdateSchema);
+const SCHEMAS = {
+  create: withLocalTime(sampleCreateSchema),
+  update: withLocalTime(sampleUpdateSchema),
+};
 
 type SampleValues = Record<string, string | number | undefined>;
 
 export function SampleForm({ batchId, sample }: { batchId: string; sample?: Sample }) {
-  const formId = sample ? `sample-${sample.id}` : 'sample-new';
-  const blank: SampleValues = {
-    batchId,
-    label: '',
-    substrate: '',
-    position: '',
-    treatedAt: '',
-    notes: '',
-  };
-  const { form, onSubmit, notice, conflict, reapply } = useRecordForm<SampleValues>({
-    schema: sample ? updateSchema : createSchema,
-    defaultValues: sample
-      ? {
-          batchId,
-          label: sample.label,
-          substrate: sample.substrate,
-          position: sample.position,
-          treatedAt: toLocalInput(sample.treatedAt),
-          notes: sample.notes,
-          version: sample.version,
-        }
-      : blank,
+  const { field, formProps } = useRecordForm<SampleValues, Sample>({
+    noun: 'sample',
+    collection: '/api/samples',
+    replyKey: 'sample',
+    reply: sampleReplies.one,
+    record: sample,
+    schemas: SCHEMAS,
+    blank: { batchId, label: '', substrate: '', position: '', treatedAt: '', notes: '' },
+    toValues: (saved) => ({
+      batchId,
+      label: saved.label,
+      substrate: saved.substrate,
+      position: saved.position,
+      treatedAt: toLocalInput(saved.treatedAt),
+      notes: saved.notes,
+    }),
+    labels: LABELS,
     fields: FIELDS,
-    url: sample ? `/api/samples/${sample.id}` : '/api/samples',
-    method: sample ? 'PATCH' : 'POST',
-    onSaved: () => {
-      if (!sample) form.reset(blank);
-    },
   });
   return (
-    <form
-      onSubmit={onSubmit}
-      noValidate
-      className="space-y-3"
-      aria-label={sample ? 'Edit sample' : 'New sample'}
-    >
-      <FormMessages notice={notice} conflict={conflict} labels={LABELS} onReapply={reapply} />
+    <RecordForm {...formProps}>
       <div className="grid gap-3 sm:grid-cols-2">
-        <InputField
-          form={form}
-          formId={formId}
-          name="label"
-          label="Sample label"
-          hint="Like P-01"
-        />
-        <InputField
-          form={form}
-          formId={formId}
-          name="treatedAt"
+        <TextField label="Sample label" hint="Like P-01" {...field('label')} />
+        <TextField
           label="Treated at"
           type="datetime-local"
           hint="Your local time; optional"
+          {...field('treatedAt')}
         />
-        <InputField form={form} formId={formId} name="substrate" label="Substrate" />
-        <InputField
-          form={form}
-          formId={formId}
-          name="position"
-          label="Position on the web or panel"
-        />
+        <TextField label="Substrate" {...field('substrate')} />
+        <TextField label="Position on the web or panel" {...field('position')} />
       </div>
-      <TextAreaField form={form} formId={formId} name="notes" label="Notes" rows={2} />
-      <button type="submit" className="btn-primary" disabled={form.formState.isSubmitting}>
-        {sample ? 'Save sample' : 'Add sample'}
-      </button>
-    </form>
+      <TextAreaField label="Notes" rows={2} {...field('notes')} />
+    </RecordForm>
   );
 }
 

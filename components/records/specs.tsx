@@ -1,17 +1,21 @@
 'use client';
 
-import { useState } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
-import type { SpecListItem } from '@/lib/contracts/specs';
 import { DataTable } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
-import { InputField, SelectField, TextAreaField } from '@/components/ui/form-field';
-import { specCreateSchema, specUpdateSchema } from '@/lib/contracts/specs';
-import { ArchiveButton } from './archive-button';
+import { NumberField, SelectField, TextAreaField, type Choice } from '@/components/ui/fields';
+import {
+  specCreateSchema,
+  specReplies,
+  specUpdateSchema,
+  type SpecListItem,
+} from '@/lib/contracts/specs';
 import { fmtNumber } from './format';
-import { FormMessages, useRecordForm } from './use-record-form';
+import { RecordEditor, RowActions } from './record-editor';
+import { RecordForm } from './record-form';
+import { useRecordForm } from './use-record-form';
 
-export type Choice = { value: string; label: string };
+export type { Choice };
 
 const limits = (min: number | null, max: number | null, unit: string, digits = 0) =>
   min === null && max === null
@@ -36,8 +40,7 @@ export function SpecsPanel({
   canManage: boolean;
   exportHref: string | null;
 }) {
-  const [editing, setEditing] = useState<string | null>(null);
-  const columns: ColumnDef<SpecListItem, unknown>[] = [
+  const columns = (edit: (id: string) => void): ColumnDef<SpecListItem, unknown>[] => [
     {
       id: 'probeLiquid',
       header: 'Probe liquid',
@@ -73,67 +76,49 @@ export function SpecsPanel({
             header: 'Actions',
             enableHiding: false,
             cell: ({ row }) => (
-              <span className="flex gap-2">
-                <button
-                  type="button"
-                  className="btn-quiet py-1"
-                  onClick={() => setEditing(row.original.id)}
-                >
-                  Edit
-                </button>
-                <ArchiveButton
-                  url={`/api/specs/${row.original.id}`}
-                  version={row.original.version}
-                  what="spec"
-                />
-              </span>
+              <RowActions
+                onEdit={() => edit(row.original.id)}
+                archive={{
+                  url: `/api/specs/${row.original.id}`,
+                  version: row.original.version,
+                  what: 'spec',
+                }}
+              />
             ),
           } satisfies ColumnDef<SpecListItem, unknown>,
         ]
       : []),
   ];
-  const current = specs.find((spec) => spec.id === editing);
   return (
-    <div className="space-y-4">
-      <DataTable
-        label="specs"
-        columns={columns}
-        rows={specs}
-        total={specs.length}
-        page={1}
-        pageSize={Math.max(specs.length, 1)}
-        sort="createdAt"
-        dir="asc"
-        sortable={[]}
-        paramPrefix="s"
-        exportHref={exportHref}
-        rowId={(row) => row.id}
-        empty={
-          <EmptyState title="No specs yet">
-            Results of this coating are not checked against limits until a spec is added.
-          </EmptyState>
-        }
-      />
-      {canManage && current ? (
-        <section className="card" aria-label="Edit spec">
-          <div className="mb-3 flex items-center justify-between">
-            <h3 className="font-semibold">Edit spec: {current.probeLiquidName}</h3>
-            <button type="button" className="btn-quiet py-1" onClick={() => setEditing(null)}>
-              Close
-            </button>
-          </div>
-          <SpecForm key={current.id} coatingId={coatingId} liquids={liquids} spec={current} />
-        </section>
-      ) : null}
-      {canManage ? (
-        <details className="card">
-          <summary className="cursor-pointer font-semibold">Add a spec</summary>
-          <div className="mt-3">
-            <SpecForm coatingId={coatingId} liquids={liquids} />
-          </div>
-        </details>
-      ) : null}
-    </div>
+    <RecordEditor
+      rows={specs}
+      canEdit={canManage}
+      noun="spec"
+      editTitle={(spec) => `Edit spec: ${spec.probeLiquidName}`}
+      addSummary="Add a spec"
+      form={(spec) => <SpecForm coatingId={coatingId} liquids={liquids} spec={spec} />}
+      table={(edit) => (
+        <DataTable
+          label="specs"
+          columns={columns(edit)}
+          rows={specs}
+          total={specs.length}
+          page={1}
+          pageSize={Math.max(specs.length, 1)}
+          sort="createdAt"
+          dir="asc"
+          sortable={[]}
+          paramPrefix="s"
+          exportHref={exportHref}
+          rowId={(row) => row.id}
+          empty={
+            <EmptyState title="No specs yet">
+              Results of this coating are not checked against limits until a spec is added.
+            </EmptyState>
+          }
+        />
+      )}
+    />
   );
 }
 
@@ -148,11 +133,17 @@ const LABELS = {
   note: 'Note',
 };
 const FIELDS = ['coatingId', ...Object.keys(LABELS)];
+const SCHEMAS = { create: specCreateSchema, update: specUpdateSchema };
+const SCOPES: Choice[] = [
+  { value: 'each-drop', label: 'Each drop' },
+  { value: 'mean', label: 'The mean of the drops' },
+];
 
 const text = (value: number | null | undefined) =>
   value === null || value === undefined ? '' : String(value);
 
 type SpecValues = Record<string, string | number | undefined>;
+type Spec = Omit<SpecListItem, 'probeLiquidName'>;
 
 export function SpecForm({
   coatingId,
@@ -161,113 +152,69 @@ export function SpecForm({
 }: {
   coatingId: string;
   liquids: Choice[];
-  spec?: SpecListItem;
+  spec?: Spec;
 }) {
-  const formId = spec ? `spec-${spec.id}` : 'spec-new';
-  const blank: SpecValues = {
-    coatingId,
-    probeLiquidId: liquids.find((l) => l.value === 'liquid-water')?.value ?? '',
-    scope: 'each-drop',
-    minDeg: '',
-    maxDeg: '',
-    minSurfaceEnergyMnM: '',
-    maxSurfaceEnergyMnM: '',
-    maxDaysSinceTreatment: '',
-    note: '',
-  };
-  const { form, onSubmit, notice, conflict, reapply } = useRecordForm<SpecValues>({
-    schema: spec ? specUpdateSchema : specCreateSchema,
-    defaultValues: spec
-      ? {
-          coatingId,
-          probeLiquidId: spec.probeLiquidId,
-          scope: spec.scope,
-          minDeg: text(spec.minDeg),
-          maxDeg: text(spec.maxDeg),
-          minSurfaceEnergyMnM: text(spec.minSurfaceEnergyMnM),
-          maxSurfaceEnergyMnM: text(spec.maxSurfaceEnergyMnM),
-          maxDaysSinceTreatment: text(spec.maxDaysSinceTreatment),
-          note: spec.note,
-          version: spec.version,
-        }
-      : blank,
-    fields: FIELDS,
-    url: spec ? `/api/specs/${spec.id}` : '/api/specs',
-    method: spec ? 'PATCH' : 'POST',
-    onSaved: () => {
-      if (!spec) form.reset(blank);
+  const { field, formProps } = useRecordForm<SpecValues, Spec>({
+    noun: 'spec',
+    collection: '/api/specs',
+    replyKey: 'spec',
+    reply: specReplies.one,
+    record: spec,
+    schemas: SCHEMAS,
+    blank: {
+      coatingId,
+      probeLiquidId: liquids.find((l) => l.value === 'liquid-water')?.value ?? '',
+      scope: 'each-drop',
+      minDeg: '',
+      maxDeg: '',
+      minSurfaceEnergyMnM: '',
+      maxSurfaceEnergyMnM: '',
+      maxDaysSinceTreatment: '',
+      note: '',
     },
+    toValues: (saved) => ({
+      coatingId,
+      probeLiquidId: saved.probeLiquidId,
+      scope: saved.scope,
+      minDeg: text(saved.minDeg),
+      maxDeg: text(saved.maxDeg),
+      minSurfaceEnergyMnM: text(saved.minSurfaceEnergyMnM),
+      maxSurfaceEnergyMnM: text(saved.maxSurfaceEnergyMnM),
+      maxDaysSinceTreatment: text(saved.maxDaysSinceTreatment),
+      note: saved.note,
+    }),
+    labels: LABELS,
+    fields: FIELDS,
   });
   return (
-    <form
-      onSubmit={onSubmit}
-      noValidate
-      className="space-y-3"
-      aria-label={spec ? 'Edit spec' : 'New spec'}
-    >
-      <FormMessages notice={notice} conflict={conflict} labels={LABELS} onReapply={reapply} />
+    <RecordForm {...formProps}>
       <div className="grid gap-3 sm:grid-cols-2">
         <SelectField
-          form={form}
-          formId={formId}
-          name="probeLiquidId"
           label="Probe liquid"
           options={liquids}
           placeholder="Choose a liquid"
+          {...field('probeLiquidId')}
         />
-        <SelectField
-          form={form}
-          formId={formId}
-          name="scope"
-          label="Applies to"
-          options={[
-            { value: 'each-drop', label: 'Each drop' },
-            { value: 'mean', label: 'The mean of the drops' },
-          ]}
-        />
-        <InputField
-          form={form}
-          formId={formId}
-          name="minDeg"
-          label="Min angle (°)"
-          inputMode="decimal"
-        />
-        <InputField
-          form={form}
-          formId={formId}
-          name="maxDeg"
-          label="Max angle (°)"
-          inputMode="decimal"
-        />
-        <InputField
-          form={form}
-          formId={formId}
-          name="minSurfaceEnergyMnM"
+        <SelectField label="Applies to" options={SCOPES} {...field('scope')} />
+        <NumberField label="Min angle (°)" {...field('minDeg')} />
+        <NumberField label="Max angle (°)" {...field('maxDeg')} />
+        <NumberField
           label="Min surface energy (mN/m)"
-          inputMode="decimal"
           hint="Optional"
+          {...field('minSurfaceEnergyMnM')}
         />
-        <InputField
-          form={form}
-          formId={formId}
-          name="maxSurfaceEnergyMnM"
+        <NumberField
           label="Max surface energy (mN/m)"
-          inputMode="decimal"
           hint="Optional"
+          {...field('maxSurfaceEnergyMnM')}
         />
-        <InputField
-          form={form}
-          formId={formId}
-          name="maxDaysSinceTreatment"
+        <NumberField
           label="Within days of treatment"
-          inputMode="decimal"
           hint="Optional: results count only this long after treatment"
+          {...field('maxDaysSinceTreatment')}
         />
       </div>
-      <TextAreaField form={form} formId={formId} name="note" label="Note" rows={2} />
-      <button type="submit" className="btn-primary" disabled={form.formState.isSubmitting}>
-        {spec ? 'Save spec' : 'Add spec'}
-      </button>
-    </form>
+      <TextAreaField label="Note" rows={2} {...field('note')} />
+    </RecordForm>
   );
 }

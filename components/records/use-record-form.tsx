@@ -5,140 +5,93 @@ import { useRouter } from 'next/navigation';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm, type DefaultValues, type FieldValues } from 'react-hook-form';
 import type { z } from 'zod';
-import { FormNotice } from '@/components/ui/form-field';
-import { applyServerErrors, RecordApiError, sendJson } from './api';
+import { useMutation } from '@/components/data/use-mutation';
+import { fieldsOf } from '@/components/ui/fields';
+import type { RecordFormProps } from './record-form';
 
-export type Conflict = { current: Record<string, unknown>; message: string };
+type Versioned = { id: string; version: number };
 
 /**
- * A record form: react-hook-form validated by the shared zod schema, sent to the REST API,
- * with the server's field errors put on the fields and a 409 stale_version turned into a
- * conflict notice that keeps what was typed and lets the user apply it over the current record.
+ * A record form: react-hook-form validated by the shared zod schema, sent with the one mutation
+ * hook (POST to create, PATCH with `version` to edit). The server's field errors land on the
+ * fields; a 409 stale_version becomes a conflict notice that keeps what was typed.
  */
-export function useRecordForm<V extends FieldValues>(options: {
-  schema: z.ZodType;
-  defaultValues: DefaultValues<V>;
+export function useRecordForm<V extends FieldValues, R extends Versioned>(options: {
+  /** "sample": names the form ("New sample") and its button ("Add sample" / "Save sample"). */
+  noun: string;
+  /** The collection's URL, like /api/samples; a record is at /api/samples/<id>. */
+  collection: string;
+  /** The key of the record in the server's answer, like `sample`. */
+  replyKey: string;
+  /** The answer's contract, like `sampleReplies.one` (checked in development). */
+  reply: z.ZodType;
+  record?: R;
+  schemas: { create: z.ZodType; update: z.ZodType };
+  blank: V;
+  toValues: (record: R) => V;
+  /** Field name → label, for the conflict notice. */
+  labels: Record<string, string>;
+  /** The field names the form shows, for the server's field errors. */
   fields: readonly string[];
-  url: string;
-  method: 'POST' | 'PATCH';
   /** Body to send from the parsed values (defaults to the values themselves). */
   toBody?: (values: FieldValues) => unknown;
-  onSaved?: (body: Record<string, unknown>) => void;
+  /** After a create; by default the form empties for the next record. */
+  onCreated?: (record: R) => void;
 }) {
+  const { record, blank, toValues } = options;
   const router = useRouter();
+  const editValues = (r: R) => ({ ...toValues(r), version: r.version }) as DefaultValues<V>;
   const form = useForm<V>({
-    // The schemas' input (form text) and output (parsed values) types differ from V on purpose.
-    resolver: zodResolver(options.schema as never) as never,
-    defaultValues: options.defaultValues,
+    // The form holds the text typed; the schema's output (numbers, dates) is what is sent.
+    resolver: zodResolver(
+      (record ? options.schemas.update : options.schemas.create) as z.ZodType<V, V>,
+    ),
+    defaultValues: record ? editValues(record) : (blank as DefaultValues<V>),
   });
-  const [notice, setNotice] = useState<{ tone: 'error' | 'success'; text: string } | null>(null);
-  const [conflict, setConflict] = useState<Conflict | null>(null);
+  const mutation = useMutation<Record<string, R>, V>({ form, fields: options.fields });
+  const [saved, setSaved] = useState(false);
 
   const onSubmit = form.handleSubmit(async (values) => {
-    setNotice(null);
-    try {
-      const body = await sendJson<Record<string, unknown>>(
-        options.url,
-        options.method,
-        options.toBody ? options.toBody(values) : values,
-      );
-      setConflict(null);
-      setNotice({ tone: 'success', text: 'Saved.' });
-      // The next edit starts from the version just saved.
-      const saved = Object.values(body).find(
-        (value): value is { version: number } =>
-          typeof value === 'object' &&
-          value !== null &&
-          typeof (value as { version?: unknown }).version === 'number',
-      );
-      if (options.method === 'PATCH' && saved)
-        form.setValue('version' as never, saved.version as never);
-      options.onSaved?.(body);
-      router.refresh();
-    } catch (error) {
-      if (!(error instanceof RecordApiError)) throw error;
-      if (error.code === 'stale_version' && error.body?.current) {
-        setConflict({
-          current: error.body.current as Record<string, unknown>,
-          message: 'Someone changed this record while you were editing.',
-        });
-        return;
-      }
-      const rest = applyServerErrors(form, error, options.fields);
-      if (rest) setNotice({ tone: 'error', text: rest });
-    }
+    setSaved(false);
+    const result = await mutation.run(
+      record ? `${options.collection}/${record.id}` : options.collection,
+      {
+        method: record ? 'PATCH' : 'POST',
+        json: options.toBody ? options.toBody(values) : values,
+        schema: options.reply,
+      },
+    );
+    if (!result.ok) return;
+    const savedRecord = result.data[options.replyKey];
+    setSaved(true);
+    // The next edit starts from the version just saved, with the values as stored.
+    if (record) form.reset(editValues(savedRecord));
+    else if (options.onCreated) options.onCreated(savedRecord);
+    else form.reset(blank as DefaultValues<V>);
+    router.refresh();
   });
 
-  /** Keeps every typed value and takes the current version, so the next save applies them. */
-  const reapply = () => {
-    if (!conflict) return;
-    form.setValue('version' as never, conflict.current.version as never);
-    setConflict(null);
-    setNotice(null);
+  const slug = options.noun.replace(/\s+/g, '-');
+  const formProps: Omit<RecordFormProps, 'children'> = {
+    noun: options.noun,
+    editing: Boolean(record),
+    onSubmit,
+    submitting: form.formState.isSubmitting,
+    labels: options.labels,
+    conflict: mutation.conflict,
+    onReapply: () => {
+      mutation.resolveConflict();
+      setSaved(false);
+    },
+    notice: mutation.message
+      ? { tone: 'error', text: mutation.message }
+      : saved
+        ? { tone: 'success', text: 'Saved.' }
+        : null,
   };
-
-  return { form, onSubmit, notice, conflict, reapply, setNotice };
-}
-
-/** Shows the record as it is now (after someone else's change) next to the user's edits. */
-export function ConflictNotice({
-  conflict,
-  labels,
-  onReapply,
-}: {
-  conflict: Conflict;
-  labels: Record<string, string>;
-  onReapply: () => void;
-}) {
-  const show = (value: unknown): string => {
-    if (value === null || value === undefined || value === '') return '—';
-    if (typeof value === 'object') {
-      return (
-        Object.entries(value as Record<string, unknown>)
-          .map(([key, inner]) => `${labels[`${'process.'}${key}`] ?? key}: ${String(inner)}`)
-          .join(', ') || '—'
-      );
-    }
-    return String(value);
+  return {
+    form,
+    field: fieldsOf(form, record ? `${slug}-${record.id}` : `${slug}-new`),
+    formProps,
   };
-  return (
-    <FormNotice tone="warning">
-      <p className="font-medium">{conflict.message}</p>
-      <p className="mt-1">Its current values are below. Your changes are still in the form.</p>
-      <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1" data-testid="conflict-current">
-        {Object.entries(labels)
-          .filter(([key]) => !key.includes('.'))
-          .map(([key, label]) => (
-            <div key={key} className="contents">
-              <dt className="text-ink-600">{label}</dt>
-              <dd>{show(conflict.current[key])}</dd>
-            </div>
-          ))}
-      </dl>
-      <button type="button" className="btn-quiet mt-3" onClick={onReapply}>
-        Apply my changes to the current version
-      </button>
-    </FormNotice>
-  );
-}
-
-export function FormMessages({
-  notice,
-  conflict,
-  labels,
-  onReapply,
-}: {
-  notice: { tone: 'error' | 'success'; text: string } | null;
-  conflict: Conflict | null;
-  labels: Record<string, string>;
-  onReapply: () => void;
-}) {
-  return (
-    <>
-      {conflict ? (
-        <ConflictNotice conflict={conflict} labels={labels} onReapply={onReapply} />
-      ) : null}
-      {notice ? <FormNotice tone={notice.tone}>{notice.text}</FormNotice> : null}
-    </>
-  );
 }

@@ -13,7 +13,9 @@ export function AppShell({ ctx, children }: { ctx: OrgContext; children: React.R
     { href: '/batches', label: 'Batches' },
     { href: '/probe-liquids', label: 'Probe liquids' },
     { href: '/sessions', label: 'Sessions' },
-    ...(can(ctx.organization.role, 'records:write') ? [{ href: '/measure', label: 'Measure' }] : []),
+    ...(can(ctx.organization.role, 'records:write')
+      ? [{ href: '/measure', label: 'Measure' }]
+      : []),
     { href: '/compare', label: 'Compare' },
     { href: '/surface-energy', label: 'Surface energy' },
     { href: '/tensiometry', label: 'Tensiometry' },
@@ -23,7 +25,10 @@ export function AppShell({ ctx, children }: { ctx: OrgContext; children: React.R
   ];
   return (
     <div className="min-h-screen md:flex">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-10 focus:rounded focus:bg-white focus:px-3 focus:py-2">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-10 focus:rounded focus:bg-white focus:px-3 focus:py-2"
+      >
         Skip to content
       </a>
       <aside className="border-b border-ink-200 bg-white md:sticky md:top-0 md:flex md:h-screen md:w-60 md:flex-col md:border-b-0 md:border-r">
@@ -42,20 +47,23 @@ export function AppShell({ ctx, children }: { ctx: OrgContext; children: React.R
         <nav aria-label="Sections" className="px-2 pb-3 md:flex-1 md:overflow-y-auto">
           <NavLinks items={items} />
         </nav>
-        <form action={signOut} className="hidden px-4 py-4 md:block">
-          <button type="submit" className="btn-quiet w-full">
-            Sign out
-          </button>
-        </form>
+        <SignOutButton className="hidden px-4 py-4 md:block" />
       </aside>
       <main id="main" className="flex-1 px-4 py-6 md:px-10 md:py-8">
         {children}
-        <form action={signOut} className="mt-10 md:hidden">
-          <button type="submit" className="btn-quiet w-full">
-            Sign out
-          </button>
-        </form>
+        <SignOutButton className="mt-10 md:hidden" />
       </main>
     </div>
+  );
+}
+
+/** Signing out is a form, so it works before the page's scripts have loaded. */
+function SignOutButton({ className }: { className: string }) {
+  return (
+    <form action={signOut} className={className}>
+      <button type="submit" className="btn-quiet w-full">
+        Sign out
+      </button>
+    </form>
   );
 }

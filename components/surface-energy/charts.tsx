@@ -1,5 +1,6 @@
 'use client';
 
+import type { ReactNode } from 'react';
 import {
   CartesianGrid,
   ComposedChart,
@@ -27,35 +28,59 @@ function niceCeil(v: number): number {
   return step * power;
 }
 
-/**
- * OWRK regression: y = γL(1 + cos θ)/(2√γLd) against x = √(γLp/γLd) for each liquid, and the
- * fitted line y = √γSp·x + √γSd.
- */
-export function OwrkChart({ plot }: { plot: OwrkPlot }) {
-  const xs = plot.points.map((p) => p.x);
-  const xMax = niceCeil(Math.max(...xs) * 1.05);
-  const line = [
-    { x: 0, fitted: round(plot.intercept, 4) },
-    { x: round(xMax, 4), fitted: round(plot.intercept + plot.slope * xMax, 4) },
-  ];
-  const points = plot.points.map((p) => ({ x: round(p.x, 4), y: round(p.y, 4), liquid: p.liquid }));
+type Axis = {
+  dataKey?: string;
+  domain?: [number, number];
+  label: string;
+  tickDigits?: number;
+};
+type Series = { data: object[]; dataKey: string; name: string };
+
+/** Points (the liquids) and a line through them on number axes, with the figures in words. */
+function PointsAndLine({
+  label,
+  testId,
+  x,
+  y,
+  line,
+  points,
+  tooltipDigits,
+  caption,
+}: {
+  label: string;
+  testId: string;
+  x: Axis;
+  y: Axis;
+  line: Series;
+  points: Series;
+  tooltipDigits: number;
+  caption: ReactNode;
+}) {
+  const ticks = (axis: Axis) =>
+    axis.tickDigits === undefined ? undefined : (v: number) => v.toFixed(axis.tickDigits);
   return (
-    <figure aria-label="OWRK regression plot" data-testid="owrk-plot">
+    <figure aria-label={label} data-testid={testId}>
       <ResponsiveContainer width="100%" height={300}>
         <ComposedChart margin={{ top: 10, right: 20, bottom: 30, left: 10 }}>
           <CartesianGrid stroke="#e6eaef" />
           <XAxis
             type="number"
-            dataKey="x"
-            domain={[0, xMax]}
+            dataKey={x.dataKey}
+            domain={x.domain}
             stroke={INK}
-            tickFormatter={(v: number) => v.toFixed(1)}
+            tickFormatter={ticks(x)}
           >
-            <Label value="√(γLp / γLd)" position="insideBottom" offset={-18} fill={INK} />
+            <Label value={x.label} position="insideBottom" offset={-18} fill={INK} />
           </XAxis>
-          <YAxis type="number" stroke={INK} tickFormatter={(v: number) => v.toFixed(1)}>
+          <YAxis
+            type="number"
+            dataKey={y.dataKey}
+            domain={y.domain}
+            stroke={INK}
+            tickFormatter={ticks(y)}
+          >
             <Label
-              value="γL(1 + cos θ) / 2√γLd"
+              value={y.label}
               angle={-90}
               position="insideLeft"
               style={{ textAnchor: 'middle' }}
@@ -63,37 +88,72 @@ export function OwrkChart({ plot }: { plot: OwrkPlot }) {
             />
           </YAxis>
           <Tooltip
-            formatter={(value) => (typeof value === 'number' ? value.toFixed(3) : String(value))}
+            formatter={(value) =>
+              typeof value === 'number' ? value.toFixed(tooltipDigits) : String(value)
+            }
           />
           <Legend verticalAlign="top" height={28} />
           <Line
-            data={line}
-            dataKey="fitted"
-            name={`Fitted line (R² = ${plot.rSquared.toFixed(3)})`}
+            data={line.data}
+            dataKey={line.dataKey}
+            name={line.name}
             stroke={LAGOON}
             dot={false}
             strokeWidth={2}
             isAnimationActive={false}
           />
           <Scatter
-            data={points}
-            dataKey="y"
-            name="Liquids"
+            data={points.data}
+            dataKey={points.dataKey}
+            name={points.name}
             fill={AMBER}
             isAnimationActive={false}
           />
         </ComposedChart>
       </ResponsiveContainer>
-      <figcaption className="mt-1 text-xs text-ink-600">
-        Slope √γSp = {plot.slope.toFixed(3)}, intercept √γSd = {plot.intercept.toFixed(3)}, R² ={' '}
-        {plot.rSquared.toFixed(3)}
-        {plot.points.length === 2
-          ? ' (two liquids: the line passes through both points, so R² says nothing).'
-          : '.'}{' '}
-        Points:{' '}
-        {plot.points.map((p) => `${p.liquid} (${p.x.toFixed(2)}, ${p.y.toFixed(2)})`).join('; ')}.
-      </figcaption>
+      <figcaption className="mt-1 text-xs text-ink-600">{caption}</figcaption>
     </figure>
+  );
+}
+
+/**
+ * OWRK regression: y = γL(1 + cos θ)/(2√γLd) against x = √(γLp/γLd) for each liquid, and the
+ * fitted line y = √γSp·x + √γSd.
+ */
+export function OwrkChart({ plot }: { plot: OwrkPlot }) {
+  const xMax = niceCeil(Math.max(...plot.points.map((p) => p.x)) * 1.05);
+  return (
+    <PointsAndLine
+      label="OWRK regression plot"
+      testId="owrk-plot"
+      x={{ dataKey: 'x', domain: [0, xMax], label: '√(γLp / γLd)', tickDigits: 1 }}
+      y={{ label: 'γL(1 + cos θ) / 2√γLd', tickDigits: 1 }}
+      line={{
+        data: [
+          { x: 0, fitted: round(plot.intercept, 4) },
+          { x: round(xMax, 4), fitted: round(plot.intercept + plot.slope * xMax, 4) },
+        ],
+        dataKey: 'fitted',
+        name: `Fitted line (R² = ${plot.rSquared.toFixed(3)})`,
+      }}
+      points={{
+        data: plot.points.map((p) => ({ x: round(p.x, 4), y: round(p.y, 4), liquid: p.liquid })),
+        dataKey: 'y',
+        name: 'Liquids',
+      }}
+      tooltipDigits={3}
+      caption={
+        <>
+          Slope √γSp = {plot.slope.toFixed(3)}, intercept √γSd = {plot.intercept.toFixed(3)}, R² ={' '}
+          {plot.rSquared.toFixed(3)}
+          {plot.points.length === 2
+            ? ' (two liquids: the line passes through both points, so R² says nothing).'
+            : '.'}{' '}
+          Points:{' '}
+          {plot.points.map((p) => `${p.liquid} (${p.x.toFixed(2)}, ${p.y.toFixed(2)})`).join('; ')}.
+        </>
+      }
+    />
   );
 }
 
@@ -116,51 +176,23 @@ export function EnvelopeChart({ envelope }: { envelope: EnvelopePlot }) {
       1.02,
   );
   return (
-    <figure aria-label="Wetting envelope" data-testid="envelope-plot">
-      <ResponsiveContainer width="100%" height={300}>
-        <ComposedChart margin={{ top: 10, right: 20, bottom: 30, left: 10 }}>
-          <CartesianGrid stroke="#e6eaef" />
-          <XAxis type="number" dataKey="d" domain={[0, top]} stroke={INK}>
-            <Label value="Dispersive γd (mN/m)" position="insideBottom" offset={-18} fill={INK} />
-          </XAxis>
-          <YAxis type="number" dataKey="p" domain={[0, top]} stroke={INK}>
-            <Label
-              value="Polar γp (mN/m)"
-              angle={-90}
-              position="insideLeft"
-              style={{ textAnchor: 'middle' }}
-              fill={INK}
-            />
-          </YAxis>
-          <Tooltip
-            formatter={(value) => (typeof value === 'number' ? value.toFixed(1) : String(value))}
-          />
-          <Legend verticalAlign="top" height={28} />
-          <Line
-            data={curve}
-            dataKey="p"
-            name={`Envelope, θ = ${envelope.angleDeg}°`}
-            stroke={LAGOON}
-            dot={false}
-            strokeWidth={2}
-            isAnimationActive={false}
-          />
-          <Scatter
-            data={liquids}
-            dataKey="p"
-            name="Probe liquids"
-            fill={AMBER}
-            isAnimationActive={false}
-          />
-        </ComposedChart>
-      </ResponsiveContainer>
-      <figcaption className="mt-1 text-xs text-ink-600">
-        Probe liquids:{' '}
-        {envelope.liquids
-          .map((l) => `${l.name} (γd ${l.gammaDispersive}, γp ${l.gammaPolar} mN/m)`)
-          .join('; ')}
-        . A liquid inside the curve wets the surface at less than {envelope.angleDeg}°.
-      </figcaption>
-    </figure>
+    <PointsAndLine
+      label="Wetting envelope"
+      testId="envelope-plot"
+      x={{ dataKey: 'd', domain: [0, top], label: 'Dispersive γd (mN/m)' }}
+      y={{ dataKey: 'p', domain: [0, top], label: 'Polar γp (mN/m)' }}
+      line={{ data: curve, dataKey: 'p', name: `Envelope, θ = ${envelope.angleDeg}°` }}
+      points={{ data: liquids, dataKey: 'p', name: 'Probe liquids' }}
+      tooltipDigits={1}
+      caption={
+        <>
+          Probe liquids:{' '}
+          {envelope.liquids
+            .map((l) => `${l.name} (γd ${l.gammaDispersive}, γp ${l.gammaPolar} mN/m)`)
+            .join('; ')}
+          . A liquid inside the curve wets the surface at less than {envelope.angleDeg}°.
+        </>
+      }
+    />
   );
 }

@@ -2,6 +2,7 @@
 
 import { useRouter } from 'next/navigation';
 import { useMemo, useState } from 'react';
+import { SelectField, type Choice } from '@/components/ui/fields';
 
 export type SampleChoice = {
   sampleId: string;
@@ -38,15 +39,15 @@ export function SamplePicker({
   const [batchId, setBatchId] = useState(selected?.batchId ?? '');
 
   const coatings = useMemo(() => {
-    const map = new Map<string, { id: string; label: string }>();
+    const map = new Map<string, Choice>();
     for (const c of choices)
-      map.set(c.coatingId, { id: c.coatingId, label: `${c.coatingCode} — ${c.coatingName}` });
+      map.set(c.coatingId, { value: c.coatingId, label: `${c.coatingCode} — ${c.coatingName}` });
     return [...map.values()];
   }, [choices]);
   const batches = useMemo(() => {
-    const map = new Map<string, { id: string; label: string }>();
+    const map = new Map<string, Choice>();
     for (const c of choices)
-      if (c.coatingId === coatingId) map.set(c.batchId, { id: c.batchId, label: c.lotCode });
+      if (c.coatingId === coatingId) map.set(c.batchId, { value: c.batchId, label: c.lotCode });
     return [...map.values()];
   }, [choices, coatingId]);
   const samples = choices.filter((c) => c.batchId === batchId);
@@ -57,77 +58,49 @@ export function SamplePicker({
       aria-label="Choose a sample"
       onSubmit={(event) => event.preventDefault()}
     >
-      <div>
-        <label htmlFor="se-coating" className="field-label">
-          Coating
-        </label>
-        <select
-          id="se-coating"
-          className="field-input"
-          value={coatingId}
-          onChange={(event) => {
-            setCoatingId(event.target.value);
-            setBatchId('');
-          }}
-        >
-          <option value="">Choose a coating…</option>
-          {coatings.map((c) => (
-            <option key={c.id} value={c.id}>
-              {c.label}
-            </option>
-          ))}
-        </select>
-      </div>
-      <div>
-        <label htmlFor="se-batch" className="field-label">
-          Batch
-        </label>
-        <select
-          id="se-batch"
-          className="field-input"
-          value={batchId}
-          disabled={!coatingId}
-          onChange={(event) => setBatchId(event.target.value)}
-        >
-          <option value="">{coatingId ? 'Choose a batch…' : 'Choose a coating first'}</option>
-          {batches.map((b) => (
-            <option key={b.id} value={b.id}>
-              {b.label}
-            </option>
-          ))}
-        </select>
-      </div>
-      <div>
-        <label htmlFor="se-sample" className="field-label">
-          Sample
-        </label>
-        <select
-          id="se-sample"
-          className="field-input"
-          value={
-            selected && selected.batchId === batchId
-              ? selectedBatchId
-                ? WHOLE_BATCH
-                : selected.sampleId
-              : ''
-          }
-          disabled={!batchId}
-          onChange={(event) => {
-            const value = event.target.value;
-            if (value === WHOLE_BATCH)
-              router.push(`/surface-energy?batch=${encodeURIComponent(batchId)}`);
-            else if (value) router.push(`/surface-energy?sample=${encodeURIComponent(value)}`);
-          }}
-        >
-          <option value="">{batchId ? 'Choose a sample…' : 'Choose a batch first'}</option>
-          {batchId ? <option value={WHOLE_BATCH}>All samples of the batch</option> : null}
-          {samples.map((s) => (
-            <option key={s.sampleId} value={s.sampleId}>
-              {s.sampleLabel}
-            </option>
-          ))}
-        </select>
-      </div>
+      <SelectField
+        id="se-coating"
+        label="Coating"
+        placeholder="Choose a coating…"
+        options={coatings}
+        value={coatingId}
+        onChange={(event) => {
+          setCoatingId(event.target.value);
+          setBatchId('');
+        }}
+      />
+      <SelectField
+        id="se-batch"
+        label="Batch"
+        placeholder={coatingId ? 'Choose a batch…' : 'Choose a coating first'}
+        options={batches}
+        value={batchId}
+        disabled={!coatingId}
+        onChange={(event) => setBatchId(event.target.value)}
+      />
+      <SelectField
+        id="se-sample"
+        label="Sample"
+        placeholder={batchId ? 'Choose a sample…' : 'Choose a batch first'}
+        options={[
+          ...(batchId ? [{ value: WHOLE_BATCH, label: 'All samples of the batch' }] : []),
+          ...samples.map((s) => ({ value: s.sampleId, label: s.sampleLabel })),
+        ]}
+        value={
+          selected && selected.batchId === batchId
+            ? selectedBatchId
+              ? WHOLE_BATCH
+              : selected.sampleId
+            : ''
+        }
+        disabled={!batchId}
+        onChange={(event) => {
+          const value = event.target.value;
+          if (value === WHOLE_BATCH)
+            router.push(`/surface-energy?batch=${encodeURIComponent(batchId)}`);
+          else if (value) router.push(`/surface-energy?sample=${encodeURIComponent(value)}`);
+        }}
+      />
     </form>
   );
 }

@@ -3,7 +3,12 @@ export function EmptyState({ title, children }: { title: string; children: React
   return (
     <section className="card border-dashed text-center" aria-label={title}>
       <svg viewBox="0 0 48 24" className="mx-auto mb-3 h-8 w-16 text-ink-300" aria-hidden="true">
-        <path d="M10 20 C10 9 17 5 24 5 C31 5 38 9 38 20 Z" fill="none" stroke="currentColor" strokeWidth="2" />
+        <path
+          d="M10 20 C10 9 17 5 24 5 C31 5 38 9 38 20 Z"
+          fill="none"
+          stroke="currentColor"
+          strokeWidth="2"
+        />
         <path d="M4 20 H44" stroke="currentColor" strokeWidth="2" strokeLinecap="round" />
       </svg>
       <h2 className="text-base">{title}</h2>

@@ -1,6 +1,7 @@
 'use client';
 
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
+import { CheckboxField, SelectField, TextField } from './fields';
 
 export type FilterField =
   | { name: string; label: string; type: 'text' | 'date'; placeholder?: string }
@@ -50,46 +51,35 @@ export function ListFilters({ fields, label }: { fields: FilterField[]; label: s
       key={searchParams.toString()}
     >
       {fields.map((field) => {
-        const id = `filter-${field.name}`;
+        const common = { id: `filter-${field.name}`, name: field.name, label: field.label };
         const value = searchParams.get(field.name) ?? '';
-        if (field.type === 'checkbox') {
+        if (field.type === 'checkbox')
           return (
-            <label key={field.name} htmlFor={id} className="flex items-center gap-2 pb-2 text-sm">
-              <input
-                id={id}
-                name={field.name}
-                type="checkbox"
-                defaultChecked={value === 'true' || value === '1'}
-              />
-              {field.label}
-            </label>
+            <CheckboxField
+              {...common}
+              key={field.name}
+              className="pb-2"
+              defaultChecked={value === 'true' || value === '1'}
+            />
           );
-        }
+        if (field.type === 'select')
+          return (
+            <SelectField
+              {...common}
+              key={field.name}
+              defaultValue={value}
+              placeholder={field.all}
+              options={field.options}
+            />
+          );
         return (
-          <div key={field.name}>
-            <label htmlFor={id} className="field-label">
-              {field.label}
-            </label>
-            {field.type === 'select' ? (
-              <select id={id} name={field.name} defaultValue={value} className="field-input">
-                <option value="">{field.all}</option>
-                {field.options.map((option) => (
-                  <option key={option.value} value={option.value}>
-                    {option.label}
-                  </option>
-                ))}
-              </select>
-            ) : (
-              <input
-                id={id}
-                name={field.name}
-                type={field.type}
-                defaultValue={value}
-                placeholder={field.type === 'text' ? field.placeholder : undefined}
-                className="field-input"
-              />
-            )}
-          </div>
+          <TextField
+            {...common}
+            key={field.name}
+            type={field.type}
+            defaultValue={value}
+            placeholder={field.type === 'text' ? field.placeholder : undefined}
+          />
         );
       })}
       <button type="submit" className="btn-quiet">

@@ -50,3 +50,6 @@ export type Coating = z.output<typeof coatingSchema>;
 
 /** GET list → page, POST/GET/PATCH → one, DELETE → deleted. */
 export const coatingReplies = recordReplies('coating', coatingSchema, coatingSchema);
+
+/** PUT/DELETE (and GET) /api/coatings/[id]/watch: whether the user gets out-of-spec mails. */
+export const watchReplySchema = z.object({ watching: z.boolean() });

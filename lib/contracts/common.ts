@@ -219,6 +219,7 @@ export type ArchiveOrDeleteQuery = z.output<typeof archiveOrDeleteQuerySchema>;
 
 /** The answer to DELETE of a record: archived (results depend on it) or deleted. */
 export const deleteOutcomeSchema = z.enum(['archived', 'deleted']);
+export const deleteReplySchema = z.object({ outcome: deleteOutcomeSchema });
 
 /**
  * The replies of a kind of record's routes: a list page of `item`, one record under `key`
@@ -233,7 +234,7 @@ export function recordReplies<Key extends string, Record extends z.ZodType, Item
   return {
     page: pageSchema(item),
     one: z.object(one),
-    deleted: z.object({ outcome: deleteOutcomeSchema, ...one }),
+    deleted: deleteReplySchema.extend(one),
   };
 }
 

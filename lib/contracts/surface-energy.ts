@@ -184,22 +184,29 @@ export type SurfaceEnergyInputs = {
   readAll: boolean;
 };
 
-export type SavedSurfaceEnergyResult = {
-  id: string;
-  sampleId: string | null;
-  batchId: string | null;
-  inputs: SurfaceEnergyInputs;
-  outputs: SurfaceEnergyOutputs;
-  createdByUserId: string | null;
-  createdByName: string | null;
-  createdAt: Date;
-};
+export const savedSurfaceEnergyResultSchema = z.object({
+  id: z.string(),
+  sampleId: z.string().nullable(),
+  batchId: z.string().nullable(),
+  inputs: z.custom<SurfaceEnergyInputs>(),
+  outputs: z.custom<SurfaceEnergyOutputs>(),
+  createdByUserId: z.string().nullable(),
+  createdByName: z.string().nullable(),
+  createdAt: z.coerce.date(),
+});
+export type SavedSurfaceEnergyResult = z.output<typeof savedSurfaceEnergyResultSchema>;
+
+/** 201 of POST /api/samples/[id]/surface-energy (and the batch's): the result as saved. */
+export const surfaceEnergySavedResponseSchema = z.object({
+  result: savedSurfaceEnergyResultSchema,
+});
 
 /** POST /api/surface-energy/calculate */
-export type SurfaceEnergyCalculation = {
-  availability: MethodAvailability[];
-  outputs: SurfaceEnergyOutputs;
-};
+export const surfaceEnergyCalculationSchema = z.object({
+  availability: z.array(z.custom<MethodAvailability>()),
+  outputs: z.custom<SurfaceEnergyOutputs>(),
+});
+export type SurfaceEnergyCalculation = z.output<typeof surfaceEnergyCalculationSchema>;
 
 /** An evaluation of a sample or batch: its angle table and what it computes to. */
 export type SurfaceEnergyEvaluation = SurfaceEnergyCalculation & {
@@ -210,10 +217,14 @@ export type SurfaceEnergyEvaluation = SurfaceEnergyCalculation & {
 };
 
 /** GET /api/samples/[id]/surface-energy (and the batch's) */
-export type SurfaceEnergyReply = Omit<SurfaceEnergyEvaluation, 'liquids'> & {
-  options: SampleSurfaceEnergyOptions;
-  saved: SavedSurfaceEnergyResult[];
-};
+export const surfaceEnergyReplySchema = surfaceEnergyCalculationSchema.extend({
+  subject: subjectSummarySchema,
+  angleTable: z.array(angleTableRowSchema),
+  readAll: z.boolean(),
+  options: sampleSurfaceEnergySchema,
+  saved: z.array(savedSurfaceEnergyResultSchema),
+});
+export type SurfaceEnergyReply = z.output<typeof surfaceEnergyReplySchema>;
 
 /** The page's picker: coatings → batches → samples. */
 export const surfaceEnergyChoiceSchema = z.object({

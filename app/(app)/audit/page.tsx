@@ -1,6 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { EmptyState, PageHeader } from '@/components/ui/empty-state';
+import { SelectField, TextField } from '@/components/ui/fields';
+import { PlainTable } from '@/components/ui/plain-table';
 import { requirePage } from '@/lib/auth/guard';
 import { loadAuditLog, type AuditFilters } from '@/server/audit/list';
 
@@ -84,84 +86,38 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
         action="/audit"
         className="card mb-6 grid gap-3 sm:grid-cols-2 lg:grid-cols-3 lg:items-end 2xl:grid-cols-6"
       >
-        <div>
-          <label htmlFor="audit-action" className="field-label">
-            Action
-          </label>
-          <select
-            id="audit-action"
-            name="action"
-            defaultValue={search.action ?? ''}
-            className="field-input"
-          >
-            <option value="">Any</option>
-            {options.actions.map((a) => (
-              <option key={a} value={a}>
-                {a}
-              </option>
-            ))}
-          </select>
-        </div>
-        <div>
-          <label htmlFor="audit-entity" className="field-label">
-            Record type
-          </label>
-          <select
-            id="audit-entity"
-            name="entity"
-            defaultValue={search.entity ?? ''}
-            className="field-input"
-          >
-            <option value="">Any</option>
-            {options.entityTypes.map((e) => (
-              <option key={e} value={e}>
-                {e}
-              </option>
-            ))}
-          </select>
-        </div>
-        <div>
-          <label htmlFor="audit-actor" className="field-label">
-            Who
-          </label>
-          <select
-            id="audit-actor"
-            name="actor"
-            defaultValue={search.actor ?? ''}
-            className="field-input"
-          >
-            <option value="">Anyone</option>
-            {options.actors.map((a) => (
-              <option key={a.id} value={a.id}>
-                {a.name} ({a.email})
-              </option>
-            ))}
-          </select>
-        </div>
-        <div>
-          <label htmlFor="audit-from" className="field-label">
-            From
-          </label>
-          <input
-            id="audit-from"
-            name="from"
-            type="date"
-            defaultValue={search.from ?? ''}
-            className="field-input"
+        {[
+          { name: 'action', label: 'Action', any: 'Any', values: options.actions },
+          { name: 'entity', label: 'Record type', any: 'Any', values: options.entityTypes },
+        ].map((filter) => (
+          <SelectField
+            key={filter.name}
+            id={`audit-${filter.name}`}
+            name={filter.name}
+            label={filter.label}
+            defaultValue={search[filter.name as 'action' | 'entity'] ?? ''}
+            placeholder={filter.any}
+            options={filter.values.map((v) => ({ value: v, label: v }))}
           />
-        </div>
-        <div>
-          <label htmlFor="audit-to" className="field-label">
-            To
-          </label>
-          <input
-            id="audit-to"
-            name="to"
+        ))}
+        <SelectField
+          id="audit-actor"
+          name="actor"
+          label="Who"
+          defaultValue={search.actor ?? ''}
+          placeholder="Anyone"
+          options={options.actors.map((a) => ({ value: a.id, label: `${a.name} (${a.email})` }))}
+        />
+        {(['from', 'to'] as const).map((name) => (
+          <TextField
+            key={name}
+            id={`audit-${name}`}
+            name={name}
+            label={name === 'from' ? 'From' : 'To'}
             type="date"
-            defaultValue={search.to ?? ''}
-            className="field-input"
+            defaultValue={search[name] ?? ''}
           />
-        </div>
+        ))}
         <div className="flex gap-2">
           <button type="submit" className="btn-primary">
             Filter
@@ -187,69 +143,43 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
           <p className="mb-3 text-sm text-ink-600">
             {total} {total === 1 ? 'entry' : 'entries'} · page {page} of {pages}
           </p>
-          <div className="overflow-x-auto">
-            <table className="w-full text-left text-sm">
-              <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
-                <tr>
-                  <th scope="col" className="py-2 pr-4 font-medium">
-                    When
-                  </th>
-                  <th scope="col" className="py-2 pr-4 font-medium">
-                    Who
-                  </th>
-                  <th scope="col" className="py-2 pr-4 font-medium">
-                    Action
-                  </th>
-                  <th scope="col" className="py-2 pr-4 font-medium">
-                    Record
-                  </th>
-                  <th scope="col" className="py-2 font-medium">
-                    Details
-                  </th>
-                </tr>
-              </thead>
-              <tbody>
-                {rows.map((row) => (
-                  <tr key={row.id} className="border-b border-ink-100 align-top last:border-0">
-                    <td className="whitespace-nowrap py-2 pr-4 font-mono text-xs text-ink-700">
-                      {timestamp(row.createdAt)}
-                    </td>
-                    <td className="py-2 pr-4">
-                      {row.actorName ? (
-                        <>
-                          <span className="text-ink-900">{row.actorName}</span>
-                          <span className="block text-xs text-ink-500">{row.actorEmail}</span>
-                        </>
-                      ) : (
-                        <span className="text-ink-500">
-                          {row.actorUserId ? 'deleted account' : 'system'}
-                        </span>
-                      )}
-                    </td>
-                    <td className="py-2 pr-4 font-mono text-xs text-ink-900">{row.action}</td>
-                    <td className="py-2 pr-4 text-ink-700">
-                      {row.entityType}
-                      {row.entityId ? (
-                        <span className="block font-mono text-xs text-ink-500">{row.entityId}</span>
-                      ) : null}
-                    </td>
-                    <td className="max-w-md py-2 text-xs text-ink-700 [overflow-wrap:anywhere]">
-                      {row.before ? (
-                        <p>
-                          <span className="text-ink-500">before</span> {describe(row.before)}
-                        </p>
-                      ) : null}
-                      {row.after ? (
-                        <p>
-                          <span className="text-ink-500">after</span> {describe(row.after)}
-                        </p>
-                      ) : null}
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <PlainTable head={['When', 'Who', 'Action', 'Record', 'Details']}>
+            {rows.map((row) => (
+              <tr key={row.id} className="border-b border-ink-100 align-top last:border-0">
+                <td className="whitespace-nowrap py-2 pr-4 font-mono text-xs text-ink-700">
+                  {timestamp(row.createdAt)}
+                </td>
+                <td className="py-2 pr-4">
+                  {row.actorName ? (
+                    <>
+                      <span className="text-ink-900">{row.actorName}</span>
+                      <span className="block text-xs text-ink-500">{row.actorEmail}</span>
+                    </>
+                  ) : (
+                    <span className="text-ink-500">
+                      {row.actorUserId ? 'deleted account' : 'system'}
+                    </span>
+                  )}
+                </td>
+                <td className="py-2 pr-4 font-mono text-xs text-ink-900">{row.action}</td>
+                <td className="py-2 pr-4 text-ink-700">
+                  {row.entityType}
+                  {row.entityId ? (
+                    <span className="block font-mono text-xs text-ink-500">{row.entityId}</span>
+                  ) : null}
+                </td>
+                <td className="max-w-md py-2 text-xs text-ink-700 [overflow-wrap:anywhere]">
+                  {(['before', 'after'] as const).map((when) =>
+                    row[when] ? (
+                      <p key={when}>
+                        <span className="text-ink-500">{when}</span> {describe(row[when])}
+                      </p>
+                    ) : null,
+                  )}
+                </td>
+              </tr>
+            ))}
+          </PlainTable>
           <nav
             aria-label="Audit log pages"
             className="mt-4 flex items-center justify-between text-sm"

@@ -1,12 +1,11 @@
 import type { Metadata } from 'next';
 import { BatchForm, BatchesTable } from '@/components/records/batches';
 import {
-  exportHref,
   listQueryFromPage,
+  listTableProps,
   type PageSearchParams,
 } from '@/components/records/list-query';
-import { PageHeader } from '@/components/ui/empty-state';
-import { ListFilters } from '@/components/ui/list-filters';
+import { RecordListPage } from '@/components/records/record-pages';
 import { requirePage } from '@/lib/auth/guard';
 import { allCoatings } from '@/server/records/detail-pages';
 import { batchRecords } from '@/server/records/kinds';
@@ -29,14 +28,12 @@ export default async function Page({ searchParams }: { searchParams: Promise<Pag
     label: `${c.code} · ${c.name}`,
   }));
   return (
-    <>
-      <PageHeader
-        title="Batches"
-        lead="Production and trial lots, their process parameters and samples."
-      />
-      <ListFilters
-        label="Filter batches"
-        fields={[
+    <RecordListPage
+      title="Batches"
+      lead="Production and trial lots, their process parameters and samples."
+      filters={{
+        label: 'Filter batches',
+        fields: [
           {
             name: 'coatingId',
             label: 'Coating',
@@ -48,29 +45,26 @@ export default async function Page({ searchParams }: { searchParams: Promise<Pag
           { name: 'producedFrom', label: 'Produced from', type: 'date' },
           { name: 'producedTo', label: 'Produced to', type: 'date' },
           { name: 'includeArchived', label: 'Show archived', type: 'checkbox' },
-        ]}
-      />
+        ],
+      }}
+      add={
+        can(role, 'records:write')
+          ? {
+              summary: 'Add a batch',
+              id: 'new-batch',
+              open: Boolean(query.coatingId),
+              form: <BatchForm coatings={coatingChoices} defaultCoatingId={query.coatingId} />,
+            }
+          : null
+      }
+    >
       <BatchesTable
-        rows={list.items}
-        total={list.total}
-        page={list.page}
-        pageSize={list.pageSize}
-        sort={query.sort}
-        dir={query.dir}
-        exportHref={
-          can(role, 'results:export')
-            ? exportHref('/api/batches/export.csv', batchListQuerySchema, query)
-            : null
-        }
+        {...listTableProps(list, query, {
+          path: '/api/batches/export.csv',
+          schema: batchListQuerySchema,
+          allowed: can(role, 'results:export'),
+        })}
       />
-      {can(role, 'records:write') ? (
-        <details className="card mt-6" id="new-batch" open={Boolean(query.coatingId) || undefined}>
-          <summary className="cursor-pointer font-semibold">Add a batch</summary>
-          <div className="mt-3">
-            <BatchForm coatings={coatingChoices} defaultCoatingId={query.coatingId} />
-          </div>
-        </details>
-      ) : null}
-    </>
+    </RecordListPage>
   );
 }

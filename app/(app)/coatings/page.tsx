@@ -1,12 +1,11 @@
 import type { Metadata } from 'next';
 import { CoatingForm, CoatingsTable } from '@/components/records/coatings';
 import {
-  exportHref,
   listQueryFromPage,
+  listTableProps,
   type PageSearchParams,
 } from '@/components/records/list-query';
-import { PageHeader } from '@/components/ui/empty-state';
-import { ListFilters } from '@/components/ui/list-filters';
+import { RecordListPage } from '@/components/records/record-pages';
 import { requirePage } from '@/lib/auth/guard';
 import { coatingRecords } from '@/server/records/kinds';
 import { listRecords } from '@/server/records/list';
@@ -21,14 +20,12 @@ export default async function Page({ searchParams }: { searchParams: Promise<Pag
   const list = await listRecords(coatingRecords, ctx.organization.id, query);
   const role = ctx.organization.role;
   return (
-    <>
-      <PageHeader
-        title="Coatings"
-        lead="Products and formulations under test, with the specs their results are checked against."
-      />
-      <ListFilters
-        label="Filter coatings"
-        fields={[
+    <RecordListPage
+      title="Coatings"
+      lead="Products and formulations under test, with the specs their results are checked against."
+      filters={{
+        label: 'Filter coatings',
+        fields: [
           {
             name: 'q',
             label: 'Search code, name or description',
@@ -36,29 +33,17 @@ export default async function Page({ searchParams }: { searchParams: Promise<Pag
             placeholder: 'HT-200',
           },
           { name: 'includeArchived', label: 'Show archived', type: 'checkbox' },
-        ]}
-      />
+        ],
+      }}
+      add={can(role, 'catalog:manage') ? { summary: 'Add a coating', form: <CoatingForm /> } : null}
+    >
       <CoatingsTable
-        rows={list.items}
-        total={list.total}
-        page={list.page}
-        pageSize={list.pageSize}
-        sort={query.sort}
-        dir={query.dir}
-        exportHref={
-          can(role, 'results:export')
-            ? exportHref('/api/coatings/export.csv', coatingListQuerySchema, query)
-            : null
-        }
+        {...listTableProps(list, query, {
+          path: '/api/coatings/export.csv',
+          schema: coatingListQuerySchema,
+          allowed: can(role, 'results:export'),
+        })}
       />
-      {can(role, 'catalog:manage') ? (
-        <details className="card mt-6">
-          <summary className="cursor-pointer font-semibold">Add a coating</summary>
-          <div className="mt-3">
-            <CoatingForm />
-          </div>
-        </details>
-      ) : null}
-    </>
+    </RecordListPage>
   );
 }

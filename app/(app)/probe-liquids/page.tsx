@@ -1,12 +1,11 @@
 import type { Metadata } from 'next';
 import {
-  exportHref,
   listQueryFromPage,
+  listTableProps,
   type PageSearchParams,
 } from '@/components/records/list-query';
 import { ProbeLiquidsPanel } from '@/components/records/probe-liquids';
-import { PageHeader } from '@/components/ui/empty-state';
-import { ListFilters } from '@/components/ui/list-filters';
+import { RecordListPage } from '@/components/records/record-pages';
 import { requirePage } from '@/lib/auth/guard';
 import { probeLiquidRecords } from '@/server/records/kinds';
 import { listRecords } from '@/server/records/list';
@@ -21,14 +20,12 @@ export default async function Page({ searchParams }: { searchParams: Promise<Pag
   const list = await listRecords(probeLiquidRecords, ctx.organization.id, query);
   const role = ctx.organization.role;
   return (
-    <>
-      <PageHeader
-        title="Probe liquids"
-        lead="Surface tension and its components, in mN/m, for each test liquid. The built-in library carries published values with their sources; add your own liquids with yours."
-      />
-      <ListFilters
-        label="Filter probe liquids"
-        fields={[
+    <RecordListPage
+      title="Probe liquids"
+      lead="Surface tension and its components, in mN/m, for each test liquid. The built-in library carries published values with their sources; add your own liquids with yours."
+      filters={{
+        label: 'Filter probe liquids',
+        fields: [
           { name: 'q', label: 'Name', type: 'text', placeholder: 'Water' },
           {
             name: 'origin',
@@ -41,22 +38,17 @@ export default async function Page({ searchParams }: { searchParams: Promise<Pag
             ],
           },
           { name: 'includeArchived', label: 'Show archived', type: 'checkbox' },
-        ]}
-      />
+        ],
+      }}
+    >
       <ProbeLiquidsPanel
         canManage={can(role, 'catalog:manage')}
-        rows={list.items}
-        total={list.total}
-        page={list.page}
-        pageSize={list.pageSize}
-        sort={query.sort}
-        dir={query.dir}
-        exportHref={
-          can(role, 'results:export')
-            ? exportHref('/api/probe-liquids/export.csv', probeLiquidListQuerySchema, query)
-            : null
-        }
+        {...listTableProps(list, query, {
+          path: '/api/probe-liquids/export.csv',
+          schema: probeLiquidListQuerySchema,
+          allowed: can(role, 'results:export'),
+        })}
       />
-    </>
+    </RecordListPage>
   );
 }

@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { SubmitForReviewForm } from '@/components/reviews/submit-form';
 import { EmptyState, PageHeader } from '@/components/ui/empty-state';
+import { PlainTable } from '@/components/ui/plain-table';
 import { requirePage } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/permissions';
 import { loadReviewsPage } from '@/server/reviews/load';
@@ -21,8 +22,13 @@ export default async function ReviewsPage() {
   if (!can(role, 'results:read-all')) {
     return (
       <>
-        <PageHeader title="Reviews" lead="Results are shown to you once a reviewer has approved them." />
-        <EmptyState title="Nothing to review">Reviews are done by the lab&apos;s reviewers.</EmptyState>
+        <PageHeader
+          title="Reviews"
+          lead="Results are shown to you once a reviewer has approved them."
+        />
+        <EmptyState title="Nothing to review">
+          Reviews are done by the lab&apos;s reviewers.
+        </EmptyState>
       </>
     );
   }
@@ -31,36 +37,33 @@ export default async function ReviewsPage() {
     rows.length === 0 ? (
       <p className="text-sm text-ink-600">{emptyText}</p>
     ) : (
-      <table className="w-full text-left text-sm" aria-label={label}>
-        <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
-          <tr>
-            <th scope="col" className="py-2 pr-3 font-medium">Results</th>
-            <th scope="col" className="py-2 pr-3 font-medium">Drops</th>
-            <th scope="col" className="py-2 pr-3 font-medium">Submitted</th>
-            <th scope="col" className="py-2 pr-3 font-medium">Status</th>
+      <PlainTable label={label} head={['Results', 'Drops', 'Submitted', 'Status']}>
+        {rows.map((r) => (
+          <tr key={r.id} className="border-b border-ink-100 last:border-0">
+            <td className="py-2 pr-3">
+              <Link
+                href={`/reviews/${r.id}`}
+                className="font-medium text-lagoon-700 hover:underline"
+              >
+                {r.coatingCode} · {r.lotCode}
+                {r.sampleLabel ? ` / ${r.sampleLabel}` : ''}
+              </Link>
+            </td>
+            <td className="py-2 pr-3 font-mono">{r.analysisIds.length}</td>
+            <td className="py-2 pr-3 text-ink-700">
+              {r.submittedBy ?? '—'}, {r.submittedAt.toISOString().slice(0, 10)}
+            </td>
+            <td className="py-2 pr-3">
+              <span className={`rounded px-2 py-0.5 text-xs font-medium ${STATUS_STYLE[r.status]}`}>
+                {r.status}
+              </span>
+              {r.decidedBy ? (
+                <span className="ml-2 text-xs text-ink-500">by {r.decidedBy}</span>
+              ) : null}
+            </td>
           </tr>
-        </thead>
-        <tbody>
-          {rows.map((r) => (
-            <tr key={r.id} className="border-b border-ink-100 last:border-0">
-              <td className="py-2 pr-3">
-                <Link href={`/reviews/${r.id}`} className="font-medium text-lagoon-700 hover:underline">
-                  {r.coatingCode} · {r.lotCode}
-                  {r.sampleLabel ? ` / ${r.sampleLabel}` : ''}
-                </Link>
-              </td>
-              <td className="py-2 pr-3 font-mono">{r.analysisIds.length}</td>
-              <td className="py-2 pr-3 text-ink-700">
-                {r.submittedBy ?? '—'}, {r.submittedAt.toISOString().slice(0, 10)}
-              </td>
-              <td className="py-2 pr-3">
-                <span className={`rounded px-2 py-0.5 text-xs font-medium ${STATUS_STYLE[r.status]}`}>{r.status}</span>
-                {r.decidedBy ? <span className="ml-2 text-xs text-ink-500">by {r.decidedBy}</span> : null}
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+        ))}
+      </PlainTable>
     );
   return (
     <>

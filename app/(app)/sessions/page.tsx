@@ -1,12 +1,11 @@
 import type { Metadata } from 'next';
 import {
-  exportHref,
   listQueryFromPage,
+  listTableProps,
   type PageSearchParams,
 } from '@/components/records/list-query';
+import { RecordListPage } from '@/components/records/record-pages';
 import { SessionsTable } from '@/components/records/sessions';
-import { PageHeader } from '@/components/ui/empty-state';
-import { ListFilters } from '@/components/ui/list-filters';
 import { requirePage } from '@/lib/auth/guard';
 import { measurementSessionRecords, probeLiquidRecords } from '@/server/records/kinds';
 import { listRecords } from '@/server/records/list';
@@ -29,14 +28,12 @@ export default async function Page({ searchParams }: { searchParams: Promise<Pag
     ),
   ]);
   return (
-    <>
-      <PageHeader
-        title="Measurement sessions"
-        lead="Sittings at the instrument: who measured, when, with which liquid, room conditions, drop volume and camera scale."
-      />
-      <ListFilters
-        label="Filter sessions"
-        fields={[
+    <RecordListPage
+      title="Measurement sessions"
+      lead="Sittings at the instrument: who measured, when, with which liquid, room conditions, drop volume and camera scale."
+      filters={{
+        label: 'Filter sessions',
+        fields: [
           { name: 'q', label: 'Operator or notes', type: 'text' },
           {
             name: 'probeLiquidId',
@@ -47,25 +44,16 @@ export default async function Page({ searchParams }: { searchParams: Promise<Pag
           },
           { name: 'measuredFrom', label: 'From', type: 'date' },
           { name: 'measuredTo', label: 'To', type: 'date' },
-        ]}
-      />
+        ],
+      }}
+    >
       <SessionsTable
-        rows={list.items}
-        total={list.total}
-        page={list.page}
-        pageSize={list.pageSize}
-        sort={query.sort}
-        dir={query.dir}
-        exportHref={
-          can(ctx.organization.role, 'results:export')
-            ? exportHref(
-                '/api/measurement-sessions/export.csv',
-                measurementSessionListQuerySchema,
-                query,
-              )
-            : null
-        }
+        {...listTableProps(list, query, {
+          path: '/api/measurement-sessions/export.csv',
+          schema: measurementSessionListQuerySchema,
+          allowed: can(ctx.organization.role, 'results:export'),
+        })}
       />
-    </>
+    </RecordListPage>
   );
 }

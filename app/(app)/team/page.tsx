@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import { PageHeader } from '@/components/ui/empty-state';
+import { PlainTable } from '@/components/ui/plain-table';
 import { InvitationRow } from '@/components/team/invitation-row';
 import { InviteForm } from '@/components/team/invite-form';
 import { MemberRow } from '@/components/team/member-row';
@@ -20,38 +21,18 @@ export default async function TeamPage() {
       <PageHeader title="Team" lead="Who belongs to this organization and what each role may do." />
       <section className="card mb-6">
         <h2 className="mb-3">Members</h2>
-        <div className="overflow-x-auto">
-          <table className="w-full text-left text-sm">
-            <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
-              <tr>
-                <th scope="col" className="py-2 pr-4 font-medium">
-                  Name
-                </th>
-                <th scope="col" className="py-2 pr-4 font-medium">
-                  E-mail
-                </th>
-                <th scope="col" className="py-2 pr-4 font-medium">
-                  Role
-                </th>
-                <th scope="col" className="py-2 font-medium">
-                  <span className="sr-only">Actions</span>
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {members.map((member) => (
-                <MemberRow
-                  key={member.userId}
-                  userId={member.userId}
-                  name={member.name}
-                  email={member.email}
-                  role={member.role}
-                  isYou={member.userId === ctx.user.id}
-                />
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <PlainTable head={['Name', 'E-mail', 'Role', { label: 'Actions', hidden: true }]}>
+          {members.map((member) => (
+            <MemberRow
+              key={member.userId}
+              userId={member.userId}
+              name={member.name}
+              email={member.email}
+              role={member.role}
+              isYou={member.userId === ctx.user.id}
+            />
+          ))}
+        </PlainTable>
         <p className="mt-3 text-xs text-ink-500">
           Every organization keeps at least one admin.{' '}
           {Object.values(ROLE_LABELS)
@@ -72,42 +53,21 @@ export default async function TeamPage() {
         {invitations.length === 0 ? (
           <p className="text-sm text-ink-600">No open invitations.</p>
         ) : (
-          <div className="overflow-x-auto">
-            <table className="w-full text-left text-sm">
-              <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
-                <tr>
-                  <th scope="col" className="py-2 pr-4 font-medium">
-                    E-mail
-                  </th>
-                  <th scope="col" className="py-2 pr-4 font-medium">
-                    Role
-                  </th>
-                  <th scope="col" className="py-2 pr-4 font-medium">
-                    Invited by
-                  </th>
-                  <th scope="col" className="py-2 pr-4 font-medium">
-                    Link
-                  </th>
-                  <th scope="col" className="py-2 font-medium">
-                    <span className="sr-only">Actions</span>
-                  </th>
-                </tr>
-              </thead>
-              <tbody>
-                {invitations.map((invitation) => (
-                  <InvitationRow
-                    key={invitation.id}
-                    id={invitation.id}
-                    email={invitation.email}
-                    roleName={ROLE_LABELS[invitation.role].name}
-                    invitedBy={invitation.invitedBy}
-                    expiresOn={day(invitation.expiresAt)}
-                    expired={invitation.status === 'expired'}
-                  />
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <PlainTable
+            head={['E-mail', 'Role', 'Invited by', 'Link', { label: 'Actions', hidden: true }]}
+          >
+            {invitations.map((invitation) => (
+              <InvitationRow
+                key={invitation.id}
+                id={invitation.id}
+                email={invitation.email}
+                roleName={ROLE_LABELS[invitation.role].name}
+                invitedBy={invitation.invitedBy}
+                expiresOn={day(invitation.expiresAt)}
+                expired={invitation.status === 'expired'}
+              />
+            ))}
+          </PlainTable>
         )}
       </section>
       <section className="card max-w-lg">

@@ -8,10 +8,11 @@ import { CoatingForm } from '@/components/records/coatings';
 import {
   exportHref,
   listQueryFromPage,
+  listTableProps,
   type PageSearchParams,
 } from '@/components/records/list-query';
+import { RecordPageHeader, RecordSection } from '@/components/records/record-pages';
 import { SpecsPanel } from '@/components/records/specs';
-import { PageHeader } from '@/components/ui/empty-state';
 import { requirePage } from '@/lib/auth/guard';
 import { loadCoatingPage } from '@/server/records/detail-pages';
 import { can } from '@/lib/auth/permissions';
@@ -40,30 +41,22 @@ export default async function Page({
   const canExport = can(role, 'results:export');
   return (
     <>
-      <p className="mb-2 text-sm">
-        <Link href="/coatings" className="text-lagoon-700 hover:underline">
-          ← Coatings
-        </Link>
-      </p>
-      <PageHeader
+      <RecordPageHeader
+        back={{ href: '/coatings', label: 'Coatings' }}
         title={`${coating.code} · ${coating.name}`}
         lead={coating.description || undefined}
+        archived={Boolean(coating.archivedAt)}
+        what="coating"
+        actions={
+          watching !== null ? (
+            <div className="-mt-3 mb-4">
+              <WatchCoatingButton coatingId={id} initiallyWatching={watching} />
+            </div>
+          ) : null
+        }
       />
-      {watching !== null ? (
-        <div className="-mt-3 mb-4">
-          <WatchCoatingButton coatingId={id} initiallyWatching={watching} />
-        </div>
-      ) : null}
-      {coating.archivedAt ? (
-        <p className="mb-4 rounded-md border border-amber-500 bg-amber-50 px-3 py-2 text-sm text-amber-900">
-          This coating is archived: its records are kept, but it can no longer be changed.
-        </p>
-      ) : null}
 
-      <section className="mb-8" aria-labelledby="specs-heading">
-        <h2 id="specs-heading" className="mb-2">
-          Specs
-        </h2>
+      <RecordSection id="specs" title="Specs">
         <SpecsPanel
           coatingId={id}
           specs={specs.items}
@@ -73,46 +66,45 @@ export default async function Page({
             canExport ? exportHref('/api/specs/export.csv', specListQuerySchema, specQuery) : null
           }
         />
-      </section>
+      </RecordSection>
 
-      <section className="mb-8" aria-labelledby="batches-heading">
-        <div className="mb-2 flex items-center justify-between">
-          <h2 id="batches-heading">Batches</h2>
-          {can(role, 'records:write') && !coating.archivedAt ? (
+      <RecordSection
+        id="batches"
+        title="Batches"
+        action={
+          can(role, 'records:write') && !coating.archivedAt ? (
             <Link className="btn-quiet py-1" href={`/batches?coatingId=${id}#new-batch`}>
               Add a batch of this coating
             </Link>
-          ) : null}
-        </div>
+          ) : null
+        }
+      >
         <BatchesTable
-          rows={batches.items}
-          total={batches.total}
-          page={batches.page}
-          pageSize={batches.pageSize}
-          sort={batchQuery.sort}
-          dir={batchQuery.dir}
-          exportHref={
-            canExport
-              ? exportHref('/api/batches/export.csv', batchListQuerySchema, batchQuery)
-              : null
-          }
+          {...listTableProps(batches, batchQuery, {
+            path: '/api/batches/export.csv',
+            schema: batchListQuerySchema,
+            allowed: canExport,
+          })}
           emptyText="No batches of this coating have been recorded yet."
         />
-      </section>
+      </RecordSection>
 
       {canManage ? (
-        <section className="card" aria-labelledby="edit-coating-heading">
-          <div className="mb-3 flex items-center justify-between">
-            <h2 id="edit-coating-heading">Edit coating</h2>
+        <RecordSection
+          id="edit-coating"
+          title="Edit coating"
+          card
+          action={
             <ArchiveButton
               url={`/api/coatings/${id}`}
               version={coating.version}
               what="coating"
               afterDeleteHref="/coatings"
             />
-          </div>
+          }
+        >
           <CoatingForm coating={coating} />
-        </section>
+        </RecordSection>
       ) : null}
     </>
   );

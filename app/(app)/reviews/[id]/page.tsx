@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { ReviewDecisionForm } from '@/components/reviews/decision-form';
 import { PageHeader } from '@/components/ui/empty-state';
+import { PlainTable } from '@/components/ui/plain-table';
 import { requirePage } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/permissions';
 import { loadReview } from '@/server/reviews/load';
@@ -26,41 +27,44 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
         title={`Review of ${title}`}
         lead={`Submitted by ${review.submittedBy ?? 'a former member'} on ${review.submittedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC. Status: ${review.status}.`}
       />
-      {review.submitNote ? <p className="mb-4 rounded-md bg-white px-3 py-2 text-sm">Note: {review.submitNote}</p> : null}
+      {review.submitNote ? (
+        <p className="mb-4 rounded-md bg-white px-3 py-2 text-sm">Note: {review.submitNote}</p>
+      ) : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
-        <section className="card overflow-x-auto">
+        <section className="card">
           <h2 className="mb-3">Results under review</h2>
           {review.supersededCount > 0 ? (
             <p className="mb-3 rounded-md bg-amber-50 px-3 py-2 text-sm text-amber-900">
-              {review.supersededCount} of the submitted results were re-analysed since submission; they need a new review.
+              {review.supersededCount} of the submitted results were re-analysed since submission;
+              they need a new review.
             </p>
           ) : null}
-          <table className="w-full text-left text-sm" data-testid="review-rows">
-            <thead className="border-b border-ink-200 text-xs uppercase tracking-wide text-ink-500">
-              <tr>
-                <th scope="col" className="py-2 pr-3 font-medium">Sample</th>
-                <th scope="col" className="py-2 pr-3 font-medium">Liquid</th>
-                <th scope="col" className="py-2 pr-3 font-medium">Method</th>
-                <th scope="col" className="py-2 pr-3 text-right font-medium">Left (°)</th>
-                <th scope="col" className="py-2 pr-3 text-right font-medium">Right (°)</th>
-                <th scope="col" className="py-2 pr-3 text-right font-medium">Mean (°)</th>
-              </tr>
-            </thead>
-            <tbody>
-              {review.rows.map((r) => (
-                <tr key={r.analysisId} className="border-b border-ink-100 last:border-0">
-                  <td className="py-1.5 pr-3">{r.sampleLabel}</td>
-                  <td className="py-1.5 pr-3">{r.liquidName}</td>
-                  <td className="py-1.5 pr-3 text-xs">
-                    {r.method} r{r.revision}
+          <PlainTable
+            testId="review-rows"
+            head={[
+              'Sample',
+              'Liquid',
+              'Method',
+              { label: 'Left (°)', align: 'right' },
+              { label: 'Right (°)', align: 'right' },
+              { label: 'Mean (°)', align: 'right' },
+            ]}
+          >
+            {review.rows.map((r) => (
+              <tr key={r.analysisId} className="border-b border-ink-100 last:border-0">
+                <td className="py-1.5 pr-3">{r.sampleLabel}</td>
+                <td className="py-1.5 pr-3">{r.liquidName}</td>
+                <td className="py-1.5 pr-3 text-xs">
+                  {r.method} r{r.revision}
+                </td>
+                {[r.leftDeg, r.rightDeg, r.meanDeg].map((deg, i) => (
+                  <td key={i} className="py-1.5 pr-3 text-right font-mono">
+                    {deg.toFixed(1)}
                   </td>
-                  <td className="py-1.5 pr-3 text-right font-mono">{r.leftDeg.toFixed(1)}</td>
-                  <td className="py-1.5 pr-3 text-right font-mono">{r.rightDeg.toFixed(1)}</td>
-                  <td className="py-1.5 pr-3 text-right font-mono">{r.meanDeg.toFixed(1)}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+                ))}
+              </tr>
+            ))}
+          </PlainTable>
         </section>
         <section className="card h-fit">
           {review.status === 'submitted' ? (
@@ -76,13 +80,14 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
             <div className="space-y-2 text-sm" data-testid="review-outcome">
               <h2>{review.status === 'approved' ? 'Approved and signed' : 'Rejected'}</h2>
               <p>
-                By {review.decidedBy ?? '—'} on {review.decidedAt?.toISOString().slice(0, 16).replace('T', ' ')} UTC
+                By {review.decidedBy ?? '—'} on{' '}
+                {review.decidedAt?.toISOString().slice(0, 16).replace('T', ' ')} UTC
               </p>
               {review.decisionComment ? <p>Comment: {review.decisionComment}</p> : null}
               {review.signature ? (
                 <p className="break-all text-xs text-ink-500">
-                  Signature: {review.signature.name} ({review.signature.email}), password reconfirmed; digest{' '}
-                  {review.signature.digest.slice(0, 16)}…
+                  Signature: {review.signature.name} ({review.signature.email}), password
+                  reconfirmed; digest {review.signature.digest.slice(0, 16)}…
                 </p>
               ) : null}
             </div>

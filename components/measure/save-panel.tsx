@@ -1,0 +1,101 @@
+'use client';
+
+import { useMemo } from 'react';
+import { SelectField } from '@/components/ui/fields';
+import type { SampleChoice } from './types';
+import type { SaveMessage } from './use-save-drops';
+
+/** Which sample the drops go to, and the save buttons with their progress and outcome. */
+export function SavePanel({
+  samples,
+  sampleId,
+  onSampleChange,
+  canSaveOne,
+  canSaveAll,
+  saving,
+  progress,
+  message,
+  onSaveOne,
+  onSaveAll,
+}: {
+  samples: SampleChoice[];
+  sampleId: string;
+  onSampleChange: (id: string) => void;
+  canSaveOne: boolean;
+  canSaveAll: boolean;
+  saving: boolean;
+  progress: { done: number; total: number } | null;
+  message: SaveMessage | null;
+  onSaveOne: () => void;
+  onSaveAll: () => void;
+}) {
+  const byCoating = useMemo(() => {
+    const groups = new Map<string, SampleChoice[]>();
+    for (const s of samples) {
+      const key = `${s.coatingCode} · ${s.coatingName}`;
+      groups.set(key, [...(groups.get(key) ?? []), s]);
+    }
+    return [...groups];
+  }, [samples]);
+  return (
+    <section className="card space-y-3">
+      <h2>Save to a sample</h2>
+      <SelectField
+        id="sample"
+        label="Sample"
+        placeholder="Choose a sample…"
+        value={sampleId}
+        onChange={(e) => onSampleChange(e.target.value)}
+        hint={
+          samples.length === 0
+            ? 'No samples yet: add a coating, a batch and a sample first.'
+            : undefined
+        }
+      >
+        {byCoating.map(([group, choices]) => (
+          <optgroup key={group} label={group}>
+            {choices.map((s) => (
+              <option key={s.id} value={s.id}>
+                {s.lotCode} / {s.label}
+              </option>
+            ))}
+          </optgroup>
+        ))}
+      </SelectField>
+      <div className="flex flex-wrap gap-2">
+        <button
+          type="button"
+          className="btn-primary"
+          disabled={!canSaveOne || saving}
+          onClick={onSaveOne}
+        >
+          {saving && !progress ? 'Saving…' : 'Save this drop'}
+        </button>
+        <button
+          type="button"
+          className="btn-quiet"
+          disabled={saving || !canSaveAll}
+          onClick={onSaveAll}
+        >
+          Save all analysed
+        </button>
+      </div>
+      {progress ? (
+        <progress
+          className="h-2 w-full accent-lagoon-600"
+          max={progress.total}
+          value={progress.done}
+          aria-label="Saving photos"
+        />
+      ) : null}
+      {message ? (
+        <p
+          role="status"
+          className={`text-sm ${message.kind === 'ok' ? 'text-leaf-700' : 'text-coral-700'}`}
+        >
+          {message.text}
+        </p>
+      ) : null}
+    </section>
+  );
+}

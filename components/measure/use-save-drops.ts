@@ -1,0 +1,140 @@
+'use client';
+
+import { useState } from 'react';
+import { useMutation, type MutationResult } from '@/components/data/use-mutation';
+import type { FitMethod } from '@/lib/analysis/types';
+import { measurementSessionReplies } from '@/lib/contracts/measurement-sessions';
+import { useWorkspace, type WorkspacePhoto } from './store';
+import { scaleOf, type SessionDetails } from './types';
+
+export type SaveMessage = { kind: 'ok' | 'error'; text: string };
+
+const must = <T>(result: MutationResult<T>): T => {
+  if (!result.ok) throw result.error;
+  return result.data;
+};
+
+/**
+ * Saving analysed photos to a sample: the session is created on the first save with its
+ * details, then each photo's drop is saved (the server re-analyses the stored photo with the
+ * same method and baseline). One photo, or every analysed photo not saved yet.
+ */
+export function useSaveDrops({
+  sampleId,
+  session,
+  onSessionCreated,
+  method,
+  onSaved,
+}: {
+  sampleId: string;
+  session: SessionDetails;
+  onSessionCreated: (sessionId: string) => void;
+  method: FitMethod;
+  /** After a save, e.g. to reload the selected photo's revisions. */
+  onSaved: () => Promise<unknown>;
+}) {
+  const markSaved = useWorkspace((state) => state.markSaved);
+  const send = useMutation();
+  const [message, setMessage] = useState<SaveMessage | null>(null);
+  const [saving, setSaving] = useState(false);
+  const [progress, setProgress] = useState<{ done: number; total: number } | null>(null);
+  const scale = scaleOf(session);
+
+  async function ensureSession(): Promise<string> {
+    if (session.sessionId) return session.sessionId;
+    const created = must(
+      await send.run('/api/measurement-sessions', {
+        method: 'POST',
+        json: {
+          operatorName: session.operatorName,
+          measuredAt: new Date().toISOString(),
+          probeLiquidId: session.probeLiquidId || undefined,
+          temperatureC: session.temperatureC ? Number(session.temperatureC) : undefined,
+          humidityPct: session.humidityPct ? Number(session.humidityPct) : undefined,
+          dropVolumeUl: session.dropVolumeUl ? Number(session.dropVolumeUl) : undefined,
+          scalePxPerMm: scale ?? undefined,
+          instrumentNotes: '',
+        },
+        schema: measurementSessionReplies.one,
+      }),
+    ) as { id: string } | { measurementSession: { id: string } };
+    const id = 'id' in created ? created.id : created.measurementSession.id;
+    onSessionCreated(id);
+    return id;
+  }
+
+  async function savePhoto(photo: WorkspacePhoto, sessionId: string): Promise<number> {
+    const saved = must(
+      await send.run(`/api/photos/${photo.id}/drop`, {
+        method: 'POST',
+        json: {
+          sampleId,
+          probeLiquidId: session.probeLiquidId,
+          sessionId,
+          method,
+          baseline: photo.baseline,
+          scalePxPerMm: scale,
+        },
+      }),
+    ) as { revision: number };
+    markSaved(photo.id, saved.revision);
+    return saved.revision;
+  }
+
+  function problemBeforeSave(): string | null {
+    if (!sampleId) return 'Choose the sample these drops were placed on, then save.';
+    if (!session.probeLiquidId) return 'Choose the probe liquid, then save.';
+    return null;
+  }
+
+  /** Runs `save` with the checks, the busy state and the message around it. */
+  async function guarded(save: () => Promise<SaveMessage>) {
+    const problem = problemBeforeSave();
+    if (problem) return setMessage({ kind: 'error', text: problem });
+    setSaving(true);
+    setMessage(null);
+    try {
+      setMessage(await save());
+    } catch (error) {
+      setMessage({
+        kind: 'error',
+        text: error instanceof Error ? error.message : 'Saving failed.',
+      });
+    } finally {
+      setSaving(false);
+      setProgress(null);
+    }
+  }
+
+  const saveOne = (photo: WorkspacePhoto) =>
+    guarded(async () => {
+      const revision = await savePhoto(photo, await ensureSession());
+      await onSaved();
+      return { kind: 'ok', text: `Saved as revision ${revision}.` };
+    });
+
+  const saveAll = (photos: WorkspacePhoto[]) =>
+    guarded(async () => {
+      const toSave = photos.filter((p) => p.status === 'ready' && p.dirty);
+      setProgress({ done: 0, total: toSave.length });
+      const sessionId = await ensureSession();
+      const failures: string[] = [];
+      for (const [i, photo] of toSave.entries()) {
+        try {
+          await savePhoto(photo, sessionId);
+        } catch (error) {
+          failures.push(`${photo.name}: ${error instanceof Error ? error.message : 'not saved'}`);
+        }
+        setProgress({ done: i + 1, total: toSave.length });
+      }
+      await onSaved();
+      return failures.length
+        ? {
+            kind: 'error',
+            text: `Saved ${toSave.length - failures.length} of ${toSave.length}. Not saved: ${failures.join('; ')}`,
+          }
+        : { kind: 'ok', text: `Saved ${toSave.length} drop${toSave.length === 1 ? '' : 's'}.` };
+    });
+
+  return { saveOne, saveAll, saving, progress, message };
+}

@@ -1,0 +1,135 @@
+import { act, renderHook, waitFor } from '@testing-library/react';
+import { beforeEach, describe, expect, it } from 'vitest';
+import { useWorkspace, type WorkspacePhoto } from '@/components/measure/store';
+import { initialSession } from '@/components/measure/types';
+import { useSaveDrops } from '@/components/measure/use-save-drops';
+import { errorBody, stubFetch } from '../support';
+
+const LIQUIDS = [
+  { id: 'liquid-diiodomethane', name: 'Diiodomethane', hazardNote: 'Harmful.' },
+  { id: 'liquid-water', name: 'Water', hazardNote: null },
+];
+
+const analysed = (id: string, name: string): WorkspacePhoto => ({
+  id,
+  name,
+  width: 640,
+  height: 480,
+  status: 'ready',
+  error: null,
+  result: null,
+  baseline: null,
+  savedRevision: null,
+  dirty: true,
+});
+
+function setup(sampleId: string) {
+  let reloads = 0;
+  const created: string[] = [];
+  const hook = renderHook(() =>
+    useSaveDrops({
+      sampleId,
+      session: initialSession(LIQUIDS, 'Ana Analyst'),
+      method: 'circle',
+      onSessionCreated: (id) => created.push(id),
+      onSaved: async () => {
+        reloads += 1;
+      },
+    }),
+  );
+  return { hook, created, reloads: () => reloads };
+}
+
+beforeEach(() => {
+  useWorkspace.setState({
+    photos: [
+      analysed('p1', 'a.png'),
+      analysed('p2', 'b.png'),
+      { ...analysed('p3', 'c.png'), dirty: false },
+    ],
+  });
+});
+
+describe('saving drops', () => {
+  it('starts with water as the probe liquid when the library has it', () => {
+    expect(initialSession(LIQUIDS, 'Ana Analyst').probeLiquidId).toBe('liquid-water');
+  });
+
+  it('asks for a sample before sending anything', async () => {
+    const calls = stubFetch(() => ({ body: {} }));
+    const { hook } = setup('');
+    await act(() => hook.result.current.saveAll(useWorkspace.getState().photos));
+    expect(hook.result.current.message).toEqual({
+      kind: 'error',
+      text: 'Choose the sample these drops were placed on, then save.',
+    });
+    expect(calls).toHaveLength(0);
+  });
+
+  it('creates the session once, saves every unsaved photo and names the ones that failed', async () => {
+    const calls = stubFetch(({ url }) => {
+      if (url === '/api/measurement-sessions')
+        return {
+          status: 201,
+          body: {
+            measurementSession: {
+              id: 's1',
+              organizationId: 'org-kestrel',
+              version: 1,
+              archivedAt: null,
+              createdAt: '2026-03-02T09:00:00.000Z',
+              updatedAt: '2026-03-02T09:00:00.000Z',
+              operatorName: 'Analyst',
+              measuredAt: '2026-03-02T09:00:00.000Z',
+              probeLiquidId: 'liquid-water',
+              temperatureC: null,
+              humidityPct: null,
+              dropVolumeUl: null,
+              scalePxPerMm: null,
+              instrumentNotes: '',
+              createdByUserId: 'user-analyst',
+            },
+          },
+        };
+      if (url === '/api/photos/p1/drop') return { status: 201, body: { revision: 1 } };
+      return {
+        status: 422,
+        body: errorBody(
+          'no_drop_found',
+          'No drop was found. Choose another photo, then save again.',
+        ),
+      };
+    });
+    const { hook, created, reloads } = setup('sample-1');
+    await act(() => hook.result.current.saveAll(useWorkspace.getState().photos));
+    await waitFor(() => expect(hook.result.current.saving).toBe(false));
+    expect(calls.map((c) => c.url)).toEqual([
+      '/api/measurement-sessions',
+      '/api/photos/p1/drop',
+      '/api/photos/p2/drop',
+    ]);
+    expect(calls[1].body).toMatchObject({
+      sampleId: 'sample-1',
+      probeLiquidId: 'liquid-water',
+      sessionId: 's1',
+      method: 'circle',
+    });
+    expect(created).toEqual(['s1']);
+    expect(hook.result.current.message).toEqual({
+      kind: 'error',
+      text: 'Saved 1 of 2. Not saved: b.png: No drop was found. Choose another photo, then save again.',
+    });
+    const [p1, p2] = useWorkspace.getState().photos;
+    expect([p1.savedRevision, p1.dirty]).toEqual([1, false]);
+    expect([p2.savedRevision, p2.dirty]).toEqual([null, true]);
+    expect(reloads()).toBe(1);
+  });
+
+  it('says nothing was lost when the server cannot be reached', async () => {
+    stubFetch(() => 'offline');
+    const { hook } = setup('sample-1');
+    await act(() => hook.result.current.saveOne(useWorkspace.getState().photos[0]));
+    expect(hook.result.current.message?.kind).toBe('error');
+    expect(hook.result.current.message?.text).toMatch(/could not be reached.*nothing was lost/);
+  });
+});
