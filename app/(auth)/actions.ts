@@ -9,6 +9,7 @@ import { createSessionWithAudit } from '@/db/queries/sessions';
 import { getLucia } from '@/lib/auth/lucia';
 import { clientAddress, isSameOrigin } from '@/lib/auth/origin';
 import { hashPassword } from '@/lib/auth/password';
+import { safeRedirectPath } from '@/lib/auth/redirect';
 import { startSession } from '@/lib/auth/session';
 import { checkCredentials } from '@/lib/auth/sign-in';
 import { fieldErrors, signInSchema, signUpSchema } from '@/lib/validation/auth';
@@ -17,11 +18,6 @@ import type { FormState } from '@/components/auth/form-state';
 const BAD_ORIGIN: FormState = {
   message: 'This form did not come from a Beadline page. Reload the page and try again.',
 };
-
-function safeNext(value: FormDataEntryValue | null): string {
-  const next = typeof value === 'string' ? value : '';
-  return next.startsWith('/') && !next.startsWith('//') ? next : '/dashboard';
-}
 
 export async function signIn(_previous: FormState, formData: FormData): Promise<FormState> {
   const requestHeaders = await headers();
@@ -46,7 +42,7 @@ export async function signIn(_previous: FormState, formData: FormData): Promise<
   });
   const cookie = getLucia().createSessionCookie(sessionId);
   (await cookies()).set(cookie.name, cookie.value, cookie.attributes);
-  redirect(safeNext(formData.get('next')));
+  redirect(safeRedirectPath(formData.get('next')));
 }
 
 export async function signUp(_previous: FormState, formData: FormData): Promise<FormState> {
