@@ -1,4 +1,6 @@
 // Creates or re-creates a database on the server in DATABASE_ADMIN_URL (scripts/lib.sh).
+//   create NAME | recreate NAME | relax-durability NAME (a test database only: commits return
+//   before their WAL reaches the disk, which is fine for data that is rebuilt on every run).
 import postgres from 'postgres';
 
 const [command, name] = process.argv.slice(2);
@@ -12,7 +14,10 @@ try {
   if (command === 'recreate' && exists) {
     await sql.unsafe(`drop database "${name}" with (force)`);
   }
-  if (command === 'recreate' || !exists) {
+  if (command === 'relax-durability') {
+    if (!name.endsWith('_test')) throw new Error(`refusing to relax durability of "${name}": not a test database`);
+    await sql.unsafe(`alter database "${name}" set synchronous_commit = off`);
+  } else if (command === 'recreate' || !exists) {
     await sql.unsafe(`create database "${name}"`);
   }
 } finally {

@@ -34,6 +34,8 @@ PG_DATABASE=beadline_test ensure_postgres
 TEST_DB="beadline_test"
 export DATABASE_URL="${DATABASE_URL%/*}/$TEST_DB"
 recreate_database "$TEST_DB"
+# Speed over durability, on the test database only (never the one npm start serves).
+(cd "$ROOT" && node scripts/db-admin.mjs relax-durability "$TEST_DB") || die "could not configure $TEST_DB"
 migrate
 export UPLOAD_FAKE_PORT="${TEST_UPLOAD_FAKE_PORT:-3155}"
 export MAIL_FAKE_SMTP_PORT="${TEST_MAIL_FAKE_SMTP_PORT:-1125}"
