@@ -33,6 +33,7 @@ PG_DATABASE=beadline_test ensure_postgres
 # A test database of its own, rebuilt on every run.
 TEST_DB="beadline_test"
 export DATABASE_URL="${DATABASE_URL%/*}/$TEST_DB"
+export DATABASE_OWNER_URL="${DATABASE_OWNER_URL%/*}/$TEST_DB"
 recreate_database "$TEST_DB"
 # Speed over durability, on the test database only (never the one npm start serves).
 (cd "$ROOT" && node scripts/db-admin.mjs relax-durability "$TEST_DB") || die "could not configure $TEST_DB"
