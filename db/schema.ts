@@ -61,6 +61,8 @@ export const sessions = pgTable(
     activeOrganizationId: text('active_organization_id').references(() => organizations.id, {
       onDelete: 'set null',
     }),
+    /** When the user signed in: a session ends SESSION_ABSOLUTE_LIFETIME later however it is used. */
+    createdAt: createdAt(),
   },
   (t) => [index('sessions_user_idx').on(t.userId)],
 );
@@ -138,6 +140,8 @@ export const signInAttempts = pgTable(
     email: text('email').notNull(),
     ipAddress: text('ip_address').notNull(),
     succeeded: boolean('succeeded').notNull(),
+    /** 'password' (sign-in and signing a review, one budget) or 'sign-up' (lib/auth/throttle.ts). */
+    kind: text('kind').notNull().default('password'),
     createdAt: createdAt(),
   },
   (t) => [

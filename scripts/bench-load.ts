@@ -16,6 +16,7 @@
  */
 import autocannon from 'autocannon';
 import { DEMO_PASSWORD, DEMO_USERS } from '../db/demo';
+import { postSignInForm } from './sign-in-form';
 
 const DEFAULT_PORT = process.env.PORT ?? '3000';
 const baseUrl = new URL(
@@ -37,51 +38,14 @@ if (!(seconds > 0 && seconds <= 300) || !(connections > 0 && connections <= 500)
 
 const origin = baseUrl.origin;
 
-function decodeEntities(text: string): string {
-  return text
-    .replace(/&quot;/g, '"')
-    .replace(/&#x27;|&#39;/g, "'")
-    .replace(/&lt;/g, '<')
-    .replace(/&gt;/g, '>')
-    .replace(/&amp;/g, '&');
-}
-
-/**
- * Signs in through the sign-in page's own form, as a browser without JavaScript would: the
- * server action's hidden fields plus e-mail and password, posted as multipart form data.
- */
 async function signIn(email: string): Promise<string> {
-  const page = await fetch(`${origin}/sign-in`);
-  if (!page.ok) throw new Error(`GET /sign-in answered ${page.status}; is Beadline running at ${origin}?`);
-  const html = await page.text();
-  const form = /<form[^>]*>([\s\S]*?)<\/form>/.exec(html)?.[1];
-  if (!form) throw new Error('The sign-in page has no form.');
-  const body = new FormData();
-  for (const input of form.matchAll(/<input([^>]*)>/g)) {
-    const attributes = input[1]!;
-    if (!/type="hidden"/.test(attributes)) continue;
-    const name = /name="([^"]*)"/.exec(attributes)?.[1];
-    if (!name) continue;
-    body.append(decodeEntities(name), decodeEntities(/value="([^"]*)"/.exec(attributes)?.[1] ?? ''));
-  }
-  body.append('email', email);
-  body.append('password', DEMO_PASSWORD);
-  const answer = await fetch(`${origin}/sign-in`, {
-    method: 'POST',
-    body,
-    headers: { origin },
-    redirect: 'manual',
-  });
-  const cookie = answer.headers
-    .getSetCookie()
-    .map((c) => c.split(';')[0]!)
-    .find((c) => c.startsWith('beadline_session='));
-  if (!cookie) {
+  const answer = await postSignInForm(origin, { email, password: DEMO_PASSWORD });
+  if (!answer.cookie) {
     throw new Error(
       `Signing in as ${email} failed (status ${answer.status}). Is the demo seeded (npm start does it)?`,
     );
   }
-  return cookie;
+  return answer.cookie;
 }
 
 type Target = { name: string; path: string; cookie: string };

@@ -53,7 +53,7 @@ if build_is_stale; then
     { tail -60 "$DATA_DIR/build.log"; die "next build failed; full log in .data/build.log"; }
 fi
 export APP_URL="$E2E_BASE_URL"
-NODE_ENV=production PORT="$TEST_PORT" "$ROOT/node_modules/.bin/next" start -H 127.0.0.1 -p "$TEST_PORT" \
+NODE_ENV=production PORT="$TEST_PORT" "$ROOT/node_modules/.bin/tsx" scripts/serve.ts \
   >"$DATA_DIR/test-server.log" 2>&1 &
 BEADLINE_PIDS+=("$!")
 wait_for_url "$E2E_BASE_URL/api/health" "test-server"
