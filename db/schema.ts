@@ -440,6 +440,30 @@ export const passwordResetTokens = pgTable(
 );
 
 /** Confirms that the user owns the e-mail address they signed up with. */
+/**
+ * A sign-up waiting for its address to be proven: nothing is created until the link mailed to
+ * the address is followed (db/queries/sign-ups.ts), so the sign-up form answers the same whether
+ * or not the address already has an account.
+ */
+export const pendingSignUps = pgTable(
+  'pending_sign_ups',
+  {
+    id: text('id').primaryKey(),
+    email: text('email').notNull(),
+    name: text('name').notNull(),
+    organizationName: text('organization_name').notNull(),
+    passwordHash: text('password_hash').notNull(),
+    tokenHash: text('token_hash').notNull(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('pending_sign_ups_token_hash_unique').on(t.tokenHash),
+    index('pending_sign_ups_email_idx').on(t.email),
+  ],
+);
+
 export const emailVerificationTokens = pgTable(
   'email_verification_tokens',
   {

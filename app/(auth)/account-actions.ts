@@ -6,6 +6,7 @@ import { requestPasswordReset, resetPassword, verifyEmail } from '@/db/queries/a
 import { acceptInvitation } from '@/db/queries/team';
 import { setActiveOrganization } from '@/db/queries/organizations';
 import { HttpError } from '@/lib/api/errors';
+import { runAfterResponse } from '@/lib/auth/after-response';
 import { getAuthContext } from '@/lib/auth/context';
 import { isSameOrigin } from '@/lib/auth/origin';
 import { hashPassword } from '@/lib/auth/password';
@@ -38,7 +39,8 @@ export async function requestPasswordResetAction(
   const values = { email: String(formData.get('email') ?? '') };
   const parsed = forgotPasswordSchema.safeParse({ email: formData.get('email') });
   if (!parsed.success) return { fields: fieldErrors(parsed.error), values };
-  await requestPasswordReset(parsed.data.email);
+  // After the answer, so its timing is the same whether or not the address has an account.
+  await runAfterResponse('password-reset', () => requestPasswordReset(parsed.data.email));
   return {
     values,
     notice: `If ${parsed.data.email} has a Beadline account, a mail with a link to set a new password is on its way. The link works once, for one hour.`,

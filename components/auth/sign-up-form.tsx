@@ -3,17 +3,16 @@
 import { useActionState } from 'react';
 import { signUp } from '@/app/(auth)/actions';
 import { Field } from './field';
+import { FormMessages } from './form-messages';
 import { initialFormState } from './form-state';
 
 export function SignUpForm() {
   const [state, formAction, pending] = useActionState(signUp, initialFormState);
+  // Sent: the same words whether or not the address already had an account.
+  if (state.notice) return <FormMessages state={state} />;
   return (
     <form action={formAction} className="space-y-4" noValidate>
-      {state.message ? (
-        <p role="alert" className="rounded-md border border-coral-100 bg-coral-50 px-3 py-2 text-sm text-coral-900">
-          {state.message}
-        </p>
-      ) : null}
+      <FormMessages state={state} />
       <Field name="name" label="Your name" autoComplete="name" defaultValue={state.values?.name} error={state.fields?.name} />
       <Field name="email" label="Work e-mail" type="email" autoComplete="email" defaultValue={state.values?.email} error={state.fields?.email} />
       <Field

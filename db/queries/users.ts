@@ -19,14 +19,21 @@ export class EmailTakenError extends Error {
 /**
  * Sign-up: the user, a new organization and the user's admin membership, in one transaction.
  */
-export async function createUserWithOrganization(input: {
-  email: string;
-  name: string;
-  passwordHash: string;
-  organizationName: string;
-}): Promise<{ userId: string; organizationId: string }> {
-  const db = getDb();
-  return db.transaction(async (tx) => {
+export async function createUserWithOrganization(
+  input: {
+    email: string;
+    name: string;
+    passwordHash: string;
+    organizationName: string;
+    /** When the address was proven (a finished sign-up link). */
+    emailVerifiedAt?: Date;
+  },
+  /** Run on this transaction instead of a new one. */
+  onTransaction?: Parameters<Parameters<ReturnType<typeof getDb>['transaction']>[0]>[0],
+): Promise<{ userId: string; organizationId: string }> {
+  const run = <T,>(body: (tx: NonNullable<typeof onTransaction>) => Promise<T>) =>
+    onTransaction ? body(onTransaction) : getDb().transaction(body);
+  return run(async (tx) => {
     const existing = await tx.select({ id: users.id }).from(users).where(eq(users.email, input.email));
     if (existing.length > 0) throw new EmailTakenError();
     const userId = newId();
@@ -36,6 +43,7 @@ export async function createUserWithOrganization(input: {
       email: input.email,
       name: input.name,
       passwordHash: input.passwordHash,
+      emailVerifiedAt: input.emailVerifiedAt ?? null,
     });
     await tx.insert(organizations).values({
       id: organizationId,

@@ -1,2 +1,0 @@
-ALTER TABLE "sessions" ADD COLUMN "created_at" timestamp with time zone DEFAULT now() NOT NULL;--> statement-breakpoint
-ALTER TABLE "sign_in_attempts" ADD COLUMN "kind" text DEFAULT 'password' NOT NULL;
