@@ -27,25 +27,37 @@ export async function setWatching(input: {
       and(eq(coatings.id, input.coatingId), eq(coatings.organizationId, input.organizationId)),
     );
   if (!coating) throw notFound('That coating');
-  if (input.watching) {
-    await db
-      .insert(coatingWatchers)
-      .values({
-        coatingId: input.coatingId,
-        userId: input.userId,
-        organizationId: input.organizationId,
-      })
-      .onConflictDoNothing();
-  } else {
-    await db
-      .delete(coatingWatchers)
-      .where(
-        and(
-          eq(coatingWatchers.coatingId, input.coatingId),
-          eq(coatingWatchers.userId, input.userId),
-        ),
-      );
-  }
+  // A change of who is told about a coating is audited, in the same transaction; asking for
+  // what is already so changes nothing and writes nothing.
+  await db.transaction(async (tx) => {
+    const changed = input.watching
+      ? await tx
+          .insert(coatingWatchers)
+          .values({
+            coatingId: input.coatingId,
+            userId: input.userId,
+            organizationId: input.organizationId,
+          })
+          .onConflictDoNothing()
+          .returning({ userId: coatingWatchers.userId })
+      : await tx
+          .delete(coatingWatchers)
+          .where(
+            and(
+              eq(coatingWatchers.coatingId, input.coatingId),
+              eq(coatingWatchers.userId, input.userId),
+            ),
+          )
+          .returning({ userId: coatingWatchers.userId });
+    if (changed.length === 0) return;
+    await recordAudit(tx, {
+      actorUserId: input.userId,
+      organizationId: input.organizationId,
+      action: input.watching ? 'coating.watch' : 'coating.unwatch',
+      entityType: 'coating',
+      entityId: input.coatingId,
+    });
+  });
   return { watching: input.watching };
 }
 

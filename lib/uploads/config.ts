@@ -92,6 +92,31 @@ function uploadServiceAddresses(
   };
 }
 
+/**
+ * Where the browser sends files and reads them from, for the pages' Content-Security-Policy:
+ * the local fake's origin (both of its names), or the hosted service's ingest and file hosts.
+ * Empty when no upload service is configured.
+ */
+export function uploadServiceOrigins(env: EnvironmentSource = process.env): string[] {
+  let config: ReturnType<typeof uploadServiceAddresses>;
+  try {
+    config = uploadServiceAddresses(env);
+  } catch {
+    return [];
+  }
+  if (config.mode === 'local-fake') {
+    const fake = new URL(config.apiUrl!);
+    return [...new Set([fake.origin, `${fake.protocol}//${config.ufsHost}`])];
+  }
+  const custom = env.UPLOADTHING_UFS_HOST?.trim();
+  return [
+    'https://*.ingest.uploadthing.com',
+    'https://*.ufs.sh',
+    'https://utfs.io',
+    ...(custom ? [`https://${custom}`] : []),
+  ];
+}
+
 /** Hosts of the hosted service's file URLs (`{appId}.ufs.sh`, and the older `utfs.io`). */
 const HOSTED_FILE_HOST_SUFFIXES = ['.ufs.sh', '.utfs.io'];
 const HOSTED_FILE_HOSTS = ['utfs.io', 'ufs.sh'];
