@@ -52,34 +52,39 @@ function remaining(now: Date, from: Date | null, seconds: number): number {
   return Math.max(0, Math.ceil((from.getTime() + seconds * 1000 - now.getTime()) / 1000));
 }
 
-function doubling(failures: number, free: number, max: number): number {
-  return Math.min(max, 2 ** (failures - free));
+/**
+ * Seconds still to wait after `failures` (the first `free` cost nothing, then 1 s doubling up to
+ * `max`), counted from the last failure; 0 when none.
+ */
+function doublingWait(now: Date, failures: number, last: Date | null, free: number, max: number): number {
+  if (failures < free) return 0;
+  return remaining(now, last, Math.min(max, 2 ** (failures - free)));
 }
 
 export function passwordAttemptDecision(now: Date, history: PasswordAttemptHistory): ThrottleDecision {
   const limits = SIGN_IN_LIMITS;
-  if (history.pairFailures >= limits.pairFreeFailures) {
-    const wait = remaining(
-      now,
-      history.pairLastFailureAt,
-      doubling(history.pairFailures, limits.pairFreeFailures, limits.pairMaxDelaySeconds),
-    );
-    if (wait > 0) return { allowed: false, retryAfterSeconds: wait, reason: 'pair' };
-  }
-  if (history.knownAddress) return { allowed: true };
-  if (history.addressFailures >= limits.perAddress) {
-    const wait = remaining(now, history.addressOldestFailureAt, limits.windowMinutes * 60);
-    if (wait > 0) return { allowed: false, retryAfterSeconds: wait, reason: 'address' };
-  }
-  if (history.accountFailures >= limits.accountFreeFailures) {
-    const wait = remaining(
-      now,
-      history.accountLastFailureAt,
-      doubling(history.accountFailures, limits.accountFreeFailures, limits.accountMaxDelaySeconds),
-    );
-    if (wait > 0) return { allowed: false, retryAfterSeconds: wait, reason: 'account' };
-  }
-  return { allowed: true };
+  const refuse = (wait: number, reason: 'pair' | 'address' | 'account'): ThrottleDecision | null =>
+    wait > 0 ? { allowed: false, retryAfterSeconds: wait, reason } : null;
+  const pair = doublingWait(
+    now,
+    history.pairFailures,
+    history.pairLastFailureAt,
+    limits.pairFreeFailures,
+    limits.pairMaxDelaySeconds,
+  );
+  if (pair > 0 || history.knownAddress) return refuse(pair, 'pair') ?? { allowed: true };
+  const address =
+    history.addressFailures >= limits.perAddress
+      ? remaining(now, history.addressOldestFailureAt, limits.windowMinutes * 60)
+      : 0;
+  const account = doublingWait(
+    now,
+    history.accountFailures,
+    history.accountLastFailureAt,
+    limits.accountFreeFailures,
+    limits.accountMaxDelaySeconds,
+  );
+  return refuse(address, 'address') ?? refuse(account, 'account') ?? { allowed: true };
 }
 
 export function signUpDecision(

@@ -38,13 +38,18 @@ describe('sessions', () => {
   });
 });
 
+/** A lab, its admin and one coating, with the route params for that coating. */
+async function labWithCoating() {
+  const lab = await createOrganization();
+  const admin = await createMember(lab.id, 'admin');
+  const coatingId = newId();
+  await getDb().insert(coatings).values({ id: coatingId, organizationId: lab.id, code: 'WA-1', name: 'Watched coat' });
+  return { lab, admin, coatingId, params: { params: Promise.resolve({ id: coatingId }) } };
+}
+
 describe('watching a coating', () => {
   it('is audited when it changes, and only then', async () => {
-    const lab = await createOrganization();
-    const admin = await createMember(lab.id, 'admin');
-    const coatingId = newId();
-    await getDb().insert(coatings).values({ id: coatingId, organizationId: lab.id, code: 'WA-1', name: 'Watched coat' });
-    const params = { params: Promise.resolve({ id: coatingId }) };
+    const { lab, admin, coatingId, params } = await labWithCoating();
     const call = (handler: typeof watch, method: string) =>
       handler(apiRequest(`/api/coatings/${coatingId}/watch`, { method, sessionId: admin.sessionId }), params);
     expect((await call(watch, 'PUT')).status).toBe(200);
@@ -64,11 +69,7 @@ describe('watching a coating', () => {
 
 describe('the Origin check of mutations', () => {
   it('compares scheme, host and port with APP_URL', async () => {
-    const lab = await createOrganization();
-    const admin = await createMember(lab.id, 'admin');
-    const coatingId = newId();
-    await getDb().insert(coatings).values({ id: coatingId, organizationId: lab.id, code: 'OR-1', name: 'Origin coat' });
-    const params = { params: Promise.resolve({ id: coatingId }) };
+    const { admin, coatingId, params } = await labWithCoating();
     const app = new URL(APP_ORIGIN);
     const put = (origin: string) =>
       watch(apiRequest(`/api/coatings/${coatingId}/watch`, { method: 'PUT', sessionId: admin.sessionId, origin }), params);
