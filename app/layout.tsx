@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from 'next';
 import localFont from 'next/font/local';
+import { connection } from 'next/server';
 import './globals.css';
 
 const plexSans = localFont({
@@ -29,7 +30,9 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { themeColor: '#116467' };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page is rendered per request, so its scripts carry that request's CSP nonce (proxy.ts).
+  await connection();
   return (
     <html lang="en" className={`${plexSans.variable} ${plexMono.variable}`}>
       <body className="min-h-screen font-sans">{children}</body>

@@ -69,6 +69,8 @@ export const sessions = pgTable(
     activeOrganizationId: text('active_organization_id').references(() => organizations.id, {
       onDelete: 'set null',
     }),
+    /** When the user signed in: a session ends SESSION_ABSOLUTE_LIFETIME later however it is used. */
+    createdAt: createdAt(),
   },
   (t) => [index('sessions_user_idx').on(t.userId)],
 );
@@ -146,6 +148,8 @@ export const signInAttempts = pgTable(
     email: text('email').notNull(),
     ipAddress: text('ip_address').notNull(),
     succeeded: boolean('succeeded').notNull(),
+    /** 'password' (sign-in and signing a review, one budget) or 'sign-up' (lib/auth/throttle.ts). */
+    kind: text('kind').notNull().default('password'),
     createdAt: createdAt(),
   },
   (t) => [
@@ -462,6 +466,30 @@ export const emailVerificationTokens = tokenTable('email_verification_tokens', {
   /** The address the link was sent to; verifying only counts while the user still has it. */
   email: text('email').notNull(),
 });
+
+/**
+ * A sign-up waiting for its address to be proven: nothing is created until the link mailed to
+ * the address is followed (server/account/sign-up.ts), so the sign-up form answers the same
+ * whether or not the address already has an account.
+ */
+export const pendingSignUps = pgTable(
+  'pending_sign_ups',
+  {
+    id: text('id').primaryKey(),
+    email: text('email').notNull(),
+    name: text('name').notNull(),
+    organizationName: text('organization_name').notNull(),
+    passwordHash: text('password_hash').notNull(),
+    tokenHash: text('token_hash').notNull(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('pending_sign_ups_token_hash_unique').on(t.tokenHash),
+    index('pending_sign_ups_email_idx').on(t.email),
+  ],
+);
 
 // ---------------------------------------------------------------------------------------------
 // Review and sign-off: an analyst submits a sample's or a batch's results; a reviewer approves

@@ -12,3 +12,22 @@ export function databaseUrl(): string {
   }
   return url;
 }
+
+/**
+ * The owner of the tables, for migrations and backups: DATABASE_OWNER_URL, else DATABASE_URL
+ * (one role for everything, as before there were two). scripts/lib.sh sets both for the private
+ * cluster.
+ */
+export function ownerDatabaseUrl(): string {
+  return process.env.DATABASE_OWNER_URL || databaseUrl();
+}
+
+/**
+ * The role the web app connects as when it is not the owner (DATABASE_URL's user), else null.
+ * Migrations grant it exactly what the app needs.
+ */
+export function appRoleName(): string | null {
+  const app = decodeURIComponent(new URL(databaseUrl()).username);
+  const owner = decodeURIComponent(new URL(ownerDatabaseUrl()).username);
+  return app && app !== owner ? app : null;
+}

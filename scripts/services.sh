@@ -6,6 +6,8 @@ start_local_services() {
   if [ -z "${UPLOADTHING_TOKEN:-}" ] && [ -f "$ROOT/scripts/services/upload-fake.ts" ]; then
     export UPLOAD_FAKE_PORT="${UPLOAD_FAKE_PORT:-3055}"
     export UPLOAD_FAKE_URL="http://127.0.0.1:$UPLOAD_FAKE_PORT"
+    # The shared secret of the fake and the app, made once per installation (never in the source).
+    export UPLOAD_FAKE_KEY_FILE="${UPLOAD_FAKE_KEY_FILE:-$DATA_DIR/upload-fake.key}"
     # Run tsx directly (not through npx) so stopping it stops the server it runs.
     start_service upload-fake "$ROOT/node_modules/.bin/tsx" "$ROOT/scripts/services/upload-fake.ts"
     wait_for_url "$UPLOAD_FAKE_URL/health" upload-fake

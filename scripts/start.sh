@@ -30,9 +30,9 @@ if [ "$MODE" = "production" ]; then
     NODE_ENV=production npx --no-install next build >"$DATA_DIR/build.log" 2>&1 ||
       { tail -40 "$DATA_DIR/build.log"; die "next build failed; full log in .data/build.log"; }
   fi
-  NODE_ENV=production "$ROOT/node_modules/.bin/next" start -H 127.0.0.1 -p "$PORT" &
+  NODE_ENV=production "$ROOT/node_modules/.bin/tsx" scripts/serve.ts &
 else
-  "$ROOT/node_modules/.bin/next" dev -H 127.0.0.1 -p "$PORT" &
+  "$ROOT/node_modules/.bin/tsx" scripts/serve.ts --dev &
 fi
 BEADLINE_PIDS+=("$!")
 wait_for_url "$APP_URL/api/health" "web"

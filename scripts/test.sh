@@ -33,7 +33,10 @@ PG_DATABASE=beadline_test ensure_postgres
 # A test database of its own, rebuilt on every run.
 TEST_DB="beadline_test"
 export DATABASE_URL="${DATABASE_URL%/*}/$TEST_DB"
+export DATABASE_OWNER_URL="${DATABASE_OWNER_URL%/*}/$TEST_DB"
 recreate_database "$TEST_DB"
+# Speed over durability, on the test database only (never the one npm start serves).
+(cd "$ROOT" && node scripts/db-admin.mjs relax-durability "$TEST_DB") || die "could not configure $TEST_DB"
 migrate
 export UPLOAD_FAKE_PORT="${TEST_UPLOAD_FAKE_PORT:-3155}"
 export MAIL_FAKE_SMTP_PORT="${TEST_MAIL_FAKE_SMTP_PORT:-1125}"
@@ -50,7 +53,7 @@ if build_is_stale; then
     { tail -60 "$DATA_DIR/build.log"; die "next build failed; full log in .data/build.log"; }
 fi
 export APP_URL="$E2E_BASE_URL"
-NODE_ENV=production PORT="$TEST_PORT" "$ROOT/node_modules/.bin/next" start -H 127.0.0.1 -p "$TEST_PORT" \
+NODE_ENV=production PORT="$TEST_PORT" "$ROOT/node_modules/.bin/tsx" scripts/serve.ts \
   >"$DATA_DIR/test-server.log" 2>&1 &
 BEADLINE_PIDS+=("$!")
 wait_for_url "$E2E_BASE_URL/api/health" "test-server"

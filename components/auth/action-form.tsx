@@ -19,22 +19,26 @@ export function FormMessages({ state }: { state: FormState }) {
 /**
  * A form posted to a server action: its answer's messages on top, the fields (given the
  * answer, to show field errors and keep what was typed), hidden values and one full-width
- * button that says when it is busy.
+ * button that says when it is busy. With `endsWithNotice`, a notice is the last word: the form
+ * gives way to it.
  */
 export function ActionForm({
   action,
   submit,
   busy,
   hidden = {},
+  endsWithNotice = false,
   children,
 }: {
   action: Action;
   submit: string;
   busy: string;
   hidden?: Record<string, string>;
+  endsWithNotice?: boolean;
   children?: (state: FormState) => ReactNode;
 }) {
   const [state, formAction, pending] = useActionState(action, initialFormState);
+  if (endsWithNotice && state.notice) return <FormMessages state={state} />;
   return (
     <form action={formAction} className="space-y-4" noValidate>
       <FormMessages state={state} />

@@ -6,7 +6,8 @@ import { ActionForm, EmailField, NameField, PasswordField } from './action-form'
 
 export function SignUpForm() {
   return (
-    <ActionForm action={signUp} submit="Create account" busy="Creating your lab…">
+    // Sent: the same words whether or not the address already had an account.
+    <ActionForm action={signUp} submit="Create account" busy="Sending…" endsWithNotice>
       {(state) => (
         <>
           <NameField state={state} />

@@ -6,20 +6,31 @@ import { database, type Executor } from './transaction';
 /** A batch's overall verdict, as kept to tell when it turns to fail. */
 export type BatchOutcome = (typeof batchVerdicts.$inferSelect)['outcome'];
 
-export async function addWatcher(input: {
-  organizationId: string;
-  userId: string;
-  coatingId: string;
-}): Promise<void> {
-  await database().insert(coatingWatchers).values(input).onConflictDoNothing();
+/** Adds the watcher; true when it was not watching before. */
+export async function addWatcher(
+  db: Executor,
+  input: { organizationId: string; userId: string; coatingId: string },
+): Promise<boolean> {
+  const added = await db
+    .insert(coatingWatchers)
+    .values(input)
+    .onConflictDoNothing()
+    .returning({ userId: coatingWatchers.userId });
+  return added.length > 0;
 }
 
-export async function removeWatcher(input: { userId: string; coatingId: string }): Promise<void> {
-  await database()
+/** Removes the watcher; true when it was watching. */
+export async function removeWatcher(
+  db: Executor,
+  input: { userId: string; coatingId: string },
+): Promise<boolean> {
+  const removed = await db
     .delete(coatingWatchers)
     .where(
       and(eq(coatingWatchers.coatingId, input.coatingId), eq(coatingWatchers.userId, input.userId)),
-    );
+    )
+    .returning({ userId: coatingWatchers.userId });
+  return removed.length > 0;
 }
 
 export async function isWatching(userId: string, coatingId: string): Promise<boolean> {

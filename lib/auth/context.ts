@@ -2,7 +2,7 @@ import 'server-only';
 import { cookies } from 'next/headers';
 import { cache } from 'react';
 import { listMembershipsOfUser, type MembershipSummary } from '@/db/queries/organizations';
-import { getLucia, SESSION_COOKIE_NAME } from './lucia';
+import { getLucia, pastAbsoluteLifetime, SESSION_COOKIE_NAME } from './lucia';
 import type { Role } from './permissions';
 
 export type AuthContext = {
@@ -23,7 +23,14 @@ export const getAuthContext = cache(async (): Promise<AuthContext | null> => {
   const sessionId = cookieStore.get(SESSION_COOKIE_NAME)?.value ?? null;
   if (!sessionId) return null;
   const lucia = getLucia();
-  const { session, user } = await lucia.validateSession(sessionId);
+  const validated = await lucia.validateSession(sessionId);
+  let { session } = validated;
+  const { user } = validated;
+  // Sliding expiry keeps a used session alive; the absolute limit ends it all the same.
+  if (session && pastAbsoluteLifetime(session.createdAt)) {
+    await lucia.invalidateSession(session.id);
+    session = null;
+  }
   try {
     if (session?.fresh) {
       const cookie = lucia.createSessionCookie(session.id);

@@ -6,8 +6,13 @@ import { sessions, users } from '@/db/schema';
 import { appUrl } from '@/lib/config';
 
 export const SESSION_COOKIE_NAME = 'beadline_session';
-/** How long a session lives without use; db/queries/sessions.ts creates sessions with it too. */
-export const SESSION_LIFETIME = new TimeSpan(30, 'd');
+/**
+ * How long a session lives without use (each use slides it on); db/queries/sessions.ts creates
+ * sessions with it too.
+ */
+export const SESSION_LIFETIME = new TimeSpan(7, 'd');
+/** However much it is used, a session ends this long after sign-in (lib/auth/context.ts). */
+export const SESSION_ABSOLUTE_LIFETIME = new TimeSpan(30, 'd');
 
 function createLucia() {
   const adapter = new DrizzlePostgreSQLAdapter(getDb(), sessions, users);
@@ -23,12 +28,19 @@ function createLucia() {
     },
     getSessionAttributes: (attributes) => ({
       activeOrganizationId: attributes.activeOrganizationId,
+      // The adapter passes the row's columns; a date column may arrive as text.
+      createdAt: attributes.createdAt ? new Date(attributes.createdAt) : null,
     }),
     getUserAttributes: (attributes) => ({ email: attributes.email, name: attributes.name }),
   });
 }
 
 const globalForLucia = globalThis as unknown as { beadlineLucia?: ReturnType<typeof createLucia> };
+
+/** True when a session signed in at `createdAt` has outlived SESSION_ABSOLUTE_LIFETIME. */
+export function pastAbsoluteLifetime(createdAt: Date | null, now = Date.now()): boolean {
+  return !!createdAt && createdAt.getTime() + SESSION_ABSOLUTE_LIFETIME.milliseconds() <= now;
+}
 
 export function getLucia() {
   globalForLucia.beadlineLucia ??= createLucia();
@@ -38,7 +50,7 @@ export function getLucia() {
 declare module 'lucia' {
   interface Register {
     Lucia: ReturnType<typeof createLucia>;
-    DatabaseSessionAttributes: { activeOrganizationId: string | null };
+    DatabaseSessionAttributes: { activeOrganizationId: string | null; createdAt?: Date | string };
     DatabaseUserAttributes: { email: string; name: string };
   }
 }

@@ -14,3 +14,4 @@ export function newToken(): { token: string; tokenHash: string } {
 export const INVITATION_LIFETIME_MS = 7 * 24 * 60 * 60 * 1000;
 export const PASSWORD_RESET_LIFETIME_MS = 60 * 60 * 1000;
 export const EMAIL_VERIFICATION_LIFETIME_MS = 7 * 24 * 60 * 60 * 1000;
+export const SIGN_UP_LIFETIME_MS = 24 * 60 * 60 * 1000;

@@ -128,3 +128,45 @@ export function noticeMail(input: {
     html: layout({ paragraphs: input.paragraphs, link: input.link, footer: input.footer }),
   };
 }
+
+export function signUpLinkMail(input: {
+  to: string;
+  name: string;
+  organizationName: string;
+  link: string;
+}): MailMessage {
+  const intro = `Hello ${input.name}, follow the link to finish creating your Beadline account and the lab ${input.organizationName}, with you as its admin.`;
+  const expiry = 'The link works once and for 24 hours.';
+  const footer = 'If you did not sign up for Beadline, ignore this mail; nothing is created without the link.';
+  return {
+    to: input.to,
+    subject: 'Finish creating your Beadline account',
+    text: text([intro, `Finish creating your account: ${input.link}`, expiry, footer]),
+    html: layout({
+      paragraphs: [intro, expiry],
+      link: { href: input.link, label: 'Finish creating my account' },
+      footer,
+    }),
+  };
+}
+
+export function signUpExistingAccountMail(input: {
+  to: string;
+  name: string;
+  signInLink: string;
+  resetLink: string;
+}): MailMessage {
+  const intro = `Hello ${input.name}, someone asked to create a Beadline account for ${input.to}. This address already has one, so nothing was created.`;
+  const reset = `If that was you, sign in with your password. Forgot it? Set a new one: ${input.resetLink}`;
+  const footer = 'If it was not you, ignore this mail; your account stays as it is.';
+  return {
+    to: input.to,
+    subject: 'You already have a Beadline account',
+    text: text([intro, `Sign in: ${input.signInLink}`, reset, footer]),
+    html: layout({
+      paragraphs: [intro, reset],
+      link: { href: input.signInLink, label: 'Sign in' },
+      footer,
+    }),
+  };
+}

@@ -62,6 +62,15 @@ function parseFakeUrl(raw: string): URL {
  * instead of sending photos somewhere unexpected.
  */
 export function uploadServiceConfig(env: EnvironmentSource = process.env): UploadServiceConfig {
+  const addresses = uploadServiceAddresses(env);
+  if (addresses.mode === 'hosted') return addresses;
+  return { ...addresses, token: mintUploadToken(uploadFakeCredentials(env)) };
+}
+
+/** uploadServiceConfig without the local fake's token (so without reading its key). */
+function uploadServiceAddresses(
+  env: EnvironmentSource,
+): { mode: 'hosted'; token: string } | (Omit<UploadServiceConfig, 'token'> & { mode: 'local-fake' }) {
   const hostedToken = env.UPLOADTHING_TOKEN?.trim();
   if (hostedToken) return { mode: 'hosted', token: hostedToken };
 
@@ -76,12 +85,70 @@ export function uploadServiceConfig(env: EnvironmentSource = process.env): Uploa
   const origin = fakeUrl.origin;
   return {
     mode: 'local-fake',
-    token: mintUploadToken(uploadFakeCredentials(env)),
     apiUrl: origin,
     ingestUrl: origin,
     ufsHost: fakeUfsHost(fakeUrl),
     ufsAppIdLocation: 'path',
   };
+}
+
+/**
+ * Where the browser sends files and reads them from, for the pages' Content-Security-Policy:
+ * the local fake's origin (both of its names), or the hosted service's ingest and file hosts.
+ * Empty when no upload service is configured.
+ */
+export function uploadServiceOrigins(env: EnvironmentSource = process.env): string[] {
+  let config: ReturnType<typeof uploadServiceAddresses>;
+  try {
+    config = uploadServiceAddresses(env);
+  } catch {
+    return [];
+  }
+  if (config.mode === 'local-fake') {
+    const fake = new URL(config.apiUrl!);
+    return [...new Set([fake.origin, `${fake.protocol}//${config.ufsHost}`])];
+  }
+  const custom = env.UPLOADTHING_UFS_HOST?.trim();
+  return [
+    'https://*.ingest.uploadthing.com',
+    'https://*.ufs.sh',
+    'https://utfs.io',
+    ...(custom ? [`https://${custom}`] : []),
+  ];
+}
+
+/** Hosts of the hosted service's file URLs (`{appId}.ufs.sh`, and the older `utfs.io`). */
+const HOSTED_FILE_HOST_SUFFIXES = ['.ufs.sh', '.utfs.io'];
+const HOSTED_FILE_HOSTS = ['utfs.io', 'ufs.sh'];
+
+/**
+ * True when `url` names a file on the configured upload service: in local-fake mode the fake's
+ * own origin (or the `localhost:PORT` name the SDK gives it), in hosted mode an https URL on the
+ * service's file hosts or UPLOADTHING_UFS_HOST. The server downloads stored files from nowhere
+ * else, whatever a callback or a database row says.
+ */
+export function isStoredFileUrl(url: string, env: EnvironmentSource = process.env): boolean {
+  let parsed: URL;
+  try {
+    parsed = new URL(url);
+  } catch {
+    return false;
+  }
+  if (parsed.username || parsed.password) return false;
+  const config = uploadServiceAddresses(env);
+  if (config.mode === 'local-fake') {
+    const fake = new URL(config.apiUrl!);
+    const origins = new Set([fake.origin, `${fake.protocol}//${config.ufsHost}`]);
+    return origins.has(parsed.origin);
+  }
+  if (parsed.protocol !== 'https:') return false;
+  const host = parsed.hostname.toLowerCase();
+  const customHost = env.UPLOADTHING_UFS_HOST?.trim().toLowerCase();
+  return (
+    HOSTED_FILE_HOSTS.includes(host) ||
+    HOSTED_FILE_HOST_SUFFIXES.some((suffix) => host.endsWith(suffix)) ||
+    (!!customHost && (parsed.host === customHost || host.endsWith(`.${customHost}`)))
+  );
 }
 
 /**

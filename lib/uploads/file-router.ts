@@ -4,7 +4,8 @@ import { createUploadthing, type FileRouter } from 'uploadthing/next';
 import { UTApi, UTFile, UploadThingError } from 'uploadthing/server';
 import { z } from 'zod';
 
-import { utapiOptions } from './config';
+import { isStoredFileUrl, utapiOptions } from './config';
+import type { EnvironmentSource } from './local-service';
 import {
   ImageRefusedError,
   MAX_IMAGE_BYTES,
@@ -152,10 +153,45 @@ function defaultReport(message: string, details: Record<string, unknown>) {
   console.warn(`[uploads] ${message}`, details);
 }
 
-/** fetch() of a stored file, refusing bodies beyond the limit before buffering them. */
-export async function fetchStoredFile(url: string, maxBytes = MAX_IMAGE_BYTES): Promise<Buffer> {
-  // no-store: Next's patched fetch must never serve a photo from its data cache.
-  const response = await fetch(url, { cache: 'no-store' });
+export class ForeignFileUrlError extends Error {
+  constructor(url: string) {
+    super(`Refused to download ${safeOrigin(url)}: it is not on the configured upload service.`);
+    this.name = 'ForeignFileUrlError';
+  }
+}
+
+function safeOrigin(url: string): string {
+  try {
+    return new URL(url).origin;
+  } catch {
+    return 'a malformed URL';
+  }
+}
+
+const MAX_REDIRECTS = 3;
+
+/**
+ * fetch() of a stored file on the configured upload service (isStoredFileUrl: a URL anywhere
+ * else, a redirect included, is refused before any request), refusing bodies beyond the limit
+ * before buffering them.
+ */
+export async function fetchStoredFile(
+  url: string,
+  options: { maxBytes?: number; env?: EnvironmentSource } = {},
+): Promise<Buffer> {
+  const maxBytes = options.maxBytes ?? MAX_IMAGE_BYTES;
+  let current = url;
+  let response: Response;
+  for (let hop = 0; ; hop++) {
+    if (!isStoredFileUrl(current, options.env)) throw new ForeignFileUrlError(current);
+    // no-store: Next's patched fetch must never serve a photo from its data cache.
+    response = await fetch(current, { cache: 'no-store', redirect: 'manual' });
+    const location = response.headers.get('location');
+    if (response.status < 300 || response.status >= 400 || !location) break;
+    await response.body?.cancel();
+    if (hop >= MAX_REDIRECTS) throw new Error('Fetching the stored file was redirected too often');
+    current = new URL(location, current).toString();
+  }
   if (!response.ok || !response.body) {
     throw new Error(`Fetching the stored file failed with status ${response.status}`);
   }

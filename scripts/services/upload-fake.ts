@@ -21,7 +21,7 @@
  * record beside them.
  *
  * Run: `npx tsx scripts/services/upload-fake.ts` (env UPLOAD_FAKE_PORT, UPLOAD_FAKE_DATA_DIR,
- * UPLOAD_FAKE_API_KEY, UPLOAD_FAKE_APP_ID); `--print-token` / `--print-env` print what the app
+ * UPLOAD_FAKE_KEY_FILE or UPLOAD_FAKE_API_KEY, UPLOAD_FAKE_APP_ID); `--print-token` / `--print-env` print what the app
  * needs and exit. Tests use startUploadFake().
  */
 import { createHash, createHmac, timingSafeEqual } from 'node:crypto';

@@ -12,6 +12,7 @@ import { recordAudit } from '@/db/queries/audit';
 import { newId } from '@/db/queries/ids';
 import { inTransaction } from '@/db/queries/transaction';
 import { findUserByEmail, updateUser } from '@/db/queries/users';
+import { runAfterResponse } from '@/lib/auth/after-response';
 import { hashPassword } from '@/lib/auth/password';
 import { hashToken, newToken, PASSWORD_RESET_LIFETIME_MS } from '@/lib/auth/tokens';
 import { appUrl } from '@/lib/config';
@@ -24,10 +25,14 @@ const RESET_REQUESTS = { windowMs: 15 * 60_000, max: 3 };
 
 /**
  * "Forgot password?": queues a reset mail when `email` has an account, with its token, in one
- * transaction. Says nothing either way, so the answer cannot tell whether an address has an
- * account.
+ * transaction. Says nothing either way, and does the work after the answer is sent, so neither
+ * the answer nor its timing can tell whether an address has an account.
  */
 export async function requestPasswordReset(email: string): Promise<void> {
+  await runAfterResponse('password-reset', () => mailPasswordReset(email));
+}
+
+async function mailPasswordReset(email: string): Promise<void> {
   const user = await findUserByEmail(email);
   if (!user) return;
   await inTransaction(async (tx) => {

@@ -1,7 +1,8 @@
 import 'server-only';
 import { addWatcher, isWatching as findWatching, removeWatcher } from '@/db/queries/alerts';
 import { findRecord, ownedBy } from '@/db/queries/records';
-import { database } from '@/db/queries/transaction';
+import { recordAudit } from '@/db/queries/audit';
+import { database, inTransaction } from '@/db/queries/transaction';
 import { coatings } from '@/db/schema';
 import { notFound } from '@/lib/app-error';
 import type { Actor } from '../actor';
@@ -14,7 +15,10 @@ export async function isWatching(
   return { watching: await findWatching(userId, coatingId) };
 }
 
-/** Starts or stops watching a coating of the organization. */
+/**
+ * Starts or stops watching a coating of the organization. A change of who is told about a
+ * coating is audited in the same transaction; asking for what is already so writes nothing.
+ */
 export async function setWatching(
   actor: Actor,
   coatingId: string,
@@ -27,7 +31,17 @@ export async function setWatching(
     coatingId,
   );
   if (!coating) throw notFound('That coating');
-  if (watching) await addWatcher({ ...actor, coatingId });
-  else await removeWatcher({ userId: actor.userId, coatingId });
+  await inTransaction(async (tx) => {
+    const watcher = { organizationId: actor.organizationId, userId: actor.userId, coatingId };
+    const changed = watching ? await addWatcher(tx, watcher) : await removeWatcher(tx, watcher);
+    if (!changed) return;
+    await recordAudit(tx, {
+      actorUserId: actor.userId,
+      organizationId: actor.organizationId,
+      action: watching ? 'coating.watch' : 'coating.unwatch',
+      entityType: 'coating',
+      entityId: coatingId,
+    });
+  });
   return { watching };
 }

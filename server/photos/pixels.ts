@@ -3,6 +3,7 @@ import { getPhotoSource, getPhotoThumbnail } from '@/db/queries/photos';
 import { decodeImageBytes } from '@/lib/analysis/node/decode';
 import type { GrayImage } from '@/lib/analysis/types';
 import { notFound } from '@/lib/app-error';
+import { fetchStoredFile } from '@/lib/uploads/file-router';
 
 /** The bytes a browser can decode: the kept PNG when there is one, else the stored original. */
 export async function loadPhotoBytes(
@@ -12,14 +13,8 @@ export async function loadPhotoBytes(
   const source = await getPhotoSource(organizationId, photoId);
   if (!source) throw notFound('That photo');
   if (source.workingPng) return { bytes: source.workingPng, contentType: 'image/png' };
-  const response = await fetch(source.url);
-  if (!response.ok) {
-    throw new Error(
-      `The stored photo could not be read from the upload service (HTTP ${response.status}).`,
-    );
-  }
   const contentType = source.format === 'jpeg' ? 'image/jpeg' : `image/${source.format}`;
-  return { bytes: Buffer.from(await response.arrayBuffer()), contentType };
+  return { bytes: await fetchStoredFile(source.url), contentType };
 }
 
 /**

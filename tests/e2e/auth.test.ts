@@ -3,6 +3,7 @@ import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_ORGANIZATION, DEMO_PASSWORD, DEMO_USERS } from '@/db/demo';
 import { BASE_URL, launchBrowser, signIn } from './support/browser';
+import { finishSignUpFromMail } from './support/mailbox';
 
 let browser: Browser;
 
@@ -27,7 +28,7 @@ describe('sign-up, sign-out, sign-in', () => {
     await page.getByLabel('Password').fill(password);
     await page.getByLabel('Lab or organization').fill('Harbour Coatings Lab');
     await page.getByRole('button', { name: 'Create account' }).click();
-    await page.waitForURL(`${BASE_URL}/dashboard`);
+    await finishSignUpFromMail(page, email);
     await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toBe('Harbour Coatings Lab');
     const nav = page.getByRole('navigation', { name: 'Sections' });
     for (const section of ['Dashboard', 'Coatings', 'Batches', 'Measure', 'Compare', 'Surface energy', 'Reviews', 'Team']) {

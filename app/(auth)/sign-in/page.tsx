@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { redirect } from 'next/navigation';
 import { SignInForm } from '@/components/auth/sign-in-form';
 import { getAuthContext } from '@/lib/auth/context';
+import { safeRedirectPath } from '@/lib/auth/redirect';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
@@ -13,7 +14,7 @@ export default async function SignInPage({
 }) {
   const { next, reason } = await searchParams;
   const ctx = await getAuthContext();
-  if (ctx?.organization) redirect(next?.startsWith('/') && !next.startsWith('//') ? next : '/dashboard');
+  if (ctx?.organization) redirect(safeRedirectPath(next));
   return (
     <>
       <h1 className="mb-1">Sign in</h1>

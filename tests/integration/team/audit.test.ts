@@ -9,11 +9,16 @@ import { signOut } from '@/app/(app)/actions';
 import { ROLES } from '@/lib/auth/permissions';
 import { requestState, simulateRequest } from '../support/request';
 import { createMember, createOrganization, TEST_PASSWORD } from '../support/fixtures';
+import { ownerConnection } from '../support/owner-db';
 import { auditRows, form, redirectOf } from './support';
 
 const BASE_URL = process.env.E2E_BASE_URL;
+// The trigger is the line behind the app role's missing privileges (tests/integration/db/
+// app-role.test.ts): it must hold for the owner of the tables too.
+const owner = ownerConnection();
 
 afterAll(async () => {
+  await owner.end();
   await closeMailQueue();
   await closeDb();
 });
@@ -79,7 +84,7 @@ describe('audit_events is append-only in the database', () => {
   it('refuses UPDATE', async () => {
     expect(
       await databaseError(
-        getDb()
+        owner.db
           .update(auditEvents)
           .set({ action: 'test.rewritten' })
           .where(eq(auditEvents.id, rowId)),
@@ -90,14 +95,14 @@ describe('audit_events is append-only in the database', () => {
 
   it('refuses DELETE and TRUNCATE', async () => {
     expect(
-      await databaseError(getDb().delete(auditEvents).where(eq(auditEvents.id, rowId))),
+      await databaseError(owner.db.delete(auditEvents).where(eq(auditEvents.id, rowId))),
     ).toMatch(/append-only/);
-    expect(await databaseError(getDb().execute(sql`truncate audit_events`))).toMatch(/append-only/);
+    expect(await databaseError(owner.db.execute(sql`truncate audit_events`))).toMatch(/append-only/);
     expect(await auditRows({ organizationId: lab.id })).toHaveLength(1);
   });
 
-  it('allows a deliberate purge inside a transaction that sets beadline.allow_audit_purge', async () => {
-    await getDb().transaction(async (tx) => {
+  it('allows the owner a deliberate purge inside a transaction that sets beadline.allow_audit_purge', async () => {
+    await owner.db.transaction(async (tx) => {
       await tx.execute(sql`set local beadline.allow_audit_purge = 'on'`);
       await tx.delete(auditEvents).where(eq(auditEvents.id, rowId));
     });
@@ -113,7 +118,7 @@ describe('audit_events is append-only in the database', () => {
     );
     const [again] = await auditRows({ organizationId: lab.id });
     expect(
-      await databaseError(getDb().delete(auditEvents).where(eq(auditEvents.id, again!.id))),
+      await databaseError(owner.db.delete(auditEvents).where(eq(auditEvents.id, again!.id))),
     ).toMatch(/append-only/);
   });
 });
@@ -135,7 +140,7 @@ describe('what the trigger still lets through', () => {
     expect(row).toMatchObject({ actorUserId: null, action: 'test.actor' });
   });
 
-  it('deleting an organization needs the purge setting, since its audit rows go with it', async () => {
+  it('deleting an organization needs the owner and the purge setting, since its audit rows go with it', async () => {
     const lab = await createOrganization();
     await getDb().transaction((tx) =>
       recordAudit(tx, {
@@ -146,9 +151,18 @@ describe('what the trigger still lets through', () => {
       }),
     );
     expect(
-      await databaseError(getDb().delete(organizations).where(eq(organizations.id, lab.id))),
+      await databaseError(owner.db.delete(organizations).where(eq(organizations.id, lab.id))),
     ).toMatch(/append-only/);
-    await getDb().transaction(async (tx) => {
+    // The app's role cannot purge, even with the setting: the cascade needs the owner.
+    expect(
+      await databaseError(
+        getDb().transaction(async (tx) => {
+          await tx.execute(sql`set local beadline.allow_audit_purge = 'on'`);
+          await tx.delete(organizations).where(eq(organizations.id, lab.id));
+        }),
+      ),
+    ).toMatch(/append-only/);
+    await owner.db.transaction(async (tx) => {
       await tx.execute(sql`set local beadline.allow_audit_purge = 'on'`);
       await tx.delete(organizations).where(eq(organizations.id, lab.id));
     });

@@ -14,7 +14,7 @@ import { chromium, type Browser } from 'playwright-core';
 import { UTApi, createRouteHandler } from 'uploadthing/server';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import { DROP_PHOTO_ROUTE, createDropPhotoRouter } from '@/lib/uploads/file-router';
+import { DROP_PHOTO_ROUTE, createDropPhotoRouter, fetchStoredFile } from '@/lib/uploads/file-router';
 import { startUploadFake, type RunningUploadFake } from '@/scripts/services/upload-fake';
 
 import { rgbCard } from '../../unit/uploads/image-fixtures';
@@ -85,6 +85,7 @@ describe.skipIf(!existsSync(CHROMIUM))('browser upload to the fake (Chromium)', 
       router: createDropPhotoRouter({
         authorize: async () => ({ userId: 'user-1', organizationId: 'org-1' }),
         onStored: async () => ({ photoId: 'photo-browser-1' }),
+        fetchFile: (url) => fetchStoredFile(url, { env: { UPLOAD_FAKE_URL: fake.url } }),
         storage: new UTApi({ token: fake.token, apiUrl: fake.url, ingestUrl: fake.url }),
         report: () => {},
       }),

@@ -71,7 +71,7 @@ function buildRouter() {
     },
     fetchFile: async (url) => {
       fetchFileCalls++;
-      return fetchStoredFile(url);
+      return fetchStoredFile(url, { env: { UPLOAD_FAKE_URL: fake.url } });
     },
     storage: new UTApi(utapiOptions(fakeEnv(), { logLevel: LOG_LEVEL })),
     storeDerivedFiles: true,

@@ -1,16 +1,26 @@
+import { mkdtempSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 
 import {
   UploadServiceConfigError,
+  isStoredFileUrl,
   routeHandlerConfig,
   uploadServiceConfig,
   uploadServiceEnv,
   utapiOptions,
 } from '@/lib/uploads/config';
 import {
-  DEFAULT_UPLOAD_FAKE_API_KEY,
   DEFAULT_UPLOAD_FAKE_APP_ID,
+  RETIRED_UPLOAD_FAKE_API_KEY,
+  uploadFakeCredentials,
 } from '@/lib/uploads/local-service';
+
+/** A key file of its own for each test, in a fresh temporary folder. */
+function keyFile(): string {
+  return path.join(mkdtempSync(path.join(tmpdir(), 'beadline-upload-key-')), 'upload-fake.key');
+}
 
 function decodeToken(token: string): unknown {
   return JSON.parse(Buffer.from(token, 'base64').toString('utf8'));
@@ -18,7 +28,8 @@ function decodeToken(token: string): unknown {
 
 describe('upload service configuration', () => {
   it('points every SDK address at the local fake from UPLOAD_FAKE_URL', () => {
-    const env = { UPLOAD_FAKE_URL: 'http://127.0.0.1:3055' };
+    const file = keyFile();
+    const env = { UPLOAD_FAKE_URL: 'http://127.0.0.1:3055', UPLOAD_FAKE_KEY_FILE: file };
     const config = uploadServiceConfig(env);
     expect(config).toMatchObject({
       mode: 'local-fake',
@@ -29,7 +40,7 @@ describe('upload service configuration', () => {
       ufsAppIdLocation: 'path',
     });
     expect(decodeToken(config.token)).toEqual({
-      apiKey: DEFAULT_UPLOAD_FAKE_API_KEY,
+      apiKey: readFileSync(file, 'utf8').trim(),
       appId: DEFAULT_UPLOAD_FAKE_APP_ID,
       regions: ['local'],
     });
@@ -44,6 +55,50 @@ describe('upload service configuration', () => {
       token: config.token,
       ingestUrl: 'http://127.0.0.1:3055',
     });
+  });
+
+  it('makes a random key per installation, kept in its key file for its owner only', () => {
+    const first = keyFile();
+    const second = keyFile();
+    const key = uploadFakeCredentials({ UPLOAD_FAKE_KEY_FILE: first }).apiKey;
+    expect(key).toMatch(/^sk_[0-9a-f]{64}$/);
+    expect(key).not.toBe(RETIRED_UPLOAD_FAKE_API_KEY);
+    expect(uploadFakeCredentials({ UPLOAD_FAKE_KEY_FILE: first }).apiKey).toBe(key);
+    expect(readFileSync(first, 'utf8').trim()).toBe(key);
+    expect(statSync(first).mode & 0o077).toBe(0);
+    expect(uploadFakeCredentials({ UPLOAD_FAKE_KEY_FILE: second }).apiKey).not.toBe(key);
+  });
+
+  it('refuses the key that earlier releases published in their source', () => {
+    const file = keyFile();
+    writeFileSync(file, `${RETIRED_UPLOAD_FAKE_API_KEY}\n`);
+    expect(() => uploadFakeCredentials({ UPLOAD_FAKE_KEY_FILE: file })).toThrow(/Delete the file/);
+    expect(() =>
+      uploadFakeCredentials({ UPLOAD_FAKE_API_KEY: RETIRED_UPLOAD_FAKE_API_KEY }),
+    ).toThrow(/published/);
+  });
+
+  it('takes stored files only from the configured upload host', () => {
+    const fake = { UPLOAD_FAKE_URL: 'http://127.0.0.1:3055', UPLOAD_FAKE_KEY_FILE: keyFile() };
+    expect(isStoredFileUrl('http://127.0.0.1:3055/a/beadlinelocal/abc', fake)).toBe(true);
+    expect(isStoredFileUrl('http://localhost:3055/a/beadlinelocal/abc', fake)).toBe(true);
+    for (const url of [
+      'http://127.0.0.1:3056/a/beadlinelocal/abc',
+      'http://127.0.0.1:5432/',
+      'https://127.0.0.1:3055/a/x',
+      'http://user:pw@127.0.0.1:3055/a/x',
+      'file:///etc/passwd',
+      'not a url',
+    ]) {
+      expect(isStoredFileUrl(url, fake), url).toBe(false);
+    }
+    const hosted = { UPLOADTHING_TOKEN: 'aG9zdGVk' };
+    expect(isStoredFileUrl('https://app123.ufs.sh/f/abc', hosted)).toBe(true);
+    expect(isStoredFileUrl('https://utfs.io/f/abc', hosted)).toBe(true);
+    expect(isStoredFileUrl('http://app123.ufs.sh/f/abc', hosted)).toBe(false);
+    expect(isStoredFileUrl('https://ufs.sh.evil.example/f/abc', hosted)).toBe(false);
+    expect(isStoredFileUrl('https://evilufs.sh/f/abc', hosted)).toBe(false);
+    expect(isStoredFileUrl('http://127.0.0.1:9/f/abc', hosted)).toBe(false);
   });
 
   it('uses the fake credentials from the environment when given', () => {

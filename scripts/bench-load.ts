@@ -1,0 +1,162 @@
+/**
+ * Load on the main list, detail, compare and page routes of a running Beadline (prints figures;
+ * no pass/fail).
+ *
+ *   npm start                      # in one shell (or npm test's server, or npm run dev)
+ *   npm run bench:load             # in another: BENCH_URL defaults to APP_URL or 127.0.0.1:$PORT
+ *   BENCH_URL=http://127.0.0.1:3100 BENCH_SECONDS=30 npm run bench:load
+ *
+ * It signs in itself as the demo admin and the demo viewer (db/demo.ts; the seeded demo must be
+ * there), then drives each route with autocannon for BENCH_SECONDS (default 30, as in issue 12) over
+ * BENCH_CONNECTIONS (default 50) keep-alive connections, one route after the other, after a few
+ * warm-up requests. It prints p50 / p95 / p99 of the response times, requests per second and the
+ * errors (connection errors, timeouts and any answer that is not 2xx, a redirect to the sign-in
+ * page included). Loopback only: it refuses any other host, so it can never load someone else's
+ * server. The load generator shares the machine's cores with the server, as in issue 12.
+ */
+import autocannon from 'autocannon';
+import { DEMO_PASSWORD, DEMO_USERS } from '../db/demo';
+import { postSignInForm } from './sign-in-form';
+
+const DEFAULT_PORT = process.env.PORT ?? '3000';
+const baseUrl = new URL(
+  process.env.BENCH_URL ?? process.env.APP_URL ?? `http://127.0.0.1:${DEFAULT_PORT}`,
+);
+const seconds = Number(process.env.BENCH_SECONDS ?? 30);
+const connections = Number(process.env.BENCH_CONNECTIONS ?? 50);
+const COATING = process.env.BENCH_COATING ?? 'HT-200';
+
+const LOOPBACK = new Set(['127.0.0.1', 'localhost', '[::1]', '::1']);
+if (!LOOPBACK.has(baseUrl.hostname)) {
+  console.error(`bench:load runs against a loopback address only, not ${baseUrl.host}.`);
+  process.exit(2);
+}
+if (!(seconds > 0 && seconds <= 300) || !(connections > 0 && connections <= 500)) {
+  console.error('BENCH_SECONDS must be 1–300 and BENCH_CONNECTIONS 1–500.');
+  process.exit(2);
+}
+
+const origin = baseUrl.origin;
+
+async function signIn(email: string): Promise<string> {
+  const answer = await postSignInForm(origin, { email, password: DEMO_PASSWORD });
+  if (!answer.cookie) {
+    throw new Error(
+      `Signing in as ${email} failed (status ${answer.status}). Is the demo seeded (npm start does it)?`,
+    );
+  }
+  return answer.cookie;
+}
+
+type Target = { name: string; path: string; cookie: string };
+
+type Row = {
+  route: string;
+  requests: number;
+  perSecond: number;
+  p50: number;
+  p95: number;
+  p99: number;
+  errors: number;
+};
+
+function percentile(sorted: number[], p: number): number {
+  if (sorted.length === 0) return NaN;
+  const index = Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1);
+  return sorted[Math.max(0, index)]!;
+}
+
+async function warmUp(target: Target): Promise<void> {
+  for (let i = 0; i < 3; i++) {
+    const response = await fetch(`${origin}${target.path}`, {
+      headers: { cookie: target.cookie },
+      redirect: 'manual',
+    });
+    await response.arrayBuffer();
+    if (response.status !== 200) {
+      throw new Error(`${target.name}: GET ${target.path} answered ${response.status} before the run.`);
+    }
+  }
+}
+
+async function measure(target: Target): Promise<Row> {
+  await warmUp(target);
+  const times: number[] = [];
+  const result = await new Promise<autocannon.Result>((resolve, reject) => {
+    const instance = autocannon(
+      {
+        url: `${origin}${target.path}`,
+        connections,
+        duration: seconds,
+        headers: { cookie: target.cookie },
+        timeout: 30,
+      },
+      (error, finished) => (error ? reject(error) : resolve(finished)),
+    );
+    instance.on('response', (_client, _status, _bytes, ms) => times.push(ms));
+  });
+  times.sort((a, b) => a - b);
+  return {
+    route: target.name,
+    requests: result.requests.total,
+    perSecond: result.requests.average,
+    p50: percentile(times, 50),
+    p95: percentile(times, 95),
+    p99: percentile(times, 99),
+    errors: result.errors + result.timeouts + result.non2xx,
+  };
+}
+
+function demoEmail(role: (typeof DEMO_USERS)[number]['role']): string {
+  return DEMO_USERS.find((user) => user.role === role)!.email;
+}
+
+async function main(): Promise<void> {
+  const admin = await signIn(demoEmail('admin'));
+  const viewer = await signIn(demoEmail('viewer'));
+  const list = await fetch(`${origin}/api/batches?pageSize=50`, { headers: { cookie: admin } });
+  const batches = (await list.json()) as { items?: { id: string }[] };
+  const batchId = batches.items?.[0]?.id;
+  if (!batchId) throw new Error('GET /api/batches returned no batch; is the demo seeded?');
+
+  const targets: Target[] = [
+    { name: 'GET /api/batches?pageSize=50', path: '/api/batches?pageSize=50', cookie: admin },
+    { name: 'GET /api/batches/{id}', path: `/api/batches/${batchId}`, cookie: admin },
+    { name: `GET /api/compare/drops.csv`, path: `/api/compare/drops.csv?coating=${COATING}`, cookie: admin },
+    { name: `page /compare`, path: `/compare?coating=${COATING}`, cookie: admin },
+    { name: 'page /batches (viewer)', path: '/batches', cookie: viewer },
+    { name: 'page /dashboard', path: '/dashboard', cookie: admin },
+  ];
+  console.log(
+    `bench:load against ${origin}: ${connections} connections, ${seconds} s per route, coating ${COATING}\n`,
+  );
+  const rows: Row[] = [];
+  for (const target of targets) {
+    rows.push(await measure(target));
+    const row = rows.at(-1)!;
+    console.log(`  measured ${row.route}`);
+  }
+  const ms = (v: number) => (Number.isFinite(v) ? `${Math.round(v)} ms` : '—');
+  const header = ['route', 'requests', 'req/s', 'p50', 'p95', 'p99', 'errors'];
+  const table = rows.map((r) => [
+    r.route,
+    String(r.requests),
+    r.perSecond.toFixed(1),
+    ms(r.p50),
+    ms(r.p95),
+    ms(r.p99),
+    String(r.errors),
+  ]);
+  const widths = header.map((h, i) => Math.max(h.length, ...table.map((row) => row[i]!.length)));
+  const line = (cells: string[]) =>
+    `| ${cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]!) : c.padStart(widths[i]!))).join(' | ')} |`;
+  console.log('');
+  console.log(line(header));
+  console.log(`|${widths.map((w, i) => (i === 0 ? '-'.repeat(w + 2) : `${'-'.repeat(w + 1)}:`)).join('|')}|`);
+  for (const row of table) console.log(line(row));
+}
+
+main().catch((error: unknown) => {
+  console.error(error instanceof Error ? error.message : error);
+  process.exit(1);
+});
