@@ -43,4 +43,5 @@ export {
   type RateOverWindow,
 } from './angle-over-time';
 export { seriesReport, type SeriesReport, type ContractFrame, type ContractStats } from './report';
-export { fitLine, fitPolynomial, localSlopes, noiseFromSecondDifferences } from './regression';
+export { fitLine, fitPolynomial, noiseFromSecondDifferences } from './regression';
+export { segmentLines, type LineSegment, type SegmentOptions } from './segments';

@@ -1,21 +1,24 @@
 /**
  * Contact-line phases from the base diameter over time, and the advancing and receding angles.
  *
- * The base diameter's rate of change at each frame is the slope of a least-squares line over the
- * frames around it. The line is "moving" where that slope is larger than `noiseMultiplier` times
- * its standard error, with the base's noise estimated from the series itself (second differences),
- * so a noisy video needs clearer motion than a clean one. Runs shorter than `minPhaseFrames` are
- * merged into their neighbours. Growing base = advancing, shrinking base = receding, else pinned;
- * the volume, where the method gives one, is checked to move the same way.
+ * The base diameter against time is split into straight pieces where its slope changes (optimal
+ * partitioning, ./segments.ts), with the base's noise estimated from the series itself (second
+ * differences), so a noisy video needs clearer changes than a clean one. A piece is "moving" when
+ * its slope exceeds `noiseMultiplier` standard errors and the base changes by at least
+ * `minChangePx` over it (the analysis' own slight dependence of the base on the angle must not
+ * count as motion); growing base = advancing, shrinking = receding, else pinned. Neighbouring
+ * pieces of one kind join, and phases shorter than `minPhaseFrames` join their neighbours. The
+ * volume, where the method gives one, is checked to move the same way.
  *
- * Advancing angle = mean over the frames of the longest advancing phase, less `halfWindow` frames
- * at each end (the slope window reaches that far into the neighbouring phase, and the angle is
- * settling there); receding likewise; hysteresis = advancing − receding. This follows the
- * needle-in practice for advancing angles (ASTM D7334) and dynamic angles (ISO 19403-6): the angle
- * is read while the contact line moves steadily. The caller may pass its own windows instead.
+ * Advancing angle = mean over the frames of the longest advancing phase, less `edgeFrames` frames
+ * at each end (where the contact line starts or stops and the angle settles); receding likewise;
+ * hysteresis = advancing − receding. This follows the needle-in practice for advancing angles
+ * (ASTM D7334) and dynamic angles (ISO 19403-6): the angle is read while the contact line moves
+ * steadily. The caller may pass its own windows instead.
  */
 import { mean, sampleSd } from '../stats/describe';
-import { localSlopes, noiseFromSecondDifferences } from './regression';
+import { noiseFromSecondDifferences } from './regression';
+import { segmentLines } from './segments';
 import type { AngleWindowStats, PhaseWindow, SeriesFrame, SeriesWarning } from './types';
 
 export type PhaseKind = 'pinned' | 'advancing' | 'receding';
@@ -31,19 +34,21 @@ export interface PhaseSegment {
 }
 
 export interface PhaseOptions {
-  /** Frames on either side in the slope's line (default 2: five-frame lines). */
-  halfWindow?: number;
   /** Slope threshold in standard errors of the slope (default 4). */
   noiseMultiplier?: number;
-  /** Shortest phase kept; shorter runs join their neighbours (default 4 frames). */
+  /** Smallest change of the base diameter over a piece that counts as motion (default 1 px). */
+  minChangePx?: number;
+  /** Shortest phase kept; shorter runs join their neighbours (default 3 frames). */
   minPhaseFrames?: number;
-  /** Lowest contact-line speed counted as motion, px/s of base diameter (default 0). */
-  minSpeedPxPerSec?: number;
+  /** Frames left out at each end of a phase for its default window (default 1). */
+  edgeFrames?: number;
+  /** Cost of one more straight piece, in units of the noise variance (default 4 ln n). */
+  penalty?: number;
 }
 
 export interface PhaseDetection {
   segments: PhaseSegment[];
-  /** d(base diameter)/dt per input frame (px/s); null for frames without a base. */
+  /** d(base diameter)/dt per input frame (px/s), the slope of its straight piece; null without a base. */
   baseRatePxPerSec: (number | null)[];
   /** Noise of the base diameter estimated from the series (px). */
   baseNoisePx: number;
@@ -55,9 +60,9 @@ export interface PhaseDetection {
 
 type FrameValues = Pick<SeriesFrame, 'index' | 'tSec' | 'baseDiameterPx' | 'volumePx3'>;
 
-const DEFAULTS = { halfWindow: 2, noiseMultiplier: 4, minPhaseFrames: 4, minSpeedPxPerSec: 0 };
+const DEFAULTS = { noiseMultiplier: 4, minChangePx: 1, minPhaseFrames: 3, edgeFrames: 1 };
 
-/** Smallest base-diameter noise assumed (px): a noise-free series must not make every wobble motion. */
+/** Smallest base-diameter noise assumed (px): a noise-free series must not make every wobble a break. */
 const NOISE_FLOOR_PX = 0.01;
 
 export function detectPhases(
@@ -70,10 +75,11 @@ export function detectPhases(
     (f) => f.baseDiameterPx !== null && Number.isFinite(f.baseDiameterPx),
   );
   const rates: (number | null)[] = frames.map(() => null);
-  if (valid.length < Math.max(2 * o.halfWindow + 1, o.minPhaseFrames)) {
+  const needed = Math.max(5, o.minPhaseFrames);
+  if (valid.length < needed) {
     warnings.push({
       code: 'too-few-frames',
-      message: `Only ${valid.length} frames have a drop; at least ${Math.max(2 * o.halfWindow + 1, o.minPhaseFrames)} are needed to tell pinned from moving.`,
+      message: `Only ${valid.length} frames have a drop; at least ${needed} are needed to tell pinned from moving.`,
     });
     return {
       segments: [],
@@ -87,13 +93,22 @@ export function detectPhases(
   const t = valid.map((f) => f.tSec);
   const base = valid.map((f) => f.baseDiameterPx as number);
   const noise = Math.max(noiseFromSecondDifferences(base), NOISE_FLOOR_PX);
-  const { slope, standardError } = localSlopes(t, base, o.halfWindow, noise);
+  const pieces = segmentLines(t, base, { sigma: noise, penalty: o.penalty });
   const position = new Map(frames.map((f, i) => [f, i]));
-  const kinds: PhaseKind[] = slope.map((s, i) => {
-    const threshold = Math.max(o.noiseMultiplier * standardError[i], o.minSpeedPxPerSec);
-    return s > threshold ? 'advancing' : s < -threshold ? 'receding' : 'pinned';
-  });
-  valid.forEach((f, i) => (rates[position.get(f) as number] = slope[i]));
+  const kinds: PhaseKind[] = [];
+  for (const piece of pieces) {
+    const sigma = Math.max(noise, piece.residualSd);
+    const standardError = piece.sxx > 0 ? sigma / Math.sqrt(piece.sxx) : Infinity;
+    const change = piece.slope * (t[piece.to] - t[piece.from]);
+    const moving =
+      Math.abs(piece.slope) > o.noiseMultiplier * standardError &&
+      Math.abs(change) >= o.minChangePx;
+    const kind: PhaseKind = !moving ? 'pinned' : piece.slope > 0 ? 'advancing' : 'receding';
+    for (let k = piece.from; k <= piece.to; k++) {
+      kinds[k] = kind;
+      rates[position.get(valid[k]) as number] = piece.slope;
+    }
+  }
 
   const runs = mergeShortRuns(toRuns(kinds), o.minPhaseFrames);
   const segments: PhaseSegment[] = runs.map((r) => ({
@@ -125,8 +140,8 @@ export function detectPhases(
     for (const r of runs)
       if (r.kind === kind && (!best || r.to - r.from > best.to - best.from)) best = r;
     if (!best) return null;
-    let from = best.from + o.halfWindow;
-    let to = best.to - o.halfWindow;
+    let from = best.from + o.edgeFrames;
+    let to = best.to - o.edgeFrames;
     if (to < from) {
       from = to = (best.from + best.to) >> 1;
       warnings.push({

@@ -1,7 +1,7 @@
 /**
  * Small least-squares tools for series: a polynomial in time with the standard errors of its
  * coefficients (ordinary least squares, covariance s² (XᵀX)⁻¹; e.g. Draper & Smith, Applied
- * Regression Analysis, ch. 1 and 5), local slopes for derivatives, and a robust noise estimate.
+ * Regression Analysis, ch. 1 and 5) and a robust noise estimate.
  */
 import { Matrix, inverse } from 'ml-matrix';
 
@@ -82,41 +82,4 @@ export function noiseFromSecondDifferences(y: readonly number[]): number {
   d.sort((a, b) => a - b);
   const m = d.length % 2 ? d[d.length >> 1] : (d[d.length / 2 - 1] + d[d.length / 2]) / 2;
   return (1.4826 * m) / Math.sqrt(6);
-}
-
-/**
- * Slope of the least-squares line through the points within `halfWindow` on either side of each
- * point (fewer at the ends), and the slope's standard error for a noise `sigma`: σ / √Σ(x − x̄)².
- */
-export function localSlopes(
-  x: readonly number[],
-  y: readonly number[],
-  halfWindow: number,
-  sigma: number,
-): { slope: number[]; standardError: number[] } {
-  const n = x.length;
-  const slope: number[] = [];
-  const standardError: number[] = [];
-  for (let i = 0; i < n; i++) {
-    const a = Math.max(0, i - halfWindow);
-    const b = Math.min(n - 1, i + halfWindow);
-    let mx = 0;
-    let my = 0;
-    for (let k = a; k <= b; k++) {
-      mx += x[k];
-      my += y[k];
-    }
-    const m = b - a + 1;
-    mx /= m;
-    my /= m;
-    let sxx = 0;
-    let sxy = 0;
-    for (let k = a; k <= b; k++) {
-      sxx += (x[k] - mx) ** 2;
-      sxy += (x[k] - mx) * (y[k] - my);
-    }
-    slope.push(sxx > 0 ? sxy / sxx : 0);
-    standardError.push(sxx > 0 ? sigma / Math.sqrt(sxx) : Infinity);
-  }
-  return { slope, standardError };
 }
