@@ -11,13 +11,14 @@
  * volume, where the method gives one, is checked to move the same way.
  *
  * Advancing angle = mean over the frames of the longest advancing phase, less `edgeFrames` frames
- * at each end (where the contact line starts or stops and the angle settles); receding likewise;
+ * at each end (where the contact line starts or stops and the angle settles) and as many more as
+ * the noise blurs where the phase starts (3σ over the base's change per frame); receding likewise;
  * hysteresis = advancing − receding. This follows the needle-in practice for advancing angles
  * (ASTM D7334) and dynamic angles (ISO 19403-6): the angle is read while the contact line moves
  * steadily. The caller may pass its own windows instead.
  */
 import { mean, sampleSd } from '../stats/describe';
-import { noiseFromSecondDifferences } from './regression';
+import { fitLine, noiseFromSecondDifferences } from './regression';
 import { segmentLines } from './segments';
 import type { AngleWindowStats, PhaseWindow, SeriesFrame, SeriesWarning } from './types';
 
@@ -140,8 +141,17 @@ export function detectPhases(
     for (const r of runs)
       if (r.kind === kind && (!best || r.to - r.from > best.to - best.from)) best = r;
     if (!best) return null;
-    let from = best.from + o.edgeFrames;
-    let to = best.to - o.edgeFrames;
+    // Where a phase starts is known to about 3σ / (base change per frame) frames: leave that out too.
+    const run = { t: t.slice(best.from, best.to + 1), base: base.slice(best.from, best.to + 1) };
+    const perFrame =
+      run.t.length > 1
+        ? Math.abs(fitLine(run.t, run.base).slope) *
+          ((run.t[run.t.length - 1] - run.t[0]) / (run.t.length - 1))
+        : 0;
+    const edge =
+      o.edgeFrames + (perFrame > 0 ? Math.min(Math.ceil((3 * noise) / perFrame), 10) : 0);
+    let from = best.from + edge;
+    let to = best.to - edge;
     if (to < from) {
       from = to = (best.from + best.to) >> 1;
       warnings.push({
