@@ -24,9 +24,9 @@ const now = (): number => (typeof performance !== 'undefined' ? performance.now(
 /** Room around the last outline: a share of the drop's size, at least a few edge widths. */
 export const REGION_MARGIN = {
   /** Beside the contact points (substrate for the baseline, room to spread or slide). */
-  sideFraction: 0.3,
+  sideFraction: 0.15,
   /** Above the apex (room to grow). */
-  topFraction: 0.3,
+  topFraction: 0.15,
   /** Below the baseline (the substrate edge must be inside). */
   belowPx: 24,
   minPx: 24,
