@@ -9,6 +9,7 @@
  *     advancing: {…} | null, receding: {…} | null, hysteresisDeg, warnings: [{ code, message }] }
  * and on bad input { error: { code, message } } with exit status 1. Without --json, a table.
  */
+import { parseArgs as parseNodeArgs } from 'node:util';
 import { AnalysisError, DEFAULT_METHOD, loadOpenCv, type FitMethod } from '../lib/analysis';
 import { DecodeError } from '../lib/analysis/node/decode';
 import { analyseSeries, seriesReport, summariseDynamic, type SeriesReport } from '../lib/dynamic';
@@ -33,38 +34,43 @@ class ArgumentError extends Error {
 }
 
 function parseArgs(argv: string[]): CliOptions {
-  const options: CliOptions = { method: DEFAULT_METHOD, json: false, files: [] };
-  for (let i = 0; i < argv.length; i++) {
-    const arg = argv[i];
-    const eq = arg.startsWith('--') ? arg.indexOf('=') : -1;
-    const flag = eq > 0 ? arg.slice(0, eq) : arg;
-    const inline = eq > 0 ? arg.slice(eq + 1) : undefined;
-    const value = () => {
-      const v = inline ?? argv[++i];
-      if (v === undefined) throw new ArgumentError(`${flag} needs a value.`);
-      return v;
-    };
-    if (flag === '--json') options.json = true;
-    else if (flag === '--method') {
-      const m = value();
-      if (!METHODS.includes(m as FitMethod))
-        throw new ArgumentError(`Unknown method "${m}"; use one of ${METHODS.join(', ')}.`);
-      options.method = m as FitMethod;
-    } else if (flag === '--fps') {
-      const fps = Number(value());
-      if (!(Number.isFinite(fps) && fps > 0))
-        throw new ArgumentError('--fps needs a positive number of frames per second.');
-      options.fps = fps;
-    } else if (flag === '--help' || flag === '-h') {
-      process.stdout.write(`${USAGE}\n`);
-      process.exit(0);
-    } else if (flag === '--') continue;
-    else if (flag.startsWith('--')) throw new ArgumentError(`Unknown option ${flag}.`);
-    else options.files.push(arg);
+  let parsed: ReturnType<typeof parseCommandLine>;
+  try {
+    parsed = parseCommandLine(argv);
+  } catch (error) {
+    throw new ArgumentError((error as Error).message);
   }
-  if (!options.files.length)
+  const { values, positionals } = parsed;
+  if (values.help) {
+    process.stdout.write(`${USAGE}\n`);
+    process.exit(0);
+  }
+  const method = (values.method ?? DEFAULT_METHOD) as FitMethod;
+  if (!METHODS.includes(method))
+    throw new ArgumentError(`Unknown method "${method}"; use one of ${METHODS.join(', ')}.`);
+  let fps: number | undefined;
+  if (values.fps !== undefined) {
+    fps = Number(values.fps);
+    if (!(Number.isFinite(fps) && fps > 0))
+      throw new ArgumentError('--fps needs a positive number of frames per second.');
+  }
+  if (!positionals.length)
     throw new ArgumentError('No input given: name one video, or frame images in order with --fps.');
-  return options;
+  return { method, fps, json: values.json ?? false, files: positionals };
+}
+
+function parseCommandLine(argv: string[]) {
+  return parseNodeArgs({
+    args: argv,
+    allowPositionals: true,
+    strict: true,
+    options: {
+      method: { type: 'string' },
+      fps: { type: 'string' },
+      json: { type: 'boolean' },
+      help: { type: 'boolean', short: 'h' },
+    },
+  });
 }
 
 function errorOf(error: unknown): { code: string; message: string } {

@@ -152,13 +152,12 @@ export function detectPhases(
       o.edgeFrames + (perFrame > 0 ? Math.min(Math.ceil((3 * noise) / perFrame), 10) : 0);
     let from = best.from + edge;
     let to = best.to - edge;
-    if (to < from) {
-      from = to = (best.from + best.to) >> 1;
+    if (to < from) from = to = (best.from + best.to) >> 1;
+    if (to - from < 2)
       warnings.push({
         code: 'short-phase',
-        message: `The ${kind} phase (${best.to - best.from + 1} frames) is too short to leave out its edge frames; only its middle frame is counted. Record more frames while the contact line moves.`,
+        message: `The ${kind} phase (${best.to - best.from + 1} frames) leaves only ${to - from + 1} steady frame${to > from ? 's' : ''} once its edges are left out. Record more frames while the contact line moves.`,
       });
-    }
     return { fromSec: valid[from].tSec, toSec: valid[to].tSec };
   };
   const advancingWindow = window('advancing');

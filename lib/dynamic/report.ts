@@ -8,28 +8,22 @@
  * Exactly these keys, so a consumer can check the shape; numbers rounded to what they can carry.
  */
 import type { DynamicSummary } from './phases';
-import type { AngleWindowStats, FrameWarning, SeriesFrame, SeriesWarning } from './types';
+import type { AngleWindowStats, SeriesFrame, SeriesWarning } from './types';
 
-export interface ContractFrame {
-  index: number;
-  tSec: number;
-  leftDeg: number | null;
-  rightDeg: number | null;
-  meanDeg: number | null;
-  baseDiameterPx: number | null;
-  volumePx3: number | null;
-  warnings: FrameWarning[];
-}
+export type ContractFrame = Pick<
+  SeriesFrame,
+  | 'index'
+  | 'tSec'
+  | 'leftDeg'
+  | 'rightDeg'
+  | 'meanDeg'
+  | 'baseDiameterPx'
+  | 'volumePx3'
+  | 'warnings'
+>;
 
-export interface ContractStats {
-  meanDeg: number;
-  leftDeg: number;
-  rightDeg: number;
-  sdDeg: number | null;
-  fromSec: number;
-  toSec: number;
-  frameCount: number;
-}
+/** The window statistics, rounded. */
+export type ContractStats = AngleWindowStats;
 
 export interface SeriesReport {
   frames: ContractFrame[];

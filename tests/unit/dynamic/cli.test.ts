@@ -4,23 +4,15 @@
  * and on a video encoded from them at test time with ffmpeg.
  */
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { decodeImageFile } from '@/lib/analysis/node/decode';
 import { writeVideo } from '@/fixtures/generator/series-video';
+import { ROOT as root, committedSeries } from './committed';
 
-const root = path.resolve(__dirname, '../../..');
-const seriesDir = 'fixtures/series/needle-in';
-const manifest = JSON.parse(readFileSync(path.join(root, seriesDir, 'manifest.json'), 'utf8')) as {
-  fps: number;
-  expected: { advancingDeg: number; recedingDeg: number; hysteresisDeg: number };
-};
-const frameFiles = readdirSync(path.join(root, seriesDir))
-  .filter((f) => f.endsWith('.png'))
-  .sort()
-  .map((f) => `${seriesDir}/${f}`);
+const series = committedSeries('needle-in');
+const { manifest, frameFiles } = series;
 
 function run(args: string[]) {
   return spawnSync('npx', ['tsx', 'scripts/analyze-series.ts', ...args], {
@@ -84,7 +76,7 @@ describe('analyze-series CLI', () => {
   it('one video: times from its frame rate; --method is honoured; no volume from the polynomial', async () => {
     const dir = mkdtempSync(path.join(tmpdir(), 'beadline-series-cli-'));
     const video = path.join(dir, 'needle.avi');
-    const images = await Promise.all(frameFiles.map((f) => decodeImageFile(path.join(root, f))));
+    const images = await series.decodeFrames();
     await writeVideo(images, video, manifest.fps, 'avi-mjpeg');
     const result = run(['--method', 'polynomial', '--json', video]);
     expect(result.status).toBe(0);

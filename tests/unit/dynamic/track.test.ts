@@ -3,11 +3,8 @@
  * the kept-baseline check, the region around the drop, the second chance on the whole frame, and
  * frames that cannot be analysed keeping their place.
  */
-import { readFileSync, readdirSync } from 'node:fs';
-import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { loadOpenCv, type GrayImage, type OpenCv } from '@/lib/analysis';
-import { decodeImageFile } from '@/lib/analysis/node/decode';
 import {
   SeriesTracker,
   analyseSeries,
@@ -16,9 +13,10 @@ import {
   regionAround,
   summariseDynamic,
 } from '@/lib/dynamic';
+import { committedSeries } from './committed';
 
-const seriesDir = path.resolve(__dirname, '../../../fixtures/series/needle-in');
-const manifest = JSON.parse(readFileSync(path.join(seriesDir, 'manifest.json'), 'utf8')) as {
+const series = committedSeries('needle-in');
+const manifest = series.manifest as unknown as {
   frames: { contactLeftX: number; contactRightX: number; heightPx: number }[];
 };
 /** The committed frames are drawn with the baseline at y = 180 (layout 320×240). */
@@ -29,10 +27,7 @@ let images: GrayImage[];
 
 beforeAll(async () => {
   ({ cv } = await loadOpenCv());
-  const files = readdirSync(seriesDir)
-    .filter((f) => f.endsWith('.png'))
-    .sort();
-  images = await Promise.all(files.map((f) => decodeImageFile(path.join(seriesDir, f))));
+  images = await series.decodeFrames();
 });
 
 /** The frame moved right by `dx` px (border columns repeated: backlight, substrate and needle shift). */

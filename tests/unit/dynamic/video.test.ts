@@ -5,7 +5,7 @@
  * lib/dynamic/node/ffmpeg.ts and analysed. Needs ffmpeg (scripts/ffmpeg.sh installs it).
  */
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -14,23 +14,17 @@ import { decodeImageFile } from '@/lib/analysis/node/decode';
 import { analyseSeries, summariseDynamic } from '@/lib/dynamic';
 import { VideoError, decodeVideoFrames, probeVideo } from '@/lib/dynamic/node/ffmpeg';
 import { VIDEO_EXTENSION, writeVideo, type VideoFormat } from '@/fixtures/generator/series-video';
+import { ROOT, committedSeries } from './committed';
 
-const root = path.resolve(__dirname, '../../..');
-const seriesDir = path.join(root, 'fixtures/series/needle-in');
-const manifest = JSON.parse(readFileSync(path.join(seriesDir, 'manifest.json'), 'utf8')) as {
-  fps: number;
-  expected: { advancingDeg: number; recedingDeg: number };
-};
+const series = committedSeries('needle-in');
+const manifest = series.manifest;
 const dir = mkdtempSync(path.join(tmpdir(), 'beadline-video-'));
 let cv: OpenCv;
 let images: GrayImage[];
 
 beforeAll(async () => {
   ({ cv } = await loadOpenCv());
-  const files = readdirSync(seriesDir)
-    .filter((f) => f.endsWith('.png'))
-    .sort();
-  images = await Promise.all(files.map((f) => decodeImageFile(path.join(seriesDir, f))));
+  images = await series.decodeFrames();
 }, 120_000);
 
 const CODECS: Record<string, string> = { mp4: 'h264', 'avi-mjpeg': 'mjpeg', webm: 'vp9' };
@@ -82,7 +76,7 @@ describe('video round trip', () => {
   }
 
   it('keeps 16-bit sources 16-bit (lossless FFV1 gray16le from a 16-bit photo)', async () => {
-    const png = path.join(root, 'fixtures/drops/drop-75-16bit.png');
+    const png = path.join(ROOT, 'fixtures/drops/drop-75-16bit.png');
     const file = path.join(dir, 'deep.mkv');
     execFileSync('ffmpeg', [
       '-v',
