@@ -29,6 +29,40 @@ const CORE = [
   'lib/csv/**',
   'lib/contracts/**',
   'lib/measure/**',
+  'lib/dynamic/**',
+];
+
+/** Node-only pieces of the core (decoding files, running ffmpeg) live in a node/ folder. */
+const CORE_NODE = ['lib/*/node/**'];
+const NODE = [
+  'node:*',
+  ...[
+    'fs',
+    'path',
+    'child_process',
+    'os',
+    'crypto',
+    'url',
+    'util',
+    'stream',
+    'worker_threads',
+  ].flatMap((name) => [name, `${name}/*`]),
+  'sharp',
+  '**/node/*',
+];
+
+const coreGroups = [
+  [
+    DB,
+    'The pure core does not read the database; a service in server/ does, and passes plain data in.',
+  ],
+  [SERVER, 'The pure core does not call services; services call the core.'],
+  [[...APP, ...COMPONENTS], 'The pure core knows nothing of pages or components.'],
+  [FRAMEWORK, 'The pure core runs without Next.js or React (web worker, CLI, tests).'],
+  [
+    ['@/lib/auth/*', '!@/lib/auth/permissions', '@/lib/email/*', '@/lib/uploads/*', '@/lib/api/*'],
+    'The pure core uses no integration (auth, mail, uploads); only the permissions table is plain data.',
+  ],
 ];
 
 const boundaries = [
@@ -43,27 +77,19 @@ const boundaries = [
     },
   },
   {
-    files: CORE.map((glob) => `${glob}.{ts,tsx}`),
+    files: CORE.map((glob) => `${glob}/*.{ts,tsx}`),
+    rules: { 'no-restricted-imports': restrict(...coreGroups) },
+  },
+  // The same for the core outside its node/ folders, which also runs in the browser and the web
+  // worker: no Node built-ins, no sharp, nothing from a node/ folder.
+  {
+    files: CORE.map((glob) => `${glob}/*.{ts,tsx}`),
+    ignores: CORE_NODE,
     rules: {
-      'no-restricted-imports': restrict(
-        [
-          DB,
-          'The pure core does not read the database; a service in server/ does, and passes plain data in.',
-        ],
-        [SERVER, 'The pure core does not call services; services call the core.'],
-        [[...APP, ...COMPONENTS], 'The pure core knows nothing of pages or components.'],
-        [FRAMEWORK, 'The pure core runs without Next.js or React (web worker, CLI, tests).'],
-        [
-          [
-            '@/lib/auth/*',
-            '!@/lib/auth/permissions',
-            '@/lib/email/*',
-            '@/lib/uploads/*',
-            '@/lib/api/*',
-          ],
-          'The pure core uses no integration (auth, mail, uploads); only the permissions table is plain data.',
-        ],
-      ),
+      'no-restricted-imports': restrict(...coreGroups, [
+        NODE,
+        'This part of the core runs in the browser and the web worker too; Node-only code goes in a node/ folder (lib/analysis/node, lib/dynamic/node).',
+      ]),
     },
   },
   {

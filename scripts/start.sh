@@ -2,6 +2,7 @@
 # `npm start`: set everything up and serve Beadline. `npm run dev` (--dev) serves the dev server.
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
+source "$(dirname "$0")/ffmpeg.sh"
 
 MODE="production"
 [ "${1:-}" = "--dev" ] && MODE="development"
@@ -17,6 +18,7 @@ trap cleanup EXIT
 trap 'exit 130' INT TERM
 
 ensure_node_modules
+ensure_ffmpeg
 ensure_postgres
 source "$ROOT/scripts/services.sh"
 start_local_services

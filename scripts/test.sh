@@ -3,6 +3,7 @@
 # (real PostgreSQL) and end-to-end (Debian's Chromium) tests. Ends with the runner's summary.
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
+source "$(dirname "$0")/ffmpeg.sh"
 
 export TEST_PORT="${TEST_PORT:-3100}"
 export E2E_BASE_URL="http://127.0.0.1:$TEST_PORT"
@@ -19,6 +20,7 @@ trap 'exit 130' INT TERM
 step() { printf '\n\033[1;35m==> %s\033[0m\n' "$*"; }
 
 ensure_node_modules
+ensure_ffmpeg
 if [ ! -x "$CHROMIUM_PATH" ]; then apt_install chromium; fi
 [ -x "$CHROMIUM_PATH" ] || die "Chromium not found at $CHROMIUM_PATH"
 

@@ -68,13 +68,46 @@ describe('layer boundaries (eslint no-restricted-imports)', () => {
       '@/server/http/route',
       '@/lib/auth/context',
     ]) {
-      const messages = await restrictedImports('lib/analysis/violation.ts', snippet(source));
-      expect(messages, source).toHaveLength(1);
+      for (const file of ['lib/analysis/violation.ts', 'lib/analysis/fits/violation.ts']) {
+        const messages = await restrictedImports(file, snippet(source));
+        expect(messages, `${file}: ${source}`).toHaveLength(1);
+      }
     }
     // The permissions table is plain data, and contracts may use it.
     expect(
       await restrictedImports('lib/contracts/fine.ts', snippet('@/lib/auth/permissions')),
     ).toEqual([]);
+  });
+
+  it('the dynamic-wetting core is core: no database, framework, service or integration', async () => {
+    for (const source of ['@/db/client', 'next/server', 'react', '@/server/drops/save-analysis']) {
+      for (const file of ['lib/dynamic/violation.ts', 'lib/dynamic/node/violation.ts']) {
+        const messages = await restrictedImports(file, snippet(source));
+        expect(messages, `${file}: ${source}`).toHaveLength(1);
+      }
+    }
+    expect(await restrictedImports('lib/dynamic/fine.ts', snippet('@/lib/analysis/types'))).toEqual(
+      [],
+    );
+  });
+
+  it('Node built-ins only in the node/ folders of the core, which run outside the browser', async () => {
+    for (const source of [
+      'node:child_process',
+      'fs',
+      'sharp',
+      './node/ffmpeg',
+      '../analysis/node/decode',
+    ]) {
+      for (const file of ['lib/dynamic/violation.ts', 'lib/analysis/violation.ts']) {
+        const messages = await restrictedImports(file, snippet(source));
+        expect(messages, `${file}: ${source}`).toEqual([expect.stringMatching(/node\/ folder/)]);
+      }
+    }
+    for (const file of ['lib/dynamic/node/fine.ts', 'lib/analysis/node/fine.ts']) {
+      expect(await restrictedImports(file, snippet('node:child_process')), file).toEqual([]);
+      expect(await restrictedImports(file, snippet('sharp')), file).toEqual([]);
+    }
   });
 
   it('services may use db/ and the core, but not pages or components', async () => {
