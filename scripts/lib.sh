@@ -195,7 +195,7 @@ stop_services() {
 build_is_stale() {
   local id="$ROOT/.next/BUILD_ID"
   [ -f "$id" ] || return 0
-  [ -n "$(cd "$ROOT" && find app components lib db server workers fonts public next.config.ts proxy.ts instrumentation.ts \
+  [ -n "$(cd "$ROOT" && find app components lib db server workers fonts public next.config.ts proxy.ts instrumentation.ts instrumentation-client.ts \
     tailwind.config.ts postcss.config.mjs package-lock.json tsconfig.json \
     -newer "$id" -type f 2>/dev/null | head -1)" ]
 }

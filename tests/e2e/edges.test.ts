@@ -70,22 +70,30 @@ describe('security headers', () => {
     expect(response.headers.get('content-security-policy')).toContain("frame-ancestors 'none'");
   });
 
-  it('the measurement workspace still analyses a photo in Chromium under the policy', async () => {
+  /** A signed-in page that records every policy violation and page error it meets. */
+  async function watchedPage(email: string) {
     const browser = await launchBrowser();
+    const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const page = await context.newPage();
+    const violations: string[] = [];
+    await page.addInitScript(() => {
+      document.addEventListener('securitypolicyviolation', (event) => {
+        console.error(
+          `CSP violation: ${event.violatedDirective} ${event.blockedURI} at ${event.sourceFile}:${event.lineNumber} on ${location.pathname}`,
+        );
+      });
+    });
+    page.on('console', (message) => {
+      if (/CSP violation|Content Security Policy/i.test(message.text())) violations.push(message.text());
+    });
+    page.on('pageerror', (error) => violations.push(`page error: ${error.message}`));
+    await signIn(page, email, DEMO_PASSWORD);
+    return { browser, page, violations };
+  }
+
+  it('the measurement workspace still analyses a photo in Chromium under the policy', async () => {
+    const { browser, page, violations } = await watchedPage('analyst@kestrel.example');
     try {
-      const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
-      const page = await context.newPage();
-      const violations: string[] = [];
-      await page.addInitScript(() => {
-        document.addEventListener('securitypolicyviolation', (event) => {
-          console.error(`CSP violation: ${event.violatedDirective} ${event.blockedURI}`);
-        });
-      });
-      page.on('console', (message) => {
-        if (/CSP violation|Content Security Policy/i.test(message.text())) violations.push(message.text());
-      });
-      page.on('pageerror', (error) => violations.push(`page error: ${error.message}`));
-      await signIn(page, 'analyst@kestrel.example', DEMO_PASSWORD);
       await page.goto(`${BASE_URL}/measure`);
       await page
         .getByTestId('photo-input')
@@ -98,7 +106,31 @@ describe('security headers', () => {
       expect(left).toBeGreaterThan(58);
       expect(left).toBeLessThan(62);
       expect(violations).toEqual([]);
-      await context.close();
+    } finally {
+      await browser.close();
+    }
+  });
+
+  it('the signed-in pages and their forms run under the policy without a violation', async () => {
+    const { browser, page, violations } = await watchedPage('admin@kestrel.example');
+    try {
+      for (const route of [
+        '/dashboard',
+        '/coatings',
+        '/batches',
+        '/sessions',
+        '/probe-liquids',
+        '/compare',
+        '/surface-energy',
+        '/tensiometry',
+        '/reviews',
+        '/team',
+        '/audit',
+      ]) {
+        await page.goto(`${BASE_URL}${route}`);
+        await page.waitForLoadState('networkidle');
+      }
+      expect(violations).toEqual([]);
     } finally {
       await browser.close();
     }

@@ -1,16 +1,18 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { AppError } from '@/lib/app-error';
+import { appUrl } from '@/lib/config';
 import { ERROR_CODES } from '@/lib/contracts/errors';
 import { HTTP_STATUS } from '@/server/http/errors';
 import { json, route } from '@/server/http/route';
 
 /*
  * The route wrapper on its own: a public route (no session needed) with a small body limit.
- * Origin and host are this site's, as a Beadline page's fetch sends them.
+ * Origin and host are this site's (APP_URL, which the Origin check compares with), as a Beadline
+ * page's fetch sends them.
  */
 
-const ORIGIN = 'http://127.0.0.1:3000';
+const ORIGIN = new URL(appUrl()).origin;
 
 const echo = route(
   { access: 'public', body: z.object({ angleDeg: z.number() }), maxBodyBytes: 64 },
@@ -22,7 +24,7 @@ function post(body: BodyInit | null, headers: Record<string, string> = {}): Requ
     method: 'POST',
     headers: {
       origin: ORIGIN,
-      host: '127.0.0.1:3000',
+      host: new URL(ORIGIN).host,
       'content-type': 'application/json',
       ...headers,
     },
