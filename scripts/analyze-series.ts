@@ -16,6 +16,7 @@ import { analyseSeries, seriesReport, summariseDynamic, type SeriesReport } from
 import type { PhaseSegment } from '../lib/dynamic/phases';
 import { VideoError } from '../lib/dynamic/node/ffmpeg';
 import { SeriesInputError, openSeries } from '../lib/dynamic/node/source';
+import { runCli } from './support/run-cli';
 
 const METHODS: readonly FitMethod[] = ['circle', 'polynomial', 'ellipse', 'young-laplace'];
 
@@ -161,12 +162,4 @@ async function main(): Promise<number> {
   }
 }
 
-main().then(
-  (code) => {
-    process.exitCode = code;
-  },
-  (error: unknown) => {
-    process.stderr.write(`${error instanceof Error ? error.stack : String(error)}\n`);
-    process.exitCode = 1;
-  },
-);
+runCli(main);

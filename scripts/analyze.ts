@@ -19,6 +19,7 @@ import {
   type FitMethod,
 } from '../lib/analysis';
 import { decodeImageFile, DecodeError } from '../lib/analysis/node/decode';
+import { runCli } from './support/run-cli';
 
 interface CliOptions {
   method: FitMethod;
@@ -162,12 +163,4 @@ async function main(): Promise<number> {
   return failed ? 1 : 0;
 }
 
-main().then(
-  (code) => {
-    process.exitCode = code;
-  },
-  (error: unknown) => {
-    process.stderr.write(`${error instanceof Error ? error.stack : String(error)}\n`);
-    process.exitCode = 1;
-  },
-);
+runCli(main);

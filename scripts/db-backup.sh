@@ -5,12 +5,7 @@
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 
-cleanup() {
-  trap - EXIT INT TERM
-  stop_postgres
-}
-trap cleanup EXIT
-trap 'exit 130' INT TERM
+stop_all_on_exit
 
 ensure_node_modules
 ensure_postgres >&2

@@ -162,7 +162,7 @@ migrate() {
   (cd "$ROOT" && npx --no-install tsx scripts/migrate.ts) || die "migrations failed"
 }
 
-# Starts a background service and remembers its pid so cleanup stops it.
+# Starts a background service and remembers its pid so stop_services stops it.
 start_service() {
   local name="$1"; shift
   log "starting $name"
@@ -179,6 +179,13 @@ wait_for_url() {
     sleep 0.5
   done
   die "$name did not answer at $url; see .data/$name.log"
+}
+
+# Stops what the script started (its services, if any, and PostgreSQL) when it ends, fails or is
+# interrupted.
+stop_all_on_exit() {
+  trap 'trap - EXIT INT TERM; stop_services; stop_postgres' EXIT
+  trap 'exit 130' INT TERM
 }
 
 stop_services() {

@@ -9,13 +9,7 @@ MODE="production"
 export PORT="${PORT:-3000}"
 export APP_URL="${APP_URL:-http://127.0.0.1:$PORT}"
 
-cleanup() {
-  trap - EXIT INT TERM
-  stop_services
-  stop_postgres
-}
-trap cleanup EXIT
-trap 'exit 130' INT TERM
+stop_all_on_exit
 
 ensure_node_modules
 ensure_ffmpeg

@@ -9,13 +9,7 @@ export TEST_PORT="${TEST_PORT:-3100}"
 export E2E_BASE_URL="http://127.0.0.1:$TEST_PORT"
 export CHROMIUM_PATH="${CHROMIUM_PATH:-/usr/bin/chromium}"
 
-cleanup() {
-  trap - EXIT INT TERM
-  stop_services
-  stop_postgres
-}
-trap cleanup EXIT
-trap 'exit 130' INT TERM
+stop_all_on_exit
 
 step() { printf '\n\033[1;35m==> %s\033[0m\n' "$*"; }
 

@@ -3,6 +3,12 @@ import { listQueryToSearchParams, searchParamsToObject } from '@/lib/contracts/c
 
 export type PageSearchParams = Record<string, string | string[] | undefined>;
 
+/** What Next.js hands a record's own page (`/batches/[id]`): its id and the list state in the URL. */
+export type RecordPageProps = {
+  params: Promise<{ id: string }>;
+  searchParams: Promise<PageSearchParams>;
+};
+
 /**
  * A page's list query from its URL. A bad parameter (hand-edited link) falls back to the
  * default for that parameter instead of failing the page.

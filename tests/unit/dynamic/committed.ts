@@ -6,6 +6,9 @@ import { decodeImageFile } from '@/lib/analysis/node/decode';
 
 export const ROOT = path.resolve(__dirname, '../../..');
 
+/** The phases of a drop grown and withdrawn through the needle left in it, in order. */
+export const NEEDLE_IN_PHASES = ['pinned', 'advancing', 'pinned', 'receding'];
+
 export interface CommittedManifest {
   fps: number;
   frameCount: number;

@@ -13,6 +13,7 @@ import {
   type NeedleFrameTruth,
   type SeriesFrame as RenderedFrame,
 } from '@/fixtures/generator/series';
+import { NEEDLE_IN_PHASES } from './committed';
 
 let cv: OpenCv;
 let rendered: RenderedFrame<NeedleFrameTruth>[];
@@ -69,12 +70,7 @@ describe('needle-in series, Young–Laplace', () => {
 
   it('finds the pinned, advancing, pinned, receding phases where the generator put them', () => {
     const summary = summariseDynamic(frames);
-    expect(summary.phases.segments.map((s) => s.kind)).toEqual([
-      'pinned',
-      'advancing',
-      'pinned',
-      'receding',
-    ]);
+    expect(summary.phases.segments.map((s) => s.kind)).toEqual(NEEDLE_IN_PHASES);
     // The contact line moves from the first frame after the growth (withdrawal) turned it loose;
     // the boundary may fall one frame either way.
     const movingFrames = (phase: 'advancing' | 'receding') =>

@@ -16,6 +16,7 @@ import {
   windowStats,
   type SeriesFrame,
 } from '@/lib/dynamic';
+import { NEEDLE_IN_PHASES } from './committed';
 
 function gaussian(seed: string): () => number {
   const uniform = seedrandom(seed);
@@ -82,12 +83,7 @@ describe('phase detection on noisy base-diameter curves', () => {
       for (const seed of ['a', 'b', 'c', 'd', 'e', 'f']) {
         const { truth, base } = needleCurve([20, 40, 25, 40], speed, noise, `${noise}-${seed}`);
         const found = detectPhases(framesOf(base));
-        expect(found.segments.map((s) => s.kind)).toEqual([
-          'pinned',
-          'advancing',
-          'pinned',
-          'receding',
-        ]);
+        expect(found.segments.map((s) => s.kind)).toEqual(NEEDLE_IN_PHASES);
         const boundaries = [20, 60, 85];
         found.segments.slice(1).forEach((s, k) => {
           expect(Math.abs(s.fromIndex - boundaries[k])).toBeLessThanOrEqual(tolerance);
@@ -134,12 +130,7 @@ describe('phase detection on noisy base-diameter curves', () => {
     const withGaps: (number | null)[] = base.map((b, i) => (i % 17 === 5 ? null : b));
     const frames = framesOf(withGaps);
     const found = detectPhases(frames);
-    expect(found.segments.map((s) => s.kind)).toEqual([
-      'pinned',
-      'advancing',
-      'pinned',
-      'receding',
-    ]);
+    expect(found.segments.map((s) => s.kind)).toEqual(NEEDLE_IN_PHASES);
     expect(found.baseRatePxPerSec[5]).toBeNull();
     const summary = summariseDynamic(frames);
     const failed = summary.warnings.find((w) => w.code === 'frames-failed');

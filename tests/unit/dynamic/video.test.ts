@@ -14,7 +14,7 @@ import { decodeImageFile } from '@/lib/analysis/node/decode';
 import { analyseSeries, summariseDynamic } from '@/lib/dynamic';
 import { VideoError, decodeVideoFrames, probeVideo } from '@/lib/dynamic/node/ffmpeg';
 import { VIDEO_EXTENSION, writeVideo, type VideoFormat } from '@/fixtures/generator/series-video';
-import { ROOT, committedSeries } from './committed';
+import { NEEDLE_IN_PHASES, ROOT, committedSeries } from './committed';
 
 const series = committedSeries('needle-in');
 const manifest = series.manifest;
@@ -62,12 +62,7 @@ describe('video round trip', () => {
 
       const frames = await analyseSeries(cv, decoded, { method: 'young-laplace' });
       const summary = summariseDynamic(frames);
-      expect(summary.phases.segments.map((s) => s.kind)).toEqual([
-        'pinned',
-        'advancing',
-        'pinned',
-        'receding',
-      ]);
+      expect(summary.phases.segments.map((s) => s.kind)).toEqual(NEEDLE_IN_PHASES);
       expect(Math.abs(summary.advancing!.meanDeg - manifest.expected.advancingDeg)).toBeLessThan(
         0.5,
       );

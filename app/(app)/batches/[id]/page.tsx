@@ -6,7 +6,7 @@ import { BatchForm } from '@/components/records/batches';
 import {
   listQueryFromPage,
   listTableProps,
-  type PageSearchParams,
+  type RecordPageProps,
 } from '@/components/records/list-query';
 import { RecordPageHeader, RecordSection } from '@/components/records/record-pages';
 import { BatchDropsTable, SamplesPanel } from '@/components/records/samples';
@@ -19,13 +19,7 @@ import { sampleListQuerySchema } from '@/lib/contracts/samples';
 
 export const metadata: Metadata = { title: 'Batch' };
 
-export default async function Page({
-  params,
-  searchParams,
-}: {
-  params: Promise<{ id: string }>;
-  searchParams: Promise<PageSearchParams>;
-}) {
+export default async function Page({ params, searchParams }: RecordPageProps) {
   const ctx = await requirePage('organization:read');
   const { id } = await params;
   const sampleQuery = {

@@ -9,7 +9,7 @@ import {
   exportHref,
   listQueryFromPage,
   listTableProps,
-  type PageSearchParams,
+  type RecordPageProps,
 } from '@/components/records/list-query';
 import { RecordPageHeader, RecordSection } from '@/components/records/record-pages';
 import { SpecsPanel } from '@/components/records/specs';
@@ -21,13 +21,7 @@ import { specListQuerySchema } from '@/lib/contracts/specs';
 
 export const metadata: Metadata = { title: 'Coating' };
 
-export default async function Page({
-  params,
-  searchParams,
-}: {
-  params: Promise<{ id: string }>;
-  searchParams: Promise<PageSearchParams>;
-}) {
+export default async function Page({ params, searchParams }: RecordPageProps) {
   const ctx = await requirePage('organization:read');
   const { id } = await params;
   const batchQuery = {
