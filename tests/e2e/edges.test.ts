@@ -92,7 +92,9 @@ describe('security headers', () => {
   }
 
   it('the measurement workspace still analyses a photo in Chromium under the policy', async () => {
-    const { browser, page, violations } = await watchedPage('analyst@kestrel.example');
+    // As the admin: the photo stays in its uploader's strip, waiting for a sample, and the
+    // analyst's strip belongs to tests/e2e/measure.test.ts.
+    const { browser, page, violations } = await watchedPage('admin@kestrel.example');
     try {
       await page.goto(`${BASE_URL}/measure`);
       await page
