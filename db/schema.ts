@@ -503,6 +503,7 @@ export const reviewOutcomeEnum = pgEnum('review_outcome', [
   'approved',
   'rejected',
   'withdrawn',
+  'revoked',
 ]);
 
 export const reviews = pgTable(
@@ -527,10 +528,38 @@ export const reviews = pgTable(
     decisionComment: text('decision_comment').notNull().default(''),
     /** Who signed, when, how, and a digest of exactly what was signed. */
     signature: jsonb('signature').$type<Signature | null>(),
+    /** An approval withdrawn later: only by an explicit revocation with its reason. */
+    revokedByUserId: userRef('revoked_by_user_id'),
+    revokedAt: timestamp('revoked_at', { withTimezone: true }),
+    revokeReason: text('revoke_reason').notNull().default(''),
   },
   (t) => [
     index('reviews_org_status_idx').on(t.organizationId, t.status, t.submittedAt),
     index('reviews_batch_idx').on(t.batchId),
+  ],
+);
+
+/**
+ * The analysis revisions of each review, one row each. `open` is true while the review waits
+ * for its decision; the partial unique index keeps an analysis in at most one open review, so
+ * two simultaneous submissions can never both take the same results.
+ */
+export const reviewItems = pgTable(
+  'review_items',
+  {
+    reviewId: text('review_id')
+      .notNull()
+      .references(() => reviews.id, { onDelete: 'cascade' }),
+    analysisId: text('analysis_id')
+      .notNull()
+      .references(() => analyses.id, { onDelete: 'cascade' }),
+    open: boolean('open').notNull().default(true),
+  },
+  (t) => [
+    primaryKey({ columns: [t.reviewId, t.analysisId] }),
+    uniqueIndex('review_items_open_analysis_unique')
+      .on(t.analysisId)
+      .where(sql`${t.open}`),
   ],
 );
 

@@ -44,6 +44,8 @@ export const ERROR_CODES = [
   'nothing_to_submit',
   'already_decided',
   'results_changed',
+  'own_review',
+  'not_approved',
   // Computation: surface energy, tensiometry, the drop-analysis engine
   'no_angles',
   'nothing_computed',
@@ -53,6 +55,8 @@ export const ERROR_CODES = [
   'baseline_not_found',
   'fit_failed',
   'bad_input',
+  // Drop saves
+  'stale_revision',
   // The server itself
   'database_unreachable',
   'internal',
