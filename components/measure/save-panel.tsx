@@ -3,7 +3,7 @@
 import { useMemo } from 'react';
 import { SelectField } from '@/components/ui/fields';
 import type { SampleChoice } from './types';
-import type { SaveMessage } from './use-save-drops';
+import type { SaveMessage, StaleSave } from './use-save-drops';
 
 /** Which sample the drops go to, and the save buttons with their progress and outcome. */
 export function SavePanel({
@@ -17,6 +17,8 @@ export function SavePanel({
   message,
   onSaveOne,
   onSaveAll,
+  stale = [],
+  onReload,
 }: {
   samples: SampleChoice[];
   sampleId: string;
@@ -28,6 +30,9 @@ export function SavePanel({
   message: SaveMessage | null;
   onSaveOne: () => void;
   onSaveAll: () => void;
+  /** Saves refused because the drop was saved since it was loaded. */
+  stale?: StaleSave[];
+  onReload?: (entry: StaleSave) => void;
 }) {
   const byCoating = useMemo(() => {
     const groups = new Map<string, SampleChoice[]>();
@@ -96,6 +101,22 @@ export function SavePanel({
           {message.text}
         </p>
       ) : null}
+      {stale.map((entry) => (
+        <div
+          key={entry.photoId}
+          role="alert"
+          data-testid="stale-save"
+          className="space-y-2 rounded-md border border-amber-100 bg-amber-50 px-3 py-2 text-sm text-amber-900"
+        >
+          <p>
+            {entry.photoName} was saved as revision {entry.current} by another tab or person since
+            you loaded it. Your analysis was not saved.
+          </p>
+          <button type="button" className="btn-quiet" onClick={() => onReload?.(entry)}>
+            Reload revision {entry.current}
+          </button>
+        </div>
+      ))}
     </section>
   );
 }

@@ -36,6 +36,8 @@ type WorkspaceState = {
   setResult(id: string, result: AnalysisResult): void;
   setBaseline(id: string, baseline: Baseline | null): void;
   markSaved(id: string, revision: number): void;
+  /** After a stale save: the next save is based on `revision`; the user's work stays. */
+  rebase(id: string, revision: number): void;
   removePhoto(id: string): void;
 };
 
@@ -86,6 +88,10 @@ export const useWorkspace = create<WorkspaceState>((set) => ({
       photos: state.photos.map((p) =>
         p.id === id ? { ...p, savedRevision: revision, dirty: false } : p,
       ),
+    })),
+  rebase: (id, revision) =>
+    set((state) => ({
+      photos: state.photos.map((p) => (p.id === id ? { ...p, savedRevision: revision } : p)),
     })),
   removePhoto: (id) =>
     set((state) => {

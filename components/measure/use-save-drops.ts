@@ -1,6 +1,7 @@
 'use client';
 
 import { useState } from 'react';
+import { ApiError } from '@/components/data/api-error';
 import { useMutation, type MutationResult } from '@/components/data/use-mutation';
 import type { FitMethod } from '@/lib/analysis/types';
 import { measurementSessionReplies } from '@/lib/contracts/measurement-sessions';
@@ -8,6 +9,16 @@ import { useWorkspace, type WorkspacePhoto } from './store';
 import { scaleOf, type SessionDetails } from './types';
 
 export type SaveMessage = { kind: 'ok' | 'error'; text: string };
+
+/** A save refused because the drop was saved since it was loaded: the revision it has now. */
+export type StaleSave = { photoId: string; photoName: string; current: number };
+
+/** The latest revision a 409 stale_revision names, or null for any other error. */
+function staleRevisionOf(error: unknown): number | null {
+  if (!(error instanceof ApiError) || error.code !== 'stale_revision') return null;
+  const current = error.extra.current as { revision?: unknown } | undefined;
+  return typeof current?.revision === 'number' ? current.revision : null;
+}
 
 const must = <T>(result: MutationResult<T>): T => {
   if (!result.ok) throw result.error;
@@ -34,6 +45,9 @@ export function useSaveDrops({
   onSaved: () => Promise<unknown>;
 }) {
   const markSaved = useWorkspace((state) => state.markSaved);
+  const rebase = useWorkspace((state) => state.rebase);
+  const select = useWorkspace((state) => state.select);
+  const [stale, setStale] = useState<StaleSave[]>([]);
   const send = useMutation();
   const [message, setMessage] = useState<SaveMessage | null>(null);
   const [saving, setSaving] = useState(false);
@@ -74,11 +88,35 @@ export function useSaveDrops({
           method,
           baseline: photo.baseline,
           scalePxPerMm: scale,
+          expectedRevision: photo.savedRevision ?? 0,
         },
       }),
     ) as { revision: number };
+    setStale((list) => list.filter((s) => s.photoId !== photo.id));
     markSaved(photo.id, saved.revision);
     return saved.revision;
+  }
+
+  /** Notes a stale save so the workspace can offer to reload that drop's current revision. */
+  function noteStale(photo: WorkspacePhoto, error: unknown) {
+    const current = staleRevisionOf(error);
+    if (current === null) return;
+    setStale((list) => [
+      ...list.filter((s) => s.photoId !== photo.id),
+      { photoId: photo.id, photoName: photo.name, current },
+    ]);
+  }
+
+  /** Takes the drop's current revision as the base of the next save and shows it. */
+  async function reloadCurrent(entry: StaleSave) {
+    rebase(entry.photoId, entry.current);
+    select(entry.photoId);
+    setStale((list) => list.filter((s) => s.photoId !== entry.photoId));
+    setMessage({
+      kind: 'ok',
+      text: `Revision ${entry.current} of ${entry.photoName} is loaded in Saved revisions. Saving again makes your analysis revision ${entry.current + 1}.`,
+    });
+    await onSaved();
   }
 
   function problemBeforeSave(): string | null {
@@ -108,7 +146,14 @@ export function useSaveDrops({
 
   const saveOne = (photo: WorkspacePhoto) =>
     guarded(async () => {
-      const revision = await savePhoto(photo, await ensureSession());
+      const sessionId = await ensureSession();
+      let revision: number;
+      try {
+        revision = await savePhoto(photo, sessionId);
+      } catch (error) {
+        noteStale(photo, error);
+        throw error;
+      }
       await onSaved();
       return { kind: 'ok', text: `Saved as revision ${revision}.` };
     });
@@ -123,6 +168,7 @@ export function useSaveDrops({
         try {
           await savePhoto(photo, sessionId);
         } catch (error) {
+          noteStale(photo, error);
           failures.push(`${photo.name}: ${error instanceof Error ? error.message : 'not saved'}`);
         }
         setProgress({ done: i + 1, total: toSave.length });
@@ -136,5 +182,5 @@ export function useSaveDrops({
         : { kind: 'ok', text: `Saved ${toSave.length} drop${toSave.length === 1 ? '' : 's'}.` };
     });
 
-  return { saveOne, saveAll, saving, progress, message };
+  return { saveOne, saveAll, saving, progress, message, stale, reloadCurrent };
 }

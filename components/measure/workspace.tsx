@@ -136,6 +136,8 @@ export function MeasureWorkspace(props: {
           message={saving.message}
           onSaveOne={() => selected && void saving.saveOne(selected)}
           onSaveAll={() => void saving.saveAll(photos)}
+          stale={saving.stale}
+          onReload={(entry) => void saving.reloadCurrent(entry)}
         />
         <RevisionsPanel drop={saved.drop} error={saved.error} />
       </aside>

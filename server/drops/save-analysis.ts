@@ -31,6 +31,13 @@ const missing = (field: string, what: string) =>
     fields: { [field]: `Choose a ${what.toLowerCase()} of this organization.` },
   });
 
+const staleRevision = (current: number) =>
+  new AppError(
+    'stale_revision',
+    `This drop was saved as revision ${current} since you loaded it (by another tab or person). Nothing was saved: reload revision ${current}, check it, then save again.`,
+    { extra: { current: { revision: current } } },
+  );
+
 /** The sample, probe liquid and session a save names must be this organization's. */
 async function checkReferences(tx: Transaction, actor: Actor, input: SaveDropAnalysisInput) {
   const org = actor.organizationId;
@@ -126,6 +133,9 @@ export async function saveDropAnalysis(
       });
     }
     const revision = existing ? await nextRevision(tx, dropId) : 1;
+    // Under the photo's lock: a save based on an older revision (another tab, another user, a
+    // simultaneous save) would silently pass over the one saved in between.
+    if (revision - 1 !== input.expectedRevision) throw staleRevision(revision - 1);
     const analysisId = newId();
     await insertDropsAndAnalyses(tx, newDrop, [
       engineAnalysisRow({
@@ -135,7 +145,10 @@ export async function saveDropAnalysis(
         revision,
         method: input.method,
         baseline: input.baseline,
-        options: { scalePxPerMm: input.scalePxPerMm ?? null, baselineSource: result.baselineSource },
+        options: {
+          scalePxPerMm: input.scalePxPerMm ?? null,
+          baselineSource: result.baselineSource,
+        },
         result,
         createdByUserId: actor.userId,
       }),

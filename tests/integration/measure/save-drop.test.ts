@@ -73,6 +73,7 @@ describe('saving a drop analysis', () => {
       probeLiquidId: 'liquid-water',
       method: 'circle',
       baseline,
+      expectedRevision: 0,
     });
     expect(response.status).toBe(201);
     const saved = await response.json();
@@ -84,7 +85,7 @@ describe('saving a drop analysis', () => {
   });
 
   it('every later save is a new revision; earlier ones are kept', async () => {
-    const second = await save(analyst.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'young-laplace', baseline: null });
+    const second = await save(analyst.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'young-laplace', baseline: null, expectedRevision: 1 });
     expect((await second.json()).revision).toBe(2);
     const listed = await GET(apiRequest(`/api/photos/${photoId}/drop`, { sessionId: analyst.sessionId }), {
       params: Promise.resolve({ id: photoId }),
@@ -98,7 +99,7 @@ describe('saving a drop analysis', () => {
 
   it('refuses viewers and reviewers (403) and names a bad field (400)', async () => {
     for (const member of [viewer, reviewer]) {
-      const refused = await save(member.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null });
+      const refused = await save(member.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null, expectedRevision: 2 });
       expect(refused.status).toBe(403);
     }
     const invalid = await save(analyst.sessionId, { sampleId: '', probeLiquidId: 'liquid-water', method: 'guess', baseline: null });
@@ -110,7 +111,41 @@ describe('saving a drop analysis', () => {
   it('a sample of another organization is not found', async () => {
     const other = await createOrganization();
     const outsider = await createMember(other.id, 'analyst');
-    const response = await save(outsider.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null });
+    const response = await save(outsider.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null, expectedRevision: 0 });
     expect(response.status).toBe(404);
   });
+
+  it('a stale save (based on an older revision) is refused with the current one; nothing is added', async () => {
+    const body = { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null };
+    for (const expectedRevision of [0, 1]) {
+      const stale = await save(analyst.sessionId, { ...body, expectedRevision });
+      expect(stale.status).toBe(409);
+      const reply = await stale.json();
+      expect(reply.error.code).toBe('stale_revision');
+      expect(reply.current).toEqual({ revision: 2 });
+      expect(reply.error.message).toMatch(/reload revision 2/);
+    }
+    const missing = await save(analyst.sessionId, body);
+    expect(missing.status).toBe(400);
+    expect((await missing.json()).error.fields.expectedRevision).toMatch(/based on/);
+    expect(await revisionsOfPhoto()).toEqual([2, 1]);
+  });
+
+  it('two simultaneous saves of one drop make exactly one revision; the other is told it is stale', async () => {
+    const body = { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null, expectedRevision: 2 };
+    const replies = await Promise.all([save(analyst.sessionId, body), save(analyst.sessionId, body)]);
+    expect(replies.map((r) => r.status).sort()).toEqual([201, 409]);
+    const refused = await replies.find((r) => r.status === 409)!.json();
+    expect(refused.error.code).toBe('stale_revision');
+    expect(refused.current).toEqual({ revision: 3 });
+    expect(await revisionsOfPhoto()).toEqual([3, 2, 1]);
+  });
 });
+
+async function revisionsOfPhoto(): Promise<number[]> {
+  const listed = await GET(apiRequest(`/api/photos/${photoId}/drop`, { sessionId: analyst.sessionId }), {
+    params: Promise.resolve({ id: photoId }),
+  });
+  const { drop } = await listed.json();
+  return drop.revisions.map((r: { revision: number }) => r.revision);
+}
