@@ -8,6 +8,7 @@ import type {
 } from '@/lib/contracts/compare';
 import { getDb } from '../client';
 import { batches, coatings, probeLiquids, specs } from '../schema';
+import { andVisibleStatus, type ResultVisibility } from './visibility';
 
 /** Batches compared when none are chosen: the coating's newest ones. */
 export const DEFAULT_BATCH_COUNT = 12;
@@ -87,16 +88,15 @@ type DropSqlRow = {
 const iso = (v: Date | string) => (v instanceof Date ? v : new Date(v)).toISOString();
 
 /**
- * Every live drop of the given batches with its latest analysis (highest revision). With
- * `approvedOnly` a drop counts only when that latest revision is approved — a newer draft
- * replaces an approved result until it is approved in turn. One query; the lateral subquery
+ * Every live drop of the given batches with its latest analysis (highest revision), as
+ * `visibility` allows (db/queries/visibility.ts). One query; the lateral subquery
  * walks analyses_drop_revision_unique (drop_id, revision) backwards, drops come through
  * drops_sample_idx and samples through samples_batch_label_unique.
  */
 export async function comparisonDrops(
   organizationId: string,
   batchIds: readonly string[],
-  options: { approvedOnly: boolean },
+  options: { visibility: ResultVisibility },
 ): Promise<ComparisonDropRow[]> {
   if (batchIds.length === 0) return [];
   const ids = sql.join(
@@ -123,7 +123,7 @@ export async function comparisonDrops(
     where b.organization_id = ${organizationId}
       and b.id in (${ids})
       and b.archived_at is null
-      ${options.approvedOnly ? sql`and a.review_status = 'approved'` : sql``}
+      ${andVisibleStatus(options.visibility, sql`a.review_status`)}
     order by b.produced_on, b.lot_code, s.label, d.measured_at, d.id
   `);
   return rows.map((r) => ({
@@ -154,7 +154,7 @@ export async function comparisonDrops(
 export async function loadComparison(
   organizationId: string,
   coatingId: string,
-  options: { batches?: readonly string[]; approvedOnly: boolean },
+  options: { batches?: readonly string[]; visibility: ResultVisibility },
 ): Promise<Omit<ComparisonData, 'coating'>> {
   const db = getDb();
   const [allBatches, specRows] = await Promise.all([
@@ -199,7 +199,7 @@ export async function loadComparison(
   const drops = await comparisonDrops(
     organizationId,
     chosen.map((b) => b.id),
-    { approvedOnly: options.approvedOnly },
+    { visibility: options.visibility },
   );
   const liquidIds = [
     ...new Set([...drops.map((d) => d.probeLiquidId), ...specRows.map((s) => s.probeLiquidId)]),

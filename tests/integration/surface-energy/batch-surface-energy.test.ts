@@ -151,7 +151,7 @@ describe('POST /api/batches/[id]/surface-energy', () => {
 
 describe('surface-energy verdict of the comparison', () => {
   it('loads the liquids’ components and the limit, and fails the batch below 48 mN/m', async () => {
-    const data = await loadComparison(lab.id, coatingId, { approvedOnly: true });
+    const data = await loadComparison(lab.id, coatingId, { visibility: 'approved' });
     expect(data.specs[0].minSurfaceEnergyMnM).toBe(48);
     expect(data.liquids.find((l) => l.id === 'liquid-water')).toMatchObject({
       gammaTotal: 72.8,
