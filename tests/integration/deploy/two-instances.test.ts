@@ -6,9 +6,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
 import { newId } from '@/db/queries/ids';
 import { analyses, drops, reviews } from '@/db/schema';
-import { recordUploadedPhoto } from '@/server/photos/record-upload';
 import { createMember, createOrganization } from '../support/fixtures';
-import { insertBatch, insertCoating, insertDrop, insertSample } from '../support/seed';
+import { insertBatch, insertCoating, insertDrop, insertPhotoWithBytes, insertSample } from '../support/seed';
 import { ensureLibrary } from '../records/helpers';
 import { mailJobsTo } from '../team/support';
 
@@ -101,22 +100,7 @@ describe.skipIf(!FIRST)('two web instances on one database', () => {
     const coatingId = await insertCoating(lab.id, `TD-${newId().slice(0, 5)}`);
     const batchId = await insertBatch(lab.id, coatingId, 'L-DROP');
     const sampleId = await insertSample(lab.id, batchId, 'S1');
-    const bytes = await readFile(FIXTURE);
-    const { photoId } = await recordUploadedPhoto({
-      organizationId: lab.id,
-      uploadedByUserId: analyst.userId,
-      fileKey: `test-${newId()}`,
-      url: 'http://127.0.0.1:9/unused',
-      originalName: 'cap-60-noisy.png',
-      sizeBytes: bytes.length,
-      format: 'png',
-      width: 640,
-      height: 480,
-      bitDepth: 8,
-      sha256: 'test',
-      thumbnailPng: bytes,
-      workingPng: bytes,
-    });
+    const photoId = await insertPhotoWithBytes(lab.id, analyst.userId, await readFile(FIXTURE));
     const body = { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null, expectedRevision: 0 };
     const replies = await Promise.all(
       [FIRST!, SECOND].map((base) => send(base, analyst.sessionId, `/api/photos/${photoId}/drop`, body)),

@@ -4,7 +4,6 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
 import { ensureProbeLiquidLibrary } from '@/db/probe-liquid-library';
 import { newId } from '@/db/queries/ids';
-import { recordUploadedPhoto } from '@/server/photos/record-upload';
 import { auditEvents, batches, coatings, samples } from '@/db/schema';
 import { GET, POST } from '@/app/api/photos/[id]/drop/route';
 import { analyseDrop } from '@/lib/analysis';
@@ -12,6 +11,7 @@ import { decodeImageBytes } from '@/lib/analysis/node/decode';
 import { eq } from 'drizzle-orm';
 import { apiRequest } from '../support/request';
 import { createMember, createOrganization } from '../support/fixtures';
+import { insertPhotoWithBytes } from '../support/seed';
 
 const FIXTURE = path.resolve(__dirname, '../../../fixtures/drops/cap-60-noisy.png');
 let lab: { id: string };
@@ -36,22 +36,7 @@ beforeAll(async () => {
   await db.insert(batches).values({ id: batchId, organizationId: lab.id, coatingId, lotCode: 'L-1', producedOn: '2026-11-01' });
   await db.insert(samples).values({ id: sampleId, organizationId: lab.id, batchId, label: 'S1' });
   bytes = await readFile(FIXTURE);
-  // The photo's bytes are kept in the row (as for a TIFF's PNG copy), so no upload service is needed.
-  ({ photoId } = await recordUploadedPhoto({
-    organizationId: lab.id,
-    uploadedByUserId: analyst.userId,
-    fileKey: `test-${newId()}`,
-    url: 'http://127.0.0.1:9/unused',
-    originalName: 'cap-60-noisy.png',
-    sizeBytes: bytes.length,
-    format: 'png',
-    width: 640,
-    height: 480,
-    bitDepth: 8,
-    sha256: 'test',
-    thumbnailPng: bytes,
-    workingPng: bytes,
-  }));
+  photoId = await insertPhotoWithBytes(lab.id, analyst.userId, bytes);
 });
 
 afterAll(async () => {
