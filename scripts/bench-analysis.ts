@@ -50,33 +50,35 @@ const mb = (bytes: number) => `${(bytes / 1048576).toFixed(1)} MB`;
 const ms = (value: number) => value.toFixed(1).padStart(9);
 const ratio = (value: number) => value.toFixed(2).padStart(8);
 
+/**
+ * Times the reference pass and every method on each photo in turn (interleaved, so a machine
+ * busy with other work slows them alike), after one warm-up round.
+ */
 function timeSet(cv: OpenCv, label: string, images: GrayImage[], repeats: number) {
-  for (const image of images) referencePass(cv, image);
-  const reference = median(
-    images.flatMap((image) => Array.from({ length: repeats * 3 }, () => referencePass(cv, image))),
-  );
+  const reference: number[] = [];
+  const times = new Map<string, number[]>(FIT_METHODS.map((m) => [m, []]));
+  for (let round = 0; round <= repeats; round++) {
+    for (const image of images) {
+      const ref = [referencePass(cv, image), referencePass(cv, image)];
+      for (const method of FIT_METHODS) {
+        const started = performance.now();
+        analyseDropWith(cv, image, { method });
+        if (round > 0) times.get(method)!.push(performance.now() - started);
+      }
+      if (round > 0) reference.push(...ref);
+    }
+  }
+  const ref = median(reference);
   const { width, height } = images[0];
   process.stdout.write(
     `\n${label}: ${images.length} photos ${width}×${height}, ${repeats} warm runs each\n` +
-      `reference (blur 5×5 + Canny 50/150 L1): median ${reference.toFixed(2)} ms\n\n` +
+      `reference (blur 5×5 + Canny 50/150 L1): median ${ref.toFixed(2)} ms\n\n` +
       `${'method'.padEnd(14)} ${'median ms'.padStart(9)} ${'× ref'.padStart(8)}\n`,
   );
-  const rows: Array<{ method: string; whole: number }> = [];
   for (const method of FIT_METHODS) {
-    for (const image of images) analyseDropWith(cv, image, { method });
-    const times: number[] = [];
-    for (let r = 0; r < repeats; r++) {
-      for (const image of images) {
-        const started = performance.now();
-        analyseDropWith(cv, image, { method });
-        times.push(performance.now() - started);
-      }
-    }
-    const whole = median(times);
-    rows.push({ method, whole });
-    process.stdout.write(`${method.padEnd(14)} ${ms(whole)} ${ratio(whole / reference)}\n`);
+    const m = median(times.get(method)!);
+    process.stdout.write(`${method.padEnd(14)} ${ms(m)} ${ratio(m / ref)}\n`);
   }
-  return { reference, rows };
 }
 
 async function main() {

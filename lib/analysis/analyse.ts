@@ -1,15 +1,21 @@
 /**
- * The drop-analysis entry point: grayscale pixels in, contact angles with uncertainty out.
+ * The drop-analysis entry points: grayscale pixels in, contact angles with uncertainty out.
  * Pure TypeScript plus OpenCV (wasm); runs unchanged in a worker, in Node and in tests.
+ *
+ * Two stages, so that a new baseline or method re-uses the detected edges:
+ * `detectDrop` (pixels → edge maps, contours, automatic baseline; once per photo) and
+ * `measureDrop` (detection + method + baseline → result). `analyseDropWith` does both.
  */
 import { fittedCurve } from './profile-curve';
 import { loadOpenCv, type OpenCv } from './opencv';
-import { toFloatImage, validateImage } from './image';
-import { computeEdgeMaps, detectBaseline, detectMirrorBaseline, extractProfile } from './detect';
+import { pixelImage, validateImage, type PixelImage } from './image';
+import { computeEdgeMaps, detectBaseline, detectMirrorBaseline, type EdgeMaps } from './detect';
+import { DropOutline } from './outline';
 import { BaselineFrame } from './frame';
 import { fitterFor } from './fits';
 import { rms, type FramePoints, type ProfileFit, type ProfileFitter } from './fits/types';
 import { angleStandardErrors } from './uncertainty';
+import { resolveSettings, type AnalysisSettings } from './settings';
 import {
   AnalysisError,
   DEFAULT_METHOD,
@@ -23,6 +29,21 @@ import {
 
 const now = (): number => (typeof performance !== 'undefined' ? performance.now() : Date.now());
 
+/** What `detectDrop` finds in a photo; independent of the method and of a given baseline. */
+export interface DropDetection {
+  readonly image: PixelImage;
+  readonly offsetX: number;
+  readonly offsetY: number;
+  readonly settings: AnalysisSettings;
+  readonly maps: EdgeMaps;
+  readonly outline: DropOutline;
+  /** The substrate line (or the mirror neck), in region-of-interest pixels; null if none shows. */
+  readonly automaticBaseline: Baseline | null;
+  readonly automaticFromMirror: boolean;
+  readonly lowContrast: boolean;
+  readonly timeMs: number;
+}
+
 /** Loads OpenCV (once) and analyses one drop photo. */
 export async function analyseDrop(
   image: GrayImage,
@@ -30,6 +51,52 @@ export async function analyseDrop(
 ): Promise<AnalysisResult> {
   const { cv } = await loadOpenCv();
   return analyseDropWith(cv, image, options);
+}
+
+/** Analysis with an already loaded OpenCV instance (the worker and the CLI keep one). */
+export function analyseDropWith(
+  cv: OpenCv,
+  input: GrayImage,
+  options: AnalyseOptions = {},
+): AnalysisResult {
+  const started = now();
+  const detection = detectDrop(cv, input, options);
+  const result = measureDrop(detection, options);
+  result.timeMs = now() - started;
+  return result;
+}
+
+/** Edge maps, contours and the automatic baseline of one photo (region of interest). */
+export function detectDrop(
+  cv: OpenCv,
+  input: GrayImage,
+  options: Pick<AnalyseOptions, 'roi' | 'settings'> = {},
+): DropDetection {
+  const started = now();
+  validateImage(input);
+  const settings = resolveSettings(options.settings);
+  const { image, offsetX, offsetY } = pixelImage(input, options.roi);
+  const maps = computeEdgeMaps(cv, image, settings);
+  const contrast = maps.brightLevel - maps.darkLevel;
+  let automaticBaseline = detectBaseline(maps, image, settings);
+  let automaticFromMirror = false;
+  if (!automaticBaseline) {
+    automaticBaseline = detectMirrorBaseline(maps, image, settings);
+    automaticFromMirror = automaticBaseline !== null;
+  }
+  return {
+    image,
+    offsetX,
+    offsetY,
+    settings,
+    maps,
+    outline: new DropOutline(maps, image, settings),
+    automaticBaseline,
+    automaticFromMirror,
+    lowContrast:
+      contrast < settings.minContrast || contrast < settings.minContrastToNoise * maps.noise,
+    timeMs: now() - started,
+  };
 }
 
 /** Points of the profile at least `margin` px above the baseline, in the baseline frame. */
@@ -55,23 +122,15 @@ function warning(code: AnalysisWarning['code'], message: string): AnalysisWarnin
   return { code, message };
 }
 
-/** Analysis with an already loaded OpenCV instance (the worker and the CLI keep one). */
-export function analyseDropWith(
-  cv: OpenCv,
-  input: GrayImage,
-  options: AnalyseOptions = {},
-): AnalysisResult {
+/** Fits the detected drop for a method and baseline (the automatic one when none is given). */
+export function measureDrop(detection: DropDetection, options: AnalyseOptions = {}): AnalysisResult {
   const started = now();
-  validateImage(input);
+  const { offsetX, offsetY, settings } = detection;
   const method = options.method ?? DEFAULT_METHOD;
   const fitter = fitterFor(method);
   if (!fitter) throw new AnalysisError('bad-input', `Unknown method "${method}".`);
-  const { image, offsetX, offsetY } = toFloatImage(input, options.roi);
   const warnings: AnalysisWarning[] = [];
-
-  const maps = computeEdgeMaps(cv, image);
-  const contrast = maps.brightLevel - maps.darkLevel;
-  if (contrast < 40 || contrast < 10 * maps.noise) {
+  if (detection.lowContrast) {
     warnings.push(
       warning(
         'low-contrast',
@@ -80,36 +139,33 @@ export function analyseDropWith(
     );
   }
 
-  let baseline: Baseline | null;
+  let baseline: Baseline;
   let baselineSource: AnalysisResult['baselineSource'];
   if (options.baseline) {
     const b = options.baseline;
     baseline = { x1: b.x1 - offsetX, y1: b.y1 - offsetY, x2: b.x2 - offsetX, y2: b.y2 - offsetY };
     baselineSource = 'given';
   } else {
-    baseline = detectBaseline(maps, image);
-    baselineSource = 'automatic';
-    if (!baseline) {
-      baseline = detectMirrorBaseline(cv, maps, image);
-      if (baseline) {
-        warnings.push(
-          warning(
-            'baseline-not-found',
-            'No substrate line was visible; the baseline was placed where the drop meets its reflection. Check it and drag it if needed.',
-          ),
-        );
-      }
-    }
-    if (!baseline) {
+    if (!detection.automaticBaseline) {
       throw new AnalysisError(
         'baseline-not-found',
         'No substrate line was found beside the drop; drag the baseline onto the substrate surface and analyse again.',
       );
     }
+    baseline = detection.automaticBaseline;
+    baselineSource = 'automatic';
+    if (detection.automaticFromMirror) {
+      warnings.push(
+        warning(
+          'baseline-not-found',
+          'No substrate line was visible; the baseline was placed where the drop meets its reflection. Check it and drag it if needed.',
+        ),
+      );
+    }
   }
   const frame = new BaselineFrame(baseline);
-  const profile = extractProfile(cv, maps, image, frame);
-  if (!profile || profile.points.length < 10) {
+  const profile = detection.outline.profileFor(frame);
+  if (!profile || profile.points.length < settings.minProfilePoints) {
     throw new AnalysisError(
       'no-drop-found',
       'No drop silhouette was found resting on the baseline.',
@@ -132,14 +188,14 @@ export function analyseDropWith(
     );
   }
 
-  const baseMargin = Math.max(3, 2.5 * profile.edgeSpread);
+  const baseMargin = Math.max(settings.fitMarginPx, settings.fitMarginPerBlur * profile.edgeSpread);
   let margin = baseMargin;
   const fitAt = (
     f: BaselineFrame,
     previous?: ProfileFit,
   ): { fit: ProfileFit; points: FramePoints } => {
     const pts = toFramePoints(profile.points, f, margin);
-    return { fit: runFit(fitter, pts, previous), points: pts };
+    return { fit: runFit(fitter, pts, settings, previous), points: pts };
   };
   let { fit, points } = fitAt(frame);
   // Above 90° the edge normal near the contact points down into the thin bright wedge between drop
@@ -156,7 +212,7 @@ export function analyseDropWith(
   let leftCount = 0;
   for (let i = 0; i < points.side.length; i++) if (points.side[i] < 0) leftCount++;
   const rightCount = points.side.length - leftCount;
-  if (leftCount < 15 || rightCount < 15) {
+  if (leftCount < settings.minEdgePointsPerSide || rightCount < settings.minEdgePointsPerSide) {
     warnings.push(
       warning(
         'too-few-edge-points',
@@ -179,8 +235,9 @@ export function analyseDropWith(
       'The fitted profile does not meet the baseline; check the baseline position.',
     );
   }
-  const up = fitAt(frame.shifted(1), fit).fit.angles();
-  const down = fitAt(frame.shifted(-1), fit).fit.angles();
+  // The fitted profile read where a baseline 1 px higher or lower would cut it.
+  const up = fit.angles(undefined, 1);
+  const down = fit.angles(undefined, -1);
   const shiftPart = (a: number, b: number, c: number) =>
     Math.sqrt(((b - a) ** 2 + (c - a) ** 2) / 2);
   const baselineShiftDeg = {
@@ -192,7 +249,11 @@ export function analyseDropWith(
   // 90° and say that this fit is not to be trusted.
   const capped = (value: number) => (Number.isFinite(value) ? Math.min(value, 90) : 90);
   const fitStandardErrorDeg = { left: capped(se.left), right: capped(se.right) };
-  if (fit.converged && (fitStandardErrorDeg.left > 30 || fitStandardErrorDeg.right > 30)) {
+  if (
+    fit.converged &&
+    (fitStandardErrorDeg.left > settings.undeterminedAngleDeg ||
+      fitStandardErrorDeg.right > settings.undeterminedAngleDeg)
+  ) {
     warnings.push(
       warning(
         'fit-did-not-converge',
@@ -253,15 +314,21 @@ export function analyseDropWith(
     edgePoints: { left, right },
     profile: fittedCurve(fit)?.map(([u, v]) => toImage(u, v)) ?? null,
     warnings,
+    settings,
     timeMs: now() - started,
   };
 }
 
-function runFit(fitter: ProfileFitter, points: FramePoints, previous?: ProfileFit): ProfileFit {
+function runFit(
+  fitter: ProfileFitter,
+  points: FramePoints,
+  settings: AnalysisSettings,
+  previous?: ProfileFit,
+): ProfileFit {
   if (points.u.length < 8)
     throw new AnalysisError(
       'no-drop-found',
       'Too few edge points above the baseline to fit a profile.',
     );
-  return fitter.fit(points, previous);
+  return fitter.fit(points, previous, settings);
 }

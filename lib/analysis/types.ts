@@ -1,3 +1,5 @@
+import type { AnalysisSettings } from './settings';
+
 /**
  * Public types of the drop-analysis engine. Everything here is plain data so it can cross a
  * worker boundary (structured clone) unchanged.
@@ -49,6 +51,8 @@ export interface AnalyseOptions {
   roi?: RegionOfInterest;
   /** Camera scale; when given, volume and area are also reported in µL and mm². */
   scalePxPerMm?: number;
+  /** Tuning values; any not given take their documented defaults (lib/analysis/settings.ts). */
+  settings?: Partial<AnalysisSettings>;
 }
 
 export type WarningCode =
@@ -112,6 +116,8 @@ export interface AnalysisResult {
   /** The fitted profile (image pixels), left contact over the apex to the right contact; null for local fits. */
   profile: Point[] | null;
   warnings: AnalysisWarning[];
+  /** The complete settings used, so the result can be reproduced. */
+  settings: AnalysisSettings;
   /** Milliseconds from decoded pixels to result. */
   timeMs: number;
 }

@@ -10,8 +10,7 @@
  * nearest visible edge point on that side, R the previous radius). On an exact spherical cap every
  * window gives the same circle. Height, volume and area come from the whole-profile cap.
  */
-import { linearLeastSquares } from './least-squares';
-import { levenbergMarquardt } from 'ml-levenberg-marquardt';
+import { levenbergMarquardt, linearLeastSquares } from './least-squares';
 import {
   DEG,
   type ContactAngles,
@@ -38,16 +37,18 @@ export function kasaCircle(u: ArrayLike<number>, v: ArrayLike<number>): Circle {
   }
   mu /= n;
   mv /= n;
-  // Centred coordinates keep the normal equations well conditioned.
-  const design: number[][] = [];
+  // Centred coordinates keep the problem well conditioned.
+  const design = new Float64Array(3 * n);
   const rhs = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const x = u[i] - mu;
     const y = v[i] - mv;
-    design.push([x, y, 1]);
+    design[3 * i] = x;
+    design[3 * i + 1] = y;
+    design[3 * i + 2] = 1;
     rhs[i] = -(x * x + y * y);
   }
-  const [d, e, f] = linearLeastSquares(design, rhs).coefficients;
+  const [d, e, f] = linearLeastSquares(design, rhs, 3).coefficients;
   const cu = -d / 2;
   const cv = -e / 2;
   return { cu: cu + mu, cv: cv + mv, r: Math.sqrt(Math.max(cu * cu + cv * cv - f, 0)) };
@@ -60,36 +61,35 @@ export function refineCircle(
   start: Circle,
 ): { circle: Circle; iterations: number } {
   const n = u.length;
-  const index = Float64Array.from({ length: n }, (_, i) => i);
-  const zeros = new Float64Array(n);
   const result = levenbergMarquardt(
-    { x: index, y: zeros },
-    ([cu, cv, r]) =>
-      (i) =>
-        Math.hypot(u[i] - cu, v[i] - cv) - r,
-    {
-      initialValues: [start.cu, start.cv, start.r],
-      // Started from the algebraic fit, a few Gauss–Newton-like steps converge; the library has no
-      // step-size stop, so the count is kept small.
-      maxIterations: 6,
-      damping: 1e-6,
-      errorTolerance: 1e-12,
-      jacobianFunction:
-        ([cu, cv]) =>
-        (i) => {
-          const d = Math.hypot(u[i] - cu, v[i] - cv) || 1e-12;
-          return [-(u[i] - cu) / d, -(v[i] - cv) / d, -1];
-        },
+    n,
+    [start.cu, start.cv, start.r],
+    (p, r, jac) => {
+      const cu = p[0];
+      const cv = p[1];
+      const radius = p[2];
+      for (let i = 0; i < n; i++) {
+        const du = u[i] - cu;
+        const dv = v[i] - cv;
+        const d = Math.sqrt(du * du + dv * dv) || 1e-12;
+        r[i] = d - radius;
+        jac[3 * i] = -du / d;
+        jac[3 * i + 1] = -dv / d;
+        jac[3 * i + 2] = -1;
+      }
     },
+    { maxIterations: 50, stepTolerance: 1e-7 * Math.max(start.r, 1) },
   );
-  const [cu, cv, r] = result.parameterValues;
+  const [cu, cv, r] = result.parameters;
   return { circle: { cu, cv, r }, iterations: result.iterations };
 }
 
-export function circleAngles(c: Circle): ContactAngles {
-  const ratio = Math.max(-1, Math.min(1, -c.cv / c.r));
+/** Angles where the circle meets the baseline (or the parallel line `baselineV` above it). */
+export function circleAngles(c: Circle, baselineV = 0): ContactAngles {
+  const cv = c.cv - baselineV;
+  const ratio = Math.max(-1, Math.min(1, -cv / c.r));
   const theta = Math.acos(ratio) * DEG;
-  const half = Math.sqrt(Math.max(c.r * c.r - c.cv * c.cv, 0));
+  const half = Math.sqrt(Math.max(c.r * c.r - cv * cv, 0));
   return { leftDeg: theta, rightDeg: theta, leftU: c.cu - half, rightU: c.cu + half };
 }
 
@@ -127,8 +127,8 @@ class CircleFit implements ProfileFit {
     for (let i = 0; i < u.length; i++) out[i] = Math.hypot(u[i] - p[0], v[i] - p[1]) - p[2];
     return out;
   }
-  angles(p: readonly number[] = this.parameters): ContactAngles {
-    return circleAngles({ cu: p[0], cv: p[1], r: p[2] });
+  angles(p: readonly number[] = this.parameters, baselineV = 0): ContactAngles {
+    return circleAngles({ cu: p[0], cv: p[1], r: p[2] }, baselineV);
   }
   shape(): DropShape {
     return capShape(this.whole);

@@ -23,22 +23,29 @@ class HeightWidthFit implements ProfileFit {
   readonly parameters: readonly number[];
   readonly parameterSteps: readonly number[];
   readonly converged = true;
+  private readonly leftU: number;
+  private readonly rightU: number;
   constructor(
     private readonly apex: ProfileFit,
-    private readonly leftU: number,
-    private readonly rightU: number,
+    /** The fit whose contact points give the base (polynomial tangent or contact-line cap). */
+    private readonly contacts: ProfileFit,
   ) {
     this.parameters = apex.parameters;
     this.parameterSteps = apex.parameterSteps;
+    ({ leftU: this.leftU, rightU: this.rightU } = contacts.angles());
   }
   residuals(p: readonly number[] = this.parameters): Float64Array {
     return this.apex.residuals(p);
   }
-  angles(p: readonly number[] = this.parameters): ContactAngles {
-    const height = p[1] + p[2];
-    const half = (this.rightU - this.leftU) / 2;
+  angles(p: readonly number[] = this.parameters, baselineV = 0): ContactAngles {
+    const { leftU, rightU } =
+      baselineV === 0
+        ? { leftU: this.leftU, rightU: this.rightU }
+        : this.contacts.angles(undefined, baselineV);
+    const height = p[1] + p[2] - baselineV;
+    const half = (rightU - leftU) / 2;
     const theta = 2 * Math.atan2(height, half) * DEG;
-    return { leftDeg: theta, rightDeg: theta, leftU: this.leftU, rightU: this.rightU };
+    return { leftDeg: theta, rightDeg: theta, leftU, rightU };
   }
   shape(): DropShape {
     const height = this.parameters[1] + this.parameters[2];
@@ -52,12 +59,12 @@ class HeightWidthFit implements ProfileFit {
 export function fitHeightWidth(points: FramePoints): ProfileFit {
   // The base from where the profile itself meets the baseline (the polynomial tangent's contact
   // points), not from a model of the whole drop.
-  let contacts = fitPolynomial(points).angles();
+  let contacts = fitPolynomial(points);
   // Where the polynomial's extrapolated tangent passes the horizontal (near 180°) its contact point
   // is unreliable; the contact-line cap gives the base there instead.
   const saturated = (deg: number) => !Number.isFinite(deg) || deg >= 179.5 || deg <= 0.5;
-  if (saturated(contacts.leftDeg) || saturated(contacts.rightDeg))
-    contacts = fitCircle(points).angles();
+  const found = contacts.angles();
+  if (saturated(found.leftDeg) || saturated(found.rightDeg)) contacts = fitCircle(points);
   let maxV = 0;
   for (let i = 0; i < points.v.length; i++) maxV = Math.max(maxV, points.v[i]);
   const keep: number[] = [];
@@ -69,7 +76,7 @@ export function fitHeightWidth(points: FramePoints): ProfileFit {
     axisU: points.axisU,
   };
   const apex = keep.length >= 8 ? fitCircleToAll(top) : fitCircleToAll(points);
-  return new HeightWidthFit(apex, contacts.leftU, contacts.rightU);
+  return new HeightWidthFit(apex, contacts);
 }
 
 export const heightWidthFitter: ProfileFitter = {

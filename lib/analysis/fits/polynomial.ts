@@ -52,13 +52,17 @@ function polySlope(c: readonly number[], s: number): number {
   return value;
 }
 
-/** Contact (s where the curve meets v = 0) and the angle there. */
-function sideAngle(frame: SideFrame, c: readonly number[]): { angleDeg: number; u: number } {
+/** Contact (s where the curve meets v = baselineV, default the baseline) and the angle there. */
+function sideAngle(
+  frame: SideFrame,
+  c: readonly number[],
+  baselineV = 0,
+): { angleDeg: number; u: number } {
   const [e1u, e1v] = frame.e1;
   const [e2u, e2v] = frame.e2;
   let s = 0;
   for (let k = 0; k < 30; k++) {
-    const g = s * e1v + polyValue(c, s) * e2v;
+    const g = s * e1v + polyValue(c, s) * e2v - baselineV;
     const dg = e1v + polySlope(c, s) * e2v;
     if (Math.abs(dg) < 1e-12) break;
     const step = g / dg;
@@ -110,10 +114,10 @@ class PolynomialFit implements ProfileFit {
     });
     return Float64Array.from(out);
   }
-  angles(p: readonly number[] = this.parameters): ContactAngles {
+  angles(p: readonly number[] = this.parameters, baselineV = 0): ContactAngles {
     const [cl, cr] = this.split(p);
-    const left = sideAngle(this.frames[0], cl);
-    const right = sideAngle(this.frames[1], cr);
+    const left = sideAngle(this.frames[0], cl, baselineV);
+    const right = sideAngle(this.frames[1], cr, baselineV);
     return { leftDeg: left.angleDeg, rightDeg: right.angleDeg, leftU: left.u, rightU: right.u };
   }
   shape(): DropShape {

@@ -1,3 +1,4 @@
+import type { AnalysisSettings } from '../settings';
 import type { FitMethod } from '../types';
 
 /**
@@ -41,15 +42,19 @@ export interface ProfileFit {
   readonly converged: boolean;
   /** Signed distances (px) of the fitted points from the model with these (default: fitted) parameters. */
   residuals(parameters?: readonly number[]): Float64Array;
-  /** Contact angles and contact points for these (default: fitted) parameters. */
-  angles(parameters?: readonly number[]): ContactAngles;
+  /**
+   * Contact angles and contact points for these (default: fitted) parameters, where the model
+   * meets the baseline, or with `baselineV` the line parallel to it that far above (for the
+   * ±1 px baseline sensitivity without a re-fit).
+   */
+  angles(parameters?: readonly number[], baselineV?: number): ContactAngles;
   shape(): DropShape;
 }
 
 export interface ProfileFitter {
   readonly method: FitMethod;
   /** `previous` (e.g. a fit of the same drop with a shifted baseline) may seed iterative fits. */
-  fit(points: FramePoints, previous?: ProfileFit): ProfileFit;
+  fit(points: FramePoints, previous?: ProfileFit, settings?: AnalysisSettings): ProfileFit;
 }
 
 export const DEG = 180 / Math.PI;
