@@ -10,11 +10,18 @@ import { fittedCurve } from './profile-curve';
 import { loadOpenCv, type OpenCv } from './opencv';
 import { pixelImage, validateImage, type PixelImage } from './image';
 import { computeEdgeMaps, detectBaseline, detectMirrorBaseline, type EdgeMaps } from './detect';
-import { DropOutline } from './outline';
+import { DropOutline, type ProfileExtraction } from './outline';
+import { checkModel } from './model-check';
+import { chooseSides } from './fits/two-sided';
 import { BaselineFrame } from './frame';
 import { fitterFor } from './fits';
-import { rms, type FramePoints, type ProfileFit, type ProfileFitter } from './fits/types';
-import { angleStandardErrors } from './uncertainty';
+import {
+  rms,
+  type ContactAngles,
+  type FramePoints,
+  type ProfileFit,
+  type ProfileFitter,
+} from './fits/types';
 import { resolveSettings, type AnalysisSettings } from './settings';
 import {
   AnalysisError,
@@ -163,12 +170,24 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
       );
     }
   }
-  const frame = new BaselineFrame(baseline);
-  const profile = detection.outline.profileFor(frame);
+  let frame: BaselineFrame;
+  try {
+    frame = new BaselineFrame(baseline);
+  } catch {
+    throw new AnalysisError('bad-input', 'The baseline needs two different points.');
+  }
+  // The substrate line seen in the photo, to check a hand-drawn baseline against.
+  const substrate =
+    baselineSource === 'given' && detection.automaticBaseline && !detection.automaticFromMirror
+      ? new BaselineFrame(detection.automaticBaseline)
+      : null;
+  const profile = detection.outline.profileFor(frame, substrate ?? undefined);
   if (!profile || profile.points.length < settings.minProfilePoints) {
     throw new AnalysisError(
       'no-drop-found',
-      'No drop silhouette was found resting on the baseline.',
+      substrate
+        ? 'No drop silhouette was found resting on this baseline; drag it onto the substrate surface where the drop meets it.'
+        : 'No drop silhouette was found resting on the baseline.',
     );
   }
   if (profile.needleInContact) {
@@ -190,24 +209,20 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
 
   const baseMargin = Math.max(settings.fitMarginPx, settings.fitMarginPerBlur * profile.edgeSpread);
   let margin = baseMargin;
-  const fitAt = (
-    f: BaselineFrame,
-    previous?: ProfileFit,
-  ): { fit: ProfileFit; points: FramePoints } => {
-    const pts = toFramePoints(profile.points, f, margin);
-    return { fit: runFit(fitter, pts, settings, previous), points: pts };
-  };
-  let { fit, points } = fitAt(frame);
+  let points = toFramePoints(profile.points, frame, margin);
+  let fit = runFit(fitter, points, settings);
   // Above 90° the edge normal near the contact points down into the thin bright wedge between drop
   // and substrate, so the substrate edge enters the sub-pixel window; keep further off the baseline.
-  const firstAngle = (fit.angles().leftDeg + fit.angles().rightDeg) / 2;
+  const first = fit.angles();
+  const firstAngle = (first.leftDeg + first.rightDeg) / 2;
   const extra =
     (baseMargin + 2) * Math.sin(((Math.min(Math.max(firstAngle, 90), 180) - 90) * Math.PI) / 180);
   // This holds for the local polynomial tangent too: its nearest points would sit in the wedge, and
   // on the generated photos the wider margin roughly halves its error at 110°–170° (MAE 2.0° → 1.5°).
   if (extra > 0.5) {
     margin = baseMargin + extra;
-    ({ fit, points } = fitAt(frame, fit));
+    points = toFramePoints(profile.points, frame, margin);
+    fit = runFit(fitter, points, settings, fit);
   }
   let leftCount = 0;
   for (let i = 0; i < points.side.length; i++) if (points.side[i] < 0) leftCount++;
@@ -220,15 +235,18 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
       ),
     );
   }
-  if (!fit.converged)
+
+  // Each side from its own half-profile when the two differ by more than noise explains.
+  const choice = chooseSides(fit, settings);
+  const reported = choice.fit;
+  if (!reported.converged)
     warnings.push(
       warning(
         'fit-did-not-converge',
         'The profile fit did not converge; treat the angles with care.',
       ),
     );
-
-  const angles = fit.angles();
+  const angles = reported.angles();
   if (!Number.isFinite(angles.leftDeg) || !Number.isFinite(angles.rightDeg)) {
     throw new AnalysisError(
       'fit-failed',
@@ -236,21 +254,23 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
     );
   }
   // The fitted profile read where a baseline 1 px higher or lower would cut it.
-  const up = fit.angles(undefined, 1);
-  const down = fit.angles(undefined, -1);
-  const shiftPart = (a: number, b: number, c: number) =>
-    Math.sqrt(((b - a) ** 2 + (c - a) ** 2) / 2);
+  const up = reported.angles(undefined, 1);
+  const down = reported.angles(undefined, -1);
+  const shiftPart = (a: number, b: number, c: number) => {
+    const value = Math.sqrt(((b - a) ** 2 + (c - a) ** 2) / 2);
+    return Number.isFinite(value) ? value : 90;
+  };
   const baselineShiftDeg = {
     left: shiftPart(angles.leftDeg, up.leftDeg, down.leftDeg),
     right: shiftPart(angles.rightDeg, up.rightDeg, down.rightDeg),
   };
-  const se = angleStandardErrors(fit);
+  const se = choice.errors;
   // An angle that barely depends on the data gives a huge or undefined standard error: cap it at
   // 90° and say that this fit is not to be trusted.
   const capped = (value: number) => (Number.isFinite(value) ? Math.min(value, 90) : 90);
   const fitStandardErrorDeg = { left: capped(se.left), right: capped(se.right) };
   if (
-    fit.converged &&
+    reported.converged &&
     (fitStandardErrorDeg.left > settings.undeterminedAngleDeg ||
       fitStandardErrorDeg.right > settings.undeterminedAngleDeg)
   ) {
@@ -261,22 +281,30 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
       ),
     );
   }
-  if (Math.abs(angles.leftDeg - angles.rightDeg) > 2) {
+  if (choice.asymmetric) {
+    const d = angles.leftDeg - angles.rightDeg;
     warnings.push(
       warning(
         'left-right-disagree',
-        `Left and right angles differ by ${Math.abs(angles.leftDeg - angles.rightDeg).toFixed(1)}°; check the baseline and the drop's symmetry.`,
+        `Left and right differ by ${Math.abs(d).toFixed(1)}° (the left ${d > 0 ? 'higher' : 'lower'}), more than the ±${(settings.leftRightSignificance * choice.differenceErrorDeg).toFixed(1)}° edge noise explains: the drop is not symmetric (a tilted stage, a pinned or moving contact line) or the baseline is tilted against the substrate. Each side is measured on its own half of the profile.`,
       ),
     );
   }
 
-  const shape = fit.shape();
   const toImage = (u: number, v: number): Point => {
     const [x, y] = frame.toImage(u, v);
     return [x + offsetX, y + offsetY];
   };
   const contactLeft = toImage(angles.leftU, 0);
   const contactRight = toImage(angles.rightU, 0);
+
+  warnings.push(
+    ...checkBaseline(detection, frame, substrate, profile, angles, baselineShiftDeg, settings),
+  );
+  const model = checkModel(method, fitter, reported, choice.asymmetric, points, margin, settings);
+  warnings.push(...model.warnings);
+
+  const shape = reported.shape();
   const scale = options.scalePxPerMm;
   const left: Point[] = [];
   const right: Point[] = [];
@@ -304,19 +332,83 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
     heightPx: shape.heightPx,
     apexRadiusPx: shape.apexRadiusPx,
     bond: shape.bond,
+    modelCheck: {
+      estimatedBond: model.bond,
+      youngLaplaceDeg: model.referenceDeg,
+      modelBiasDeg: model.modelBiasDeg,
+    },
     volumePx3: shape.volumePx3,
     surfaceAreaPx2: shape.surfaceAreaPx2,
     volumeUl: scale && shape.volumePx3 !== null ? shape.volumePx3 / scale ** 3 : null,
     surfaceAreaMm2:
       scale && shape.surfaceAreaPx2 !== null ? shape.surfaceAreaPx2 / scale ** 2 : null,
-    rmsResidualPx: rms(fit.residuals()),
+    rmsResidualPx: rms(reported.residuals()),
     edgePointCount: points.u.length,
     edgePoints: { left, right },
-    profile: fittedCurve(fit)?.map(([u, v]) => toImage(u, v)) ?? null,
+    profile: fittedCurve(reported)?.map(([u, v]) => toImage(u, v)) ?? null,
     warnings,
     settings,
     timeMs: now() - started,
   };
+}
+
+/**
+ * Does the baseline meet the drop where the drop meets the substrate? A hand-drawn baseline is
+ * compared with the substrate line found in the photo at the two contact points (where the drop's
+ * outline meets that line); a baseline farther than `baselineContactTolerancePx` from one of them is
+ * named as the cause, with the side, the distance, the direction and the point it misses. Without
+ * a substrate line, an outline that runs along the baseline to the image border says the baseline
+ * lies below the substrate's surface.
+ */
+function checkBaseline(
+  detection: DropDetection,
+  frame: BaselineFrame,
+  substrate: BaselineFrame | null,
+  profile: ProfileExtraction,
+  angles: ContactAngles,
+  sensitivity: { left: number; right: number },
+  settings: AnalysisSettings,
+): AnalysisWarning[] {
+  const warnings: AnalysisWarning[] = [];
+  const { offsetX, offsetY } = detection;
+  if (substrate) {
+    const contacts = detection.outline.contactsOn(substrate);
+    if (!contacts) return warnings;
+    for (const side of ['left', 'right'] as const) {
+      const [x, y] = contacts[side];
+      const miss = frame.toFrameV(x, y);
+      if (Math.abs(miss) <= settings.baselineContactTolerancePx) continue;
+      const end = side === 'left' ? 'left' : 'right';
+      const change = Math.abs(miss) * sensitivity[side];
+      warnings.push(
+        warning(
+          'baseline-off-contact',
+          `The baseline passes ${Math.abs(miss).toFixed(1)} px ${miss > 0 ? 'below' : 'above'} the ${side} contact point (x ${(x + offsetX).toFixed(1)}, y ${(y + offsetY).toFixed(1)}), where the drop meets the substrate line found in the photo, so the ${side} angle is read ${miss > 0 ? 'below the drop, where the fitted profile is extended to the baseline' : 'on the drop above its contact line'}; about ${change.toFixed(1)}° from the value at the contact point. Drag the baseline's ${end} end onto the contact point, or use the automatic baseline.`,
+        ),
+      );
+    }
+    return warnings;
+  }
+  if (profile.touchesBorder && !profile.needleInContact) {
+    // The outline above the baseline reaching the left or right border near the baseline is the
+    // substrate's surface, not the drop: the baseline lies below it on that side.
+    const { width } = detection.maps;
+    for (const side of ['left', 'right'] as const) {
+      const u = side === 'left' ? angles.leftU : angles.rightU;
+      const [x] = frame.toImage(u, 0);
+      const reaches = profile.points.some(
+        ([px, py]) => (side === 'left' ? px <= 1.5 : px >= width - 2.5) && frame.toFrameV(px, py) < 12,
+      );
+      if (!reaches) continue;
+      warnings.push(
+        warning(
+          'baseline-off-contact',
+          `On the ${side} the outline above the baseline runs along it to the image border: the baseline lies below the substrate surface there (its ${side} end, near x ${(x + offsetX).toFixed(0)}). Drag it up onto the substrate where the drop meets it.`,
+        ),
+      );
+    }
+  }
+  return warnings;
 }
 
 function runFit(
@@ -330,5 +422,13 @@ function runFit(
       'no-drop-found',
       'Too few edge points above the baseline to fit a profile.',
     );
-  return fitter.fit(points, previous, settings);
+  try {
+    return fitter.fit(points, { previous, settings });
+  } catch (error) {
+    if (error instanceof AnalysisError) throw error;
+    throw new AnalysisError(
+      'fit-failed',
+      `The ${fitter.method} fit failed on these edge points (${(error as Error).message}); check the baseline or try another method.`,
+    );
+  }
 }

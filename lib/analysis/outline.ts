@@ -61,8 +61,13 @@ export class DropOutline {
     this.contrast = maps.brightLevel - maps.darkLevel;
   }
 
-  /** The drop's run for this baseline, refined to sub-pixel points; null if nothing rests on it. */
-  profileFor(frame: BaselineFrame): ProfileExtraction | null {
+  /**
+   * The drop's run for this baseline, refined to sub-pixel points; null if nothing rests on it.
+   * With `substrate` (the substrate line found in the photo, when the baseline was given by hand),
+   * contour points within the cut of that line are left out: they are the substrate's own edge,
+   * which a baseline dragged below the surface would otherwise take for part of the drop.
+   */
+  profileFor(frame: BaselineFrame, substrate?: BaselineFrame): ProfileExtraction | null {
     const run = this.findRun(frame);
     if (!run) return null;
     const { width, height } = this.maps;
@@ -100,7 +105,13 @@ export class DropOutline {
       const x = contour[2 * k];
       const y = contour[2 * k + 1];
       if (needleInContact && x >= needleLeft - pad && x <= needleRight + pad) continue;
-      if (x <= 0 || x >= width - 1 || y <= 0 || y >= height - 1) {
+      const onBorder = x <= 0 || x >= width - 1 || y <= 0 || y >= height - 1;
+      if (substrate) {
+        // The substrate's own edge: along its line, or down the image border below it.
+        const vs = substrate.toFrameV(x, y);
+        if (Math.abs(vs) < cut || (onBorder && vs < 0)) continue;
+      }
+      if (onBorder) {
         touchesBorder = true;
         continue;
       }
@@ -132,6 +143,7 @@ export class DropOutline {
       if (dist <= limit) points.push([x, y]);
     }
     spreads.sort((p, q) => p - q);
+    if (points.length === 0) return null;
     return {
       points,
       needleInContact,
@@ -139,6 +151,53 @@ export class DropOutline {
       edgeSpread: spreads.length ? spreads[spreads.length >> 1] : 1,
       run,
     };
+  }
+
+  /**
+   * Where the drop's outline meets this line (the substrate line), left and right, in image pixels:
+   * the refined points of the run's two ends that lie within a few pixels above the cut, each end
+   * extrapolated straight down to the line. Null when the run or its ends are missing.
+   */
+  contactsOn(frame: BaselineFrame): { left: [number, number]; right: [number, number] } | null {
+    const run = this.findRun(frame);
+    if (!run) return null;
+    const contour = this.maps.contours[run.contour];
+    const m = contour.length / 2;
+    const memo = this.refined[run.contour];
+    const cut = this.settings.cutAboveBaselinePx;
+    const ends: Array<[number, number]> = [];
+    for (const direction of [1, -1]) {
+      // Points from this end of the run upward, up to 6 px above the cut.
+      let su = 0;
+      let sv = 0;
+      let suv = 0;
+      let svv = 0;
+      let count = 0;
+      for (let j = 0; j < run.length; j++) {
+        const k = (run.start + (direction > 0 ? j : run.length - 1 - j)) % m;
+        const cx = contour[2 * k];
+        const cy = contour[2 * k + 1];
+        const v = frame.toFrameV(cx, cy);
+        if (v > cut + 6) break;
+        if (this.refine(run.contour, k) !== VALID) continue;
+        const [ru, rv] = frame.toFrame(memo.x[k], memo.y[k]);
+        su += ru;
+        sv += rv;
+        suv += ru * rv;
+        svv += rv * rv;
+        count++;
+      }
+      if (count < 2) return null;
+      const det = count * svv - sv * sv;
+      // u = a + c v through the end's points, read at v = 0 (straight down if they are level).
+      const c = Math.abs(det) > 1e-9 ? (count * suv - su * sv) / det : 0;
+      const a = (su - c * sv) / count;
+      ends.push(frame.toImage(a, 0));
+    }
+    const [first, last] = ends;
+    return frame.toFrame(first[0], first[1])[0] < frame.toFrame(last[0], last[1])[0]
+      ? { left: first, right: last }
+      : { left: last, right: first };
   }
 
   /**

@@ -62,7 +62,11 @@ export type WarningCode =
   | 'needle-in-contact'
   | 'too-few-edge-points'
   | 'baseline-not-found'
-  | 'fit-did-not-converge';
+  | 'baseline-off-contact'
+  | 'fit-did-not-converge'
+  | 'model-bias'
+  | 'model-misfit'
+  | 'angle-uncertain';
 
 export interface AnalysisWarning {
   code: WarningCode;
@@ -82,6 +86,21 @@ export class AnalysisError extends Error {
 }
 
 export type Point = [number, number];
+
+export interface ModelCheckSummary {
+  /**
+   * Bond number of the Young–Laplace profile fitted to the same edge points (for Young–Laplace its
+   * own); poorly determined on flat drops (below about 30°). Null when that fit failed.
+   */
+  estimatedBond: number | null;
+  /** That profile's left and right angles. */
+  youngLaplaceDeg: { left: number; right: number } | null;
+  /**
+   * The method's reading of edge points generated from that profile (no noise, same spacing and
+   * margin) minus the profile's own angle: the bias of the method's model for this drop's shape.
+   */
+  modelBiasDeg: { left: number; right: number } | null;
+}
 
 export interface AnalysisResult {
   method: FitMethod;
@@ -105,6 +124,8 @@ export interface AnalysisResult {
   apexRadiusPx: number | null;
   /** Bond number β = Δρ g b² / γ (apex radius b), only for the Young–Laplace fit. */
   bond: number | null;
+  /** Whether the method's model holds for this drop (lib/analysis/model-check.ts). */
+  modelCheck: ModelCheckSummary;
   volumePx3: number | null;
   surfaceAreaPx2: number | null;
   volumeUl: number | null;

@@ -7,6 +7,12 @@
  * where β = Δρ g b² / γ is the Bond number. β = 0 gives the sphere x = sin φ, z = 1 − cos φ.
  * Integrated with classical fourth-order Runge–Kutta in arc length; volume π∫x² dz and area
  * 2π∫x ds are carried as extra state so they are as accurate as the profile.
+ *
+ * On a stage inclined by α against gravity the hydrostatic term gains a component along the stage:
+ * dφ/ds = 2 + β z + τ x − sin φ / x, with β = Δρ g b² cos α / γ and τ = ± Δρ g b² sin α / γ (+ on
+ * the downhill half, − uphill), each half integrated on its own from the common apex with the
+ * azimuthal curvature of an axisymmetric drop (the usual quasi-axisymmetric approximation; exact at
+ * α = 0, and smooth at the apex, where the extra term vanishes). `tilt` (τ) selects it.
  */
 
 export interface YoungLaplaceProfile {
@@ -29,6 +35,8 @@ export interface IntegrateOptions {
   maxZ?: number;
   /** Arc-length step; by default scaled with the capillary length for large β. */
   step?: number;
+  /** τ, the hydrostatic term along an inclined stage (units of 1/b², signed by the half). */
+  tilt?: number;
 }
 
 /** Default arc-length step: fine enough for the capillary length 1/√β at large Bond numbers. */
@@ -44,7 +52,7 @@ const k3 = new Float64Array(5);
 const k4 = new Float64Array(5);
 const mid = new Float64Array(5);
 
-function derivative(bond: number, s: Float64Array, out: Float64Array): void {
+function derivative(bond: number, tilt: number, s: Float64Array, out: Float64Array): void {
   const x = s[0];
   const phi = s[2];
   const sinPhi = Math.sin(phi);
@@ -52,19 +60,19 @@ function derivative(bond: number, s: Float64Array, out: Float64Array): void {
   const curvatureTerm = x > 1e-12 ? sinPhi / x : 1;
   out[0] = Math.cos(phi);
   out[1] = sinPhi;
-  out[2] = 2 + bond * s[1] - curvatureTerm;
+  out[2] = 2 + bond * s[1] + tilt * x - curvatureTerm;
   out[3] = Math.PI * x * x * sinPhi;
   out[4] = 2 * Math.PI * x;
 }
 
-function rk4(bond: number, s: Float64Array, h: number, out: Float64Array): void {
-  derivative(bond, s, k1);
+function rk4(bond: number, tilt: number, s: Float64Array, h: number, out: Float64Array): void {
+  derivative(bond, tilt, s, k1);
   for (let i = 0; i < 5; i++) mid[i] = s[i] + (h / 2) * k1[i];
-  derivative(bond, mid, k2);
+  derivative(bond, tilt, mid, k2);
   for (let i = 0; i < 5; i++) mid[i] = s[i] + (h / 2) * k2[i];
-  derivative(bond, mid, k3);
+  derivative(bond, tilt, mid, k3);
   for (let i = 0; i < 5; i++) mid[i] = s[i] + h * k3[i];
-  derivative(bond, mid, k4);
+  derivative(bond, tilt, mid, k4);
   for (let i = 0; i < 5; i++) out[i] = s[i] + (h / 6) * (k1[i] + 2 * k2[i] + 2 * k3[i] + k4[i]);
 }
 
@@ -116,6 +124,7 @@ export function integrateYoungLaplace(
   const maxPhi = Math.min(options.maxPhi ?? Math.PI, Math.PI);
   const maxZ = options.maxZ ?? Number.POSITIVE_INFINITY;
   const h = options.step ?? defaultStep(bond);
+  const tilt = options.tilt ?? 0;
   const capacity = 200_000;
   const columns = new Columns(Math.min(capacity, Math.ceil(4 / h) + 8));
   columns.push(0, 0, 0, 0, 0);
@@ -125,7 +134,7 @@ export function integrateYoungLaplace(
   const next = new Float64Array(5);
   columns.push(state[0], state[1], state[2], state[3], state[4]);
   for (let i = 0; i < capacity; i++) {
-    rk4(bond, state, h, next);
+    rk4(bond, tilt, state, h, next);
     if (next[2] >= maxPhi) {
       // Partial step landing on φ = maxPhi (secant iterations on the step length).
       let lo = 0;
@@ -135,7 +144,7 @@ export function integrateYoungLaplace(
       const landed = new Float64Array(next);
       for (let k = 0; k < 30; k++) {
         const t = lo + ((maxPhi - phiLo) / (phiHi - phiLo)) * (hi - lo);
-        rk4(bond, state, t, landed);
+        rk4(bond, tilt, state, t, landed);
         const err = landed[2] - maxPhi;
         if (Math.abs(err) < 1e-13) break;
         if (err > 0) {
@@ -166,7 +175,7 @@ export function integrateYoungLaplace(
 }
 
 /** Index k with z[k] ≤ depth < z[k+1] (z increases along a sessile profile); −1 if above the apex. */
-export function findDepthIndex(profile: YoungLaplaceProfile, depth: number): number {
+export function findDepthIndex(profile: Pick<YoungLaplaceProfile, 'z' | 'n'>, depth: number): number {
   const { z, n } = profile;
   if (depth < z[0]) return -1;
   if (depth >= z[n - 1]) return n - 1;

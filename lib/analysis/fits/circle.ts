@@ -18,7 +18,10 @@ import {
   type FramePoints,
   type ProfileFit,
   type ProfileFitter,
+  subsetOf,
 } from './types';
+import { TwoSidedFit } from './two-sided';
+import { DEFAULT_SETTINGS, type AnalysisSettings } from '../settings';
 
 export interface Circle {
   cu: number;
@@ -115,7 +118,7 @@ class CircleFit implements ProfileFit {
     private readonly points: FramePoints,
     circle: Circle,
     /** The cap through the whole profile, for height, volume and area. */
-    private readonly whole: Circle = circle,
+    readonly wholeCircle: Circle = circle,
   ) {
     this.parameters = [circle.cu, circle.cv, circle.r];
     this.parameterSteps = [1e-4 * circle.r, 1e-4 * circle.r, 1e-4 * circle.r];
@@ -131,7 +134,19 @@ class CircleFit implements ProfileFit {
     return circleAngles({ cu: p[0], cv: p[1], r: p[2] }, baselineV);
   }
   shape(): DropShape {
-    return capShape(this.whole);
+    return capShape(this.wholeCircle);
+  }
+  curve(samples = 160): Array<[number, number]> | null {
+    const [cu, cv, r] = this.parameters;
+    if (!(r > 0)) return null;
+    // Angles (from the centre) where the circle is above the baseline v = 0.
+    const limit = Math.abs(cv) >= r ? Math.PI : Math.acos(Math.max(-1, Math.min(1, -cv / r)));
+    const curve: Array<[number, number]> = [];
+    for (let i = 0; i <= samples; i++) {
+      const a = Math.PI / 2 + limit - (2 * limit * i) / samples;
+      curve.push([cu + r * Math.cos(a), Math.max(0, cv + r * Math.sin(a))]);
+    }
+    return curve;
   }
 }
 
@@ -141,13 +156,14 @@ export function fitWholeCircle(points: FramePoints): Circle {
   return refineCircle(points.u, points.v, start).circle;
 }
 
-/** Share of the radius, beyond the nearest visible point, that the contact-line window reaches. */
-export const CONTACT_WINDOW = 0.2;
 /** Fewest points per side in a contact-line window; with fewer the whole profile is used. */
 const MIN_WINDOW_POINTS = 12;
 
-/** The points within d₀ + CONTACT_WINDOW · R of each contact point of `circle`, or null if too few. */
-function contactWindow(points: FramePoints, circle: Circle): FramePoints | null {
+/**
+ * The points within d₀ + w · R of each contact point of `circle` (w = `circleContactWindow`), or
+ * null if too few.
+ */
+function contactWindow(points: FramePoints, circle: Circle, window: number): FramePoints | null {
   const { leftU, rightU } = circleAngles(circle);
   if (!Number.isFinite(leftU) || !Number.isFinite(rightU)) return null;
   const n = points.u.length;
@@ -162,7 +178,7 @@ function contactWindow(points: FramePoints, circle: Circle): FramePoints | null 
   const counts = [0, 0];
   for (let i = 0; i < n; i++) {
     const k = points.side[i] < 0 ? 0 : 1;
-    if (distance[i] <= nearest[k] + CONTACT_WINDOW * circle.r) {
+    if (distance[i] <= nearest[k] + window * circle.r) {
       keep.push(i);
       counts[k]++;
     }
@@ -181,12 +197,16 @@ export function fitCircleToAll(points: FramePoints): ProfileFit {
   return new CircleFit(points, fitWholeCircle(points));
 }
 
-export function fitCircle(points: FramePoints): ProfileFit {
+/** The contact-line cap of both sides together (one circle). */
+export function fitJointCircle(
+  points: FramePoints,
+  settings: AnalysisSettings = DEFAULT_SETTINGS,
+): ProfileFit {
   const whole = fitWholeCircle(points);
   let circle = whole;
   let fitted = points;
   for (let pass = 0; pass < 2; pass++) {
-    const window = contactWindow(points, circle);
+    const window = contactWindow(points, circle, settings.circleContactWindow);
     if (!window) break;
     // Started from the previous cap, which is already close: no algebraic start needed.
     const next = refineCircle(window.u, window.v, circle).circle;
@@ -197,4 +217,30 @@ export function fitCircle(points: FramePoints): ProfileFit {
   return new CircleFit(fitted, circle, whole);
 }
 
-export const circleFitter: ProfileFitter = { method: 'circle', fit: (points) => fitCircle(points) };
+/**
+ * Each side's own contact-line cap: the joint cap's window on that side, refitted alone (started
+ * from the joint cap).
+ */
+export function fitCircle(
+  points: FramePoints,
+  settings: AnalysisSettings = DEFAULT_SETTINGS,
+): ProfileFit {
+  const joint = fitJointCircle(points, settings);
+  const [cu, cv, r] = joint.parameters;
+  const circle = { cu, cv, r };
+  const whole = (joint as CircleFit).wholeCircle;
+  const window = contactWindow(points, circle, settings.circleContactWindow) ?? points;
+  const sideFit = (side: -1 | 1): ProfileFit => {
+    const keep: number[] = [];
+    for (let i = 0; i < window.u.length; i++) if (window.side[i] === side) keep.push(i);
+    const own = subsetOf(window, keep);
+    const fitted = refineCircle(own.u, own.v, circle).circle;
+    return new CircleFit(own, Number.isFinite(fitted.r) && fitted.r > 0 ? fitted : circle, whole);
+  };
+  return new TwoSidedFit(sideFit(-1), sideFit(1), joint, cu);
+}
+
+export const circleFitter: ProfileFitter = {
+  method: 'circle',
+  fit: (points, options) => fitCircle(points, options?.settings),
+};

@@ -136,16 +136,27 @@ export function solveSymmetric(m: Float64Array, r: Float64Array, k: number): Flo
   return x;
 }
 
-/** Inverse of a symmetric positive definite k × k matrix (row-major); null when singular. */
+/**
+ * Inverse of a symmetric positive definite k × k matrix (row-major); null when singular. The
+ * matrix is equilibrated first (scaled to a unit diagonal), so parameters of very different sizes
+ * (polynomial coefficients, conic coefficients) do not defeat the factorisation.
+ */
 export function invertSymmetric(m: Float64Array, k: number): Float64Array | null {
+  const d = new Float64Array(k);
+  for (let i = 0; i < k; i++) {
+    if (!(m[i * k + i] > 0)) return null;
+    d[i] = 1 / Math.sqrt(m[i * k + i]);
+  }
+  const scaled = new Float64Array(k * k);
+  for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) scaled[i * k + j] = m[i * k + j] * d[i] * d[j];
   const out = new Float64Array(k * k);
   const unit = new Float64Array(k);
   for (let j = 0; j < k; j++) {
     unit.fill(0);
     unit[j] = 1;
-    const column = solveSymmetric(m, unit, k);
+    const column = solveSymmetric(scaled, unit, k);
     if (!column) return null;
-    for (let i = 0; i < k; i++) out[i * k + j] = column[i];
+    for (let i = 0; i < k; i++) out[i * k + j] = column[i] * d[i] * d[j];
   }
   return out;
 }

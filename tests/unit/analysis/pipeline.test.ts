@@ -176,12 +176,30 @@ describe('drop pipeline on generated photos', () => {
   });
 
   it('warns when left and right disagree by more than 2°', () => {
-    // A baseline tilted against the substrate makes the two sides differ.
+    // A drop whose contact line is pinned at 86° on the left and 94° on the right (generator:
+    // two Young–Laplace halves of the same liquid meeting at the apex).
+    const { image, truth } = renderDrop({
+      contactAngleDeg: 86,
+      rightAngleDeg: 94,
+      bond: 0.1,
+      seed: 13,
+    });
+    const r = analyseDropWith(cv, image, { method: 'polynomial', baseline: truth.baseline });
+    expect(Math.abs(r.leftDeg - r.rightDeg)).toBeGreaterThan(2);
+    expect(r.warnings.map((w) => w.code)).toContain('left-right-disagree');
+  });
+
+  it('a baseline tilted against the substrate is named as the cause, not read as an asymmetric drop', () => {
+    // The sides of a (nearly) circular drop make equal angles with any chord, so a baseline rotated
+    // about the drop changes both angles alike; what is wrong is where it meets the drop.
     const { image, truth } = renderDrop({ contactAngleDeg: 90, bond: 0.1, seed: 13 });
     const skew = { x1: 0, y1: truth.baseline.y1 - 8, x2: 639, y2: truth.baseline.y2 + 8 };
     const r = analyseDropWith(cv, image, { method: 'polynomial', baseline: skew });
-    expect(Math.abs(r.leftDeg - r.rightDeg)).toBeGreaterThan(2);
-    expect(r.warnings.map((w) => w.code)).toContain('left-right-disagree');
+    const misses = r.warnings.filter((w) => w.code === 'baseline-off-contact');
+    expect(misses.map((w) => w.message)).toEqual([
+      expect.stringMatching(/passes 3\.\d px above the left contact point/),
+      expect.stringMatching(/passes 3\.\d px below the right contact point/),
+    ]);
   });
 
   it('throws a coded error for an image without a drop', () => {
