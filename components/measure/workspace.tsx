@@ -102,7 +102,7 @@ export function MeasureWorkspace(props: {
     async (photo: WorkspacePhoto, options: AnalyseOptions) => {
       setStatus(photo.id, 'analysing');
       try {
-        const result = await worker.analyse(photo.id, `/api/photos/${photo.id}/image`, options);
+        const result = await worker.analyse(photo.id, options);
         setResult(photo.id, result);
       } catch (error) {
         if (error instanceof Superseded) return;
@@ -282,6 +282,7 @@ export function MeasureWorkspace(props: {
                   </p>
                 ) : null}
                 <DropCanvas
+                  photoId={selected.id}
                   imageUrl={`/api/photos/${selected.id}/image`}
                   width={selected.width}
                   height={selected.height}

@@ -26,6 +26,7 @@ import { resolveSettings, type AnalysisSettings } from './settings';
 import {
   AnalysisError,
   DEFAULT_METHOD,
+  type FitMethod,
   type AnalyseOptions,
   type AnalysisResult,
   type AnalysisWarning,
@@ -49,6 +50,8 @@ export interface DropDetection {
   readonly automaticFromMirror: boolean;
   readonly lowContrast: boolean;
   readonly timeMs: number;
+  /** The newest fit per method, to start drafts from (a drag moves the baseline a little). */
+  readonly warmFits: Map<FitMethod, ProfileFit>;
 }
 
 /** Loads OpenCV (once) and analyses one drop photo. */
@@ -103,6 +106,7 @@ export function detectDrop(
     lowContrast:
       contrast < settings.minContrast || contrast < settings.minContrastToNoise * maps.noise,
     timeMs: now() - started,
+    warmFits: new Map(),
   };
 }
 
@@ -210,7 +214,10 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   const baseMargin = Math.max(settings.fitMarginPx, settings.fitMarginPerBlur * profile.edgeSpread);
   let margin = baseMargin;
   let points = toFramePoints(profile.points, frame, margin);
-  let fit = runFit(fitter, points, settings);
+  const draft = options.draft === true;
+  // Drafts start from the newest fit of this drop; a full result is always fitted afresh, so it is
+  // the same whatever came before (and the same as the server's).
+  let fit = runFit(fitter, points, settings, draft ? detection.warmFits.get(method) : undefined, draft);
   // Above 90° the edge normal near the contact points down into the thin bright wedge between drop
   // and substrate, so the substrate edge enters the sub-pixel window; keep further off the baseline.
   const first = fit.angles();
@@ -222,7 +229,7 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   if (extra > 0.5) {
     margin = baseMargin + extra;
     points = toFramePoints(profile.points, frame, margin);
-    fit = runFit(fitter, points, settings, fit);
+    fit = runFit(fitter, points, settings, fit, draft);
   }
   let leftCount = 0;
   for (let i = 0; i < points.side.length; i++) if (points.side[i] < 0) leftCount++;
@@ -236,6 +243,7 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
     );
   }
 
+  detection.warmFits.set(method, fit);
   // Each side from its own half-profile when the two differ by more than noise explains.
   const choice = chooseSides(fit, settings);
   const reported = choice.fit;
@@ -301,7 +309,9 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   warnings.push(
     ...checkBaseline(detection, frame, substrate, profile, angles, baselineShiftDeg, settings),
   );
-  const model = checkModel(method, fitter, reported, choice.asymmetric, points, margin, settings);
+  const model = draft
+    ? { bond: reported.shape().bond, referenceDeg: null, modelBiasDeg: null, warnings: [] }
+    : checkModel(method, fitter, reported, choice.asymmetric, points, margin, settings);
   warnings.push(...model.warnings);
 
   const shape = reported.shape();
@@ -347,6 +357,7 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
     edgePoints: { left, right },
     profile: fittedCurve(reported)?.map(([u, v]) => toImage(u, v)) ?? null,
     warnings,
+    provisional: draft,
     settings,
     timeMs: now() - started,
   };
@@ -416,6 +427,7 @@ function runFit(
   points: FramePoints,
   settings: AnalysisSettings,
   previous?: ProfileFit,
+  quick = false,
 ): ProfileFit {
   if (points.u.length < 8)
     throw new AnalysisError(
@@ -423,7 +435,7 @@ function runFit(
       'Too few edge points above the baseline to fit a profile.',
     );
   try {
-    return fitter.fit(points, { previous, settings });
+    return fitter.fit(points, { previous, settings, quick });
   } catch (error) {
     if (error instanceof AnalysisError) throw error;
     throw new AnalysisError(

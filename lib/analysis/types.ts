@@ -53,6 +53,11 @@ export interface AnalyseOptions {
   scalePxPerMm?: number;
   /** Tuning values; any not given take their documented defaults (lib/analysis/settings.ts). */
   settings?: Partial<AnalysisSettings>;
+  /**
+   * A quick provisional result, e.g. while a baseline is dragged: Young–Laplace with fewer points
+   * and iterations, and no model check. The result says `provisional: true`.
+   */
+  draft?: boolean;
 }
 
 export type WarningCode =
@@ -137,6 +142,8 @@ export interface AnalysisResult {
   /** The fitted profile (image pixels), left contact over the apex to the right contact; null for local fits. */
   profile: Point[] | null;
   warnings: AnalysisWarning[];
+  /** True for a quick draft (`AnalyseOptions.draft`), to be followed by the full result. */
+  provisional: boolean;
   /** The complete settings used, so the result can be reproduced. */
   settings: AnalysisSettings;
   /** Milliseconds from decoded pixels to result. */

@@ -1,4 +1,6 @@
 import 'server-only';
+import { gzipSync } from 'node:zlib';
+import { encodeGrayPixels } from '@/lib/analysis/gray-pixels';
 import { decodeImageBytes } from '@/lib/analysis/node/decode';
 import type { GrayImage } from '@/lib/analysis/types';
 import { getPhotoSource } from '@/db/queries/photos';
@@ -24,4 +26,12 @@ export async function loadPhotoBytes(organizationId: string, photoId: string): P
 export async function loadPhotoGray(organizationId: string, photoId: string): Promise<GrayImage> {
   const { bytes } = await loadPhotoBytes(organizationId, photoId);
   return decodeImageBytes(bytes);
+}
+
+/**
+ * The same gray pixels for the browser's analysis worker (lib/analysis/gray-pixels.ts layout),
+ * gzip-compressed: the worker analyses exactly what the server analyses when a result is saved.
+ */
+export async function loadPhotoGrayPixels(organizationId: string, photoId: string): Promise<Uint8Array> {
+  return gzipSync(encodeGrayPixels(await loadPhotoGray(organizationId, photoId)), { level: 3 });
 }

@@ -416,7 +416,10 @@ export function fitYoungLaplace(points: FramePoints, options: FitOptions = {}): 
   if (options.symmetricOnly) return whole;
   const [u0, v0, b, bond] = whole.parameters;
   const iterations = quick ? 6 : 10;
-  const candidates = (['stage', 'sides'] as const).map((kind) => {
+  // A quick fit started from a previous one keeps its model.
+  const kinds: Array<'stage' | 'sides'> =
+    quick && previous && previous.kind !== 'symmetric' ? [previous.kind] : ['stage', 'sides'];
+  const candidates = kinds.map((kind) => {
     const seed =
       previous && previous.kind === kind
         ? previous.parameters
