@@ -27,13 +27,13 @@ const cache = new DetectionCache(async (url) => {
   const response = await fetch(url, { credentials: 'same-origin' });
   if (!response.ok) {
     throw new AnalysisError(
-      'bad-input',
+      'bad_input',
       response.status === 404
         ? 'This photo is no longer available; remove it from the strip.'
         : `The photo's pixels could not be loaded (HTTP ${response.status}); reload the page.`,
     );
   }
-  if (!response.body) throw new AnalysisError('bad-input', 'The photo’s pixels arrived empty; reload the page.');
+  if (!response.body) throw new AnalysisError('bad_input', 'The photo’s pixels arrived empty; reload the page.');
   return readGzipGrayPixels(response.body);
 });
 let draining = false;
@@ -87,7 +87,7 @@ async function drain(): Promise<void> {
           timing: { pixelsMs, detectMs, measureMs },
         });
       } catch (error) {
-        const code = error instanceof AnalysisError ? error.code : 'internal-error';
+        const code = error instanceof AnalysisError ? error.code : 'internal_error';
         const message = error instanceof Error ? error.message : String(error);
         post({ type: 'error', requestId, dropId, quality, error: { code, message } });
       }

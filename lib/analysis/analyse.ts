@@ -139,12 +139,12 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   const { offsetX, offsetY, settings } = detection;
   const method = options.method ?? DEFAULT_METHOD;
   const fitter = fitterFor(method);
-  if (!fitter) throw new AnalysisError('bad-input', `Unknown method "${method}".`);
+  if (!fitter) throw new AnalysisError('bad_input', `Unknown method "${method}".`);
   const warnings: AnalysisWarning[] = [];
   if (detection.lowContrast) {
     warnings.push(
       warning(
-        'low-contrast',
+        'low_contrast',
         'The drop stands out only weakly from the backlight; check lighting and exposure.',
       ),
     );
@@ -159,7 +159,7 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   } else {
     if (!detection.automaticBaseline) {
       throw new AnalysisError(
-        'baseline-not-found',
+        'baseline_not_found',
         'No substrate line was found beside the drop; drag the baseline onto the substrate surface and analyse again.',
       );
     }
@@ -168,7 +168,7 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
     if (detection.automaticFromMirror) {
       warnings.push(
         warning(
-          'baseline-not-found',
+          'baseline_not_found',
           'No substrate line was visible; the baseline was placed where the drop meets its reflection. Check it and drag it if needed.',
         ),
       );
@@ -178,7 +178,7 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   try {
     frame = new BaselineFrame(baseline);
   } catch {
-    throw new AnalysisError('bad-input', 'The baseline needs two different points.');
+    throw new AnalysisError('bad_input', 'The baseline needs two different points.');
   }
   // The substrate line seen in the photo, to check a hand-drawn baseline against.
   const substrate =
@@ -188,7 +188,7 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   const profile = detection.outline.profileFor(frame, substrate ?? undefined);
   if (!profile || profile.points.length < settings.minProfilePoints) {
     throw new AnalysisError(
-      'no-drop-found',
+      'no_drop_found',
       substrate
         ? 'No drop silhouette was found resting on this baseline; drag it onto the substrate surface where the drop meets it.'
         : 'No drop silhouette was found resting on the baseline.',
@@ -197,7 +197,7 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   if (profile.needleInContact) {
     warnings.push(
       warning(
-        'needle-in-contact',
+        'needle_in_contact',
         'The needle still touches the drop; its top is hidden and the shape may be pulled.',
       ),
     );
@@ -205,7 +205,7 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   if (profile.touchesBorder) {
     warnings.push(
       warning(
-        'drop-cut-by-border',
+        'drop_cut_by_border',
         'The drop reaches the image border; part of its outline is missing.',
       ),
     );
@@ -237,7 +237,7 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   if (leftCount < settings.minEdgePointsPerSide || rightCount < settings.minEdgePointsPerSide) {
     warnings.push(
       warning(
-        'too-few-edge-points',
+        'too_few_edge_points',
         `Only ${leftCount} left and ${rightCount} right edge points were usable; the angles are uncertain.`,
       ),
     );
@@ -250,14 +250,14 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   if (!reported.converged)
     warnings.push(
       warning(
-        'fit-did-not-converge',
+        'fit_did_not_converge',
         'The profile fit did not converge; treat the angles with care.',
       ),
     );
   const angles = reported.angles();
   if (!Number.isFinite(angles.leftDeg) || !Number.isFinite(angles.rightDeg)) {
     throw new AnalysisError(
-      'fit-failed',
+      'fit_failed',
       'The fitted profile does not meet the baseline; check the baseline position.',
     );
   }
@@ -284,7 +284,7 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   ) {
     warnings.push(
       warning(
-        'fit-did-not-converge',
+        'fit_did_not_converge',
         'The fit leaves the angle almost undetermined; try another method or check the baseline.',
       ),
     );
@@ -293,7 +293,7 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
     const d = angles.leftDeg - angles.rightDeg;
     warnings.push(
       warning(
-        'left-right-disagree',
+        'left_right_disagree',
         `Left and right differ by ${Math.abs(d).toFixed(1)}° (the left ${d > 0 ? 'higher' : 'lower'}), more than the ±${(settings.leftRightSignificance * choice.differenceErrorDeg).toFixed(1)}° edge noise explains: the drop is not symmetric (a tilted stage, a pinned or moving contact line) or the baseline is tilted against the substrate. Each side is measured on its own half of the profile.`,
       ),
     );
@@ -393,7 +393,7 @@ function checkBaseline(
       const change = Math.abs(miss) * sensitivity[side];
       warnings.push(
         warning(
-          'baseline-off-contact',
+          'baseline_off_contact',
           `The baseline passes ${Math.abs(miss).toFixed(1)} px ${miss > 0 ? 'below' : 'above'} the ${side} contact point (x ${(x + offsetX).toFixed(1)}, y ${(y + offsetY).toFixed(1)}), where the drop meets the substrate line found in the photo, so the ${side} angle is read ${miss > 0 ? 'below the drop, where the fitted profile is extended to the baseline' : 'on the drop above its contact line'}; about ${change.toFixed(1)}° from the value at the contact point. Drag the baseline's ${end} end onto the contact point, or use the automatic baseline.`,
         ),
       );
@@ -413,7 +413,7 @@ function checkBaseline(
       if (!reaches) continue;
       warnings.push(
         warning(
-          'baseline-off-contact',
+          'baseline_off_contact',
           `On the ${side} the outline above the baseline runs along it to the image border: the baseline lies below the substrate surface there (its ${side} end, near x ${(x + offsetX).toFixed(0)}). Drag it up onto the substrate where the drop meets it.`,
         ),
       );
@@ -431,7 +431,7 @@ function runFit(
 ): ProfileFit {
   if (points.u.length < 8)
     throw new AnalysisError(
-      'no-drop-found',
+      'no_drop_found',
       'Too few edge points above the baseline to fit a profile.',
     );
   try {
@@ -439,7 +439,7 @@ function runFit(
   } catch (error) {
     if (error instanceof AnalysisError) throw error;
     throw new AnalysisError(
-      'fit-failed',
+      'fit_failed',
       `The ${fitter.method} fit failed on these edge points (${(error as Error).message}); check the baseline or try another method.`,
     );
   }

@@ -34,7 +34,7 @@ export function decodeGrayPixels(bytes: ArrayBuffer | Uint8Array): GrayImage {
   const u8 = bytes instanceof Uint8Array ? bytes : new Uint8Array(bytes);
   const fail = (): never => {
     throw new AnalysisError(
-      'bad-input',
+      'bad_input',
       'The photo’s pixels arrived incomplete or in an unknown form; reload the page.',
     );
   };

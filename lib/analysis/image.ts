@@ -16,13 +16,13 @@ export function validateImage(image: GrayImage): void {
   const { width, height, data } = image;
   if (!Number.isInteger(width) || !Number.isInteger(height) || width < 16 || height < 16) {
     throw new AnalysisError(
-      'bad-input',
+      'bad_input',
       `Image size ${width}×${height} is too small; use at least 320×240 pixels.`,
     );
   }
   if (data.length !== width * height) {
     throw new AnalysisError(
-      'bad-input',
+      'bad_input',
       `Pixel buffer holds ${data.length} samples but ${width}×${height} needs ${width * height}; pass one gray sample per pixel.`,
     );
   }
@@ -53,7 +53,7 @@ export function pixelImage(
   const height = y1 - y0;
   if (width < 16 || height < 16)
     throw new AnalysisError(
-      'bad-input',
+      'bad_input',
       'The region of interest is too small or outside the image.',
     );
   const out =

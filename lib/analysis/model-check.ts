@@ -128,7 +128,7 @@ export function checkModel(
           ? `gravity flattens this drop (Bond number ≈ ${bond.toFixed(2)})`
           : 'this drop is not that shape';
     warnings.push({
-      code: 'model-bias',
+      code: 'model_bias',
       message:
         `${LABEL[method]} ${ASSUMES[method]}, but ${why}: for a drop of this shape it reads about ` +
         `${fmt(modelBiasDeg.left)} ${lowHigh(modelBiasDeg.left)} on the left and ` +
@@ -148,7 +148,7 @@ export function checkModel(
 
 function disagreement(method: FitMethod, side: 'left' | 'right', off: number): AnalysisWarning {
   return {
-    code: 'angle-uncertain',
+    code: 'angle_uncertain',
     message:
       `On the ${side}, ${LABEL[method].replace(/^The /, 'the ')} reads ${fmt(off)} ${off < 0 ? 'below' : 'above'} ` +
       `the Young–Laplace profile fitted to the same edge points: the points near the contact line ` +
@@ -172,7 +172,7 @@ function checkYoungLaplace(fit: ProfileFit): ModelCheck {
   const warnings: AnalysisWarning[] = [];
   if (systematic > 0.5 && systematic > 2 * scatter) {
     warnings.push({
-      code: 'model-misfit',
+      code: 'model_misfit',
       message: `The Young–Laplace profile leaves a systematic misfit of ${systematic.toFixed(1)} px along the outline: the drop is not axisymmetric (a needle pulling it, a contaminated or uneven surface) or the outline is disturbed. Treat the angles with care.`,
     });
   }

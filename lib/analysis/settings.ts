@@ -57,7 +57,7 @@ export interface AnalysisSettings {
   /** Points closer to the baseline than max(this, fitMarginPerBlur × edge blur σ) are not fitted. */
   fitMarginPx: number;
   fitMarginPerBlur: number;
-  /** Fewer usable points than this on a side raises `too-few-edge-points`. */
+  /** Fewer usable points than this on a side raises `too_few_edge_points`. */
   minEdgePointsPerSide: number;
 
   /** Circle: the contact-line window reaches this share of the radius beyond the nearest point. */
@@ -118,17 +118,25 @@ export const DEFAULT_SETTINGS: Readonly<AnalysisSettings> = Object.freeze({
   undeterminedAngleDeg: 30,
 } satisfies AnalysisSettings);
 
-/** The defaults with `overrides` applied; unknown keys are dropped, values are checked. */
+/** The defaults with `overrides` applied; unknown keys and values that do not fit are refused. */
 export function resolveSettings(overrides?: Partial<AnalysisSettings>): AnalysisSettings {
   const settings: AnalysisSettings = { ...DEFAULT_SETTINGS };
   if (!overrides) return settings;
+  for (const key of Object.keys(overrides)) {
+    if (!(key in DEFAULT_SETTINGS)) {
+      throw new AnalysisError(
+        'bad_input',
+        `There is no analysis setting "${key}"; the settings are ${Object.keys(DEFAULT_SETTINGS).join(', ')}.`,
+      );
+    }
+  }
   for (const key of Object.keys(DEFAULT_SETTINGS) as Array<keyof AnalysisSettings>) {
     const value = overrides[key];
     if (value === undefined) continue;
     const auto = DEFAULT_SETTINGS[key] === 'auto';
     if (!(auto && value === 'auto') && !(typeof value === 'number' && Number.isFinite(value))) {
       throw new AnalysisError(
-        'bad-input',
+        'bad_input',
         `Setting ${key} must be a finite number${auto ? " or 'auto'" : ''}; got ${JSON.stringify(value)}.`,
       );
     }

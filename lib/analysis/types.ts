@@ -61,24 +61,24 @@ export interface AnalyseOptions {
 }
 
 export type WarningCode =
-  | 'left-right-disagree'
-  | 'low-contrast'
-  | 'drop-cut-by-border'
-  | 'needle-in-contact'
-  | 'too-few-edge-points'
-  | 'baseline-not-found'
-  | 'baseline-off-contact'
-  | 'fit-did-not-converge'
-  | 'model-bias'
-  | 'model-misfit'
-  | 'angle-uncertain';
+  | 'left_right_disagree'
+  | 'low_contrast'
+  | 'drop_cut_by_border'
+  | 'needle_in_contact'
+  | 'too_few_edge_points'
+  | 'baseline_not_found'
+  | 'baseline_off_contact'
+  | 'fit_did_not_converge'
+  | 'model_bias'
+  | 'model_misfit'
+  | 'angle_uncertain';
 
 export interface AnalysisWarning {
   code: WarningCode;
   message: string;
 }
 
-export type AnalysisErrorCode = 'no-drop-found' | 'baseline-not-found' | 'fit-failed' | 'bad-input';
+export type AnalysisErrorCode = 'no_drop_found' | 'baseline_not_found' | 'fit_failed' | 'bad_input';
 
 /** Thrown by `analyseDrop` when no result can be produced at all. */
 export class AnalysisError extends Error {

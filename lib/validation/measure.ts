@@ -21,6 +21,12 @@ export const saveDropAnalysisSchema = z.object({
   /** null: use the automatic baseline. */
   baseline: baselineSchema.nullable(),
   scalePxPerMm: z.number().positive('The camera scale must be above 0 px/mm.').max(100_000).nullable().optional(),
+  /** Analysis settings other than the defaults (lib/analysis/settings.ts); stored with the result. */
+  settings: z
+    .record(z.string(), z.union([z.number().finite(), z.literal('auto')]), {
+      error: 'Analysis settings are numbers (or "auto" where the default is).',
+    })
+    .optional(),
 });
 
 export type SaveDropAnalysisInput = z.infer<typeof saveDropAnalysisSchema>;

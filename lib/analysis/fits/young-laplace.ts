@@ -23,7 +23,7 @@ import {
   integrateYoungLaplace,
   profileAtDepth,
   type YoungLaplaceProfile,
-} from '../young-laplace';
+} from '../young-laplace-profile';
 import { fitWholeCircle } from './circle';
 import { levenbergMarquardt, sumOfSquares } from './least-squares';
 import {

@@ -72,7 +72,7 @@ describe('each side measured on its own side (asymmetric drops)', () => {
       const gap = o.drop.truth.leftAngleDeg - o.drop.truth.rightAngleDeg;
       if (Math.abs(gap) >= 1) {
         expect(Math.sign(o.result.leftDeg - o.result.rightDeg), describeCase(o)).toBe(Math.sign(gap));
-        expect(codes(o), describeCase(o)).toContain('left-right-disagree');
+        expect(codes(o), describeCase(o)).toContain('left_right_disagree');
       }
     }
   });
@@ -94,7 +94,7 @@ describe('each side measured on its own side (asymmetric drops)', () => {
 
   it('level drops are reported symmetric by Young–Laplace, without a left–right warning', () => {
     for (const o of of('young-laplace').filter((x) => !asymmetric(x))) {
-      expect(codes(o), describeCase(o)).not.toContain('left-right-disagree');
+      expect(codes(o), describeCase(o)).not.toContain('left_right_disagree');
     }
   });
 });
@@ -130,8 +130,8 @@ describe('heavy (β 0.5–0.8) and very high (160°–170°) drops', () => {
         if (worst(o) > 1) expect(codes(o).length, describeCase(o)).toBeGreaterThan(0);
         // Gravity-flattened drops above 90° are where the cap fails by degrees: always named.
         if (heavy(o) && o.drop.truth.contactAngleDeg >= 90)
-          expect(codes(o), describeCase(o)).toContain('model-bias');
-        if (!codes(o).includes('model-bias')) continue;
+          expect(codes(o), describeCase(o)).toContain('model_bias');
+        if (!codes(o).includes('model_bias')) continue;
         const bias = o.result.modelCheck.modelBiasDeg as { left: number; right: number };
         // The bias of the model for a drop of this shape, against the error on the photo (which also
         // holds the edge noise): within a third of its size plus 0.5°.

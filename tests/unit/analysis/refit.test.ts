@@ -86,7 +86,7 @@ describe('the worker’s detection cache', () => {
     let fail = true;
     const image = renderDrop({ contactAngleDeg: 70, seed: 35 }).image;
     const cache = new DetectionCache(async () => {
-      if (fail) throw new AnalysisError('bad-input', 'not yet');
+      if (fail) throw new AnalysisError('bad_input', 'not yet');
       return image;
     });
     await expect(cache.detection(cv, 'a', '/a', {})).rejects.toThrow('not yet');

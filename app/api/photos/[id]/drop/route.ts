@@ -34,6 +34,7 @@ export const POST = route<Params>(
       method: body.method as FitMethod,
       ...(body.baseline ? { baseline: body.baseline } : {}),
       ...(body.scalePxPerMm ? { scalePxPerMm: body.scalePxPerMm } : {}),
+      ...(body.settings ? { settings: body.settings } : {}),
     };
     let result;
     try {
@@ -55,7 +56,11 @@ export const POST = route<Params>(
       analysis: {
         method: body.method,
         baseline: body.baseline,
-        options: { scalePxPerMm: body.scalePxPerMm ?? null, baselineSource: result.baselineSource },
+        options: {
+          scalePxPerMm: body.scalePxPerMm ?? null,
+          baselineSource: result.baselineSource,
+          settings: result.settings,
+        },
         result: { ...kept, edgePointCount: result.edgePointCount },
         softwareVersion: SOFTWARE_VERSION,
       },
