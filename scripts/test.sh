@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # `npm test`: set up what the tests need, then type check, lint, and run unit, integration
 # (real PostgreSQL) and end-to-end (Debian's Chromium) tests. Ends with the runner's summary.
+# Arguments go to vitest: `npm test -- tests/e2e/review.test.ts` runs the set-up, then only that file.
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 source "$(dirname "$0")/ffmpeg.sh"
@@ -57,6 +58,6 @@ wait_for_url "$E2E_BASE_URL/api/health" "test-server"
 step "Unit, integration and end-to-end tests"
 status=0
 npx --no-install vitest run --reporter=default --reporter=json \
-  --outputFile.json="$DATA_DIR/vitest-results.json" || status=$?
+  --outputFile.json="$DATA_DIR/vitest-results.json" "$@" || status=$?
 node "$ROOT/scripts/test-summary.mjs" "$DATA_DIR/vitest-results.json" || status=1
 exit "$status"
