@@ -63,10 +63,21 @@ afterAll(async () => {
   await closeDb();
 });
 
-const save = (body: Record<string, unknown>) =>
-  POST(apiRequest(`/api/photos/${photoId}/drop`, { method: 'POST', sessionId: analyst.sessionId, body }), {
-    params: Promise.resolve({ id: photoId }),
-  });
+/** The photo's drop revision the next save is based on (saves carry expectedRevision). */
+let latestRevision = 0;
+
+async function save(body: Record<string, unknown>) {
+  const response = await POST(
+    apiRequest(`/api/photos/${photoId}/drop`, {
+      method: 'POST',
+      sessionId: analyst.sessionId,
+      body: { ...body, expectedRevision: latestRevision },
+    }),
+    { params: Promise.resolve({ id: photoId }) },
+  );
+  if (response.status === 201) latestRevision += 1;
+  return response;
+}
 
 async function storedRow(analysisId: string) {
   const [row] = await getDb().select().from(analyses).where(eq(analyses.id, analysisId));
