@@ -54,6 +54,7 @@ export const ERROR_CODES = [
   'fit_failed',
   'bad_input',
   // The server itself
+  'busy',
   'database_unreachable',
   'internal',
 ] as const;
