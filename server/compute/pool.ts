@@ -96,6 +96,13 @@ export async function runCompute<T extends ComputeTask>(
   }
 }
 
+/** Calculations running or waiting in the pool, all users together (for /api/health). */
+export function computeInFlight(): number {
+  let total = 0;
+  for (const count of shared.beadlineCompute?.inFlight.values() ?? []) total += count;
+  return total;
+}
+
 /** Stops the pool's threads (tests and scripts); the next task starts a new pool. */
 export async function closeComputePool(): Promise<void> {
   const current = shared.beadlineCompute;

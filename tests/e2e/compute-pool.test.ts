@@ -41,13 +41,16 @@ describe('pendant-drop fits in the compute pool', () => {
         return { status: response.status, body: await response.json() };
       }),
     );
-    // Long enough for the four bodies to arrive over loopback; far shorter than four fits.
-    await sleep(1500);
-
-    const health = await fetch(`${BASE_URL}/api/health`);
-    expect(health.status).toBe(200);
+    // /api/health answers while the fits run, and says when all four are in the pool.
+    for (let inFlight = 0; inFlight < 4;) {
+      const health = await fetch(`${BASE_URL}/api/health`);
+      expect(health.status).toBe(200);
+      inFlight = (await health.json()).compute.inFlight;
+      expect(finished).toBe(0);
+      if (inFlight < 4) await sleep(100);
+    }
     const busy = await postPendant(cookie, JSON.stringify(pendantEdgeBody(100)));
-    // What this test is about: both answers came while the four fits were still running.
+    // What this test is about: the answers came while the four fits were still running.
     expect(finished).toBe(0);
     expect(busy.status).toBe(429);
     expect(Number(busy.headers.get('retry-after'))).toBeGreaterThan(0);
