@@ -115,7 +115,6 @@ export async function listPage<Item>(spec: {
   return { items, total, page: spec.query.page, pageSize: spec.query.pageSize };
 }
 
-
 /** One record by id within `scope` (the organization's rows, or what it may see); locked on request. */
 export async function findRecord<Row>(
   db: Executor,

@@ -2,10 +2,7 @@ import 'server-only';
 import { DrizzlePostgreSQLAdapter } from '@lucia-auth/adapter-drizzle';
 import { Lucia, TimeSpan, type DatabaseSession, type DatabaseUser } from 'lucia';
 import { getDb } from '@/db/client';
-import {
-  findSessionWithMemberships,
-  type MembershipSummary,
-} from '@/db/queries/organizations';
+import { findSessionWithMemberships, type MembershipSummary } from '@/db/queries/organizations';
 import { sessions, users } from '@/db/schema';
 import { appUrl } from '@/lib/config';
 
