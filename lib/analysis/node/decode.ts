@@ -10,7 +10,7 @@ import { MAX_ANALYSIS_PIXELS, tooManyPixelsMessage } from '../image';
 import type { GrayImage } from '../types';
 
 export class DecodeError extends Error {
-  readonly code = 'unreadable-image' as const;
+  readonly code = 'unreadable_image' as const;
 }
 
 export async function decodeImageFile(path: string): Promise<GrayImage> {

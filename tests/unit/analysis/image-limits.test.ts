@@ -6,13 +6,13 @@ import { MAX_ANALYSIS_PIXELS } from '@/lib/analysis/image';
 import { DecodeError, decodeImageBytes } from '@/lib/analysis/node/decode';
 
 describe('pixel limit of the analysis', () => {
-  it('refuses more than MAX_ANALYSIS_PIXELS gray samples with bad-input', async () => {
+  it('refuses more than MAX_ANALYSIS_PIXELS gray samples with bad_input', async () => {
     const width = 8000;
     const height = MAX_ANALYSIS_PIXELS / width + 1;
     const image = { width, height, data: new Uint8Array(width * height) };
     const refusal = await analyseDrop(image).catch((error: unknown) => error);
     expect(refusal).toBeInstanceOf(AnalysisError);
-    expect((refusal as AnalysisError).code).toBe('bad-input');
+    expect((refusal as AnalysisError).code).toBe('bad_input');
     expect((refusal as AnalysisError).message).toMatch(/at most 40 MP\. Crop the photo/);
   });
 
