@@ -58,6 +58,7 @@ export const ERROR_CODES = [
   // Drop saves
   'stale_revision',
   // The server itself
+  'busy',
   'database_unreachable',
   'internal',
 ] as const;

@@ -24,10 +24,10 @@ export async function loadComparePage(ctx: OrgContext, query: CompareQuery) {
   const visibility = resultVisibility(role);
   const approvedOnly = visibility === 'approved';
   const coatings = await listComparisonCoatings(organizationId);
-  const coating =
-    coatings.length > 0 && query.coating
-      ? await findComparisonCoating(organizationId, query.coating)
-      : null;
+  // The chosen coating is one of the live coatings just listed: no second round trip.
+  const coating = query.coating
+    ? (coatings.find((c) => c.id === query.coating || c.code === query.coating) ?? null)
+    : null;
   const data = coating
     ? await loadComparison(organizationId, coating.id, { batches: query.batches, visibility })
     : null;

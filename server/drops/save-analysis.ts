@@ -13,7 +13,6 @@ import { getPhoto } from '@/db/queries/photos';
 import { findRecord, ownedBy, probeLiquidVisibleTo } from '@/db/queries/records';
 import { inTransaction, type Transaction } from '@/db/queries/transaction';
 import { measurementSessions, probeLiquids, samples } from '@/db/schema';
-import { analyseDrop } from '@/lib/analysis';
 import { AnalysisError } from '@/lib/analysis/types';
 import { AppError, notFound } from '@/lib/app-error';
 import type {
@@ -23,6 +22,7 @@ import type {
 } from '@/lib/contracts/drops';
 import type { Actor } from '../actor';
 import { refreshVerdictOfSampleQuietly } from '../alerts/refresh-verdict';
+import { runCompute } from '../compute/pool';
 import { loadPhotoGray } from '../photos/pixels';
 import { fromAnalysisError } from './analysis-error';
 
@@ -76,11 +76,16 @@ export async function saveDropAnalysis(
   const image = await loadPhotoGray(actor.organizationId, photoId);
   let analysed;
   try {
-    analysed = await analyseDrop(image, {
-      method: input.method,
-      ...(input.baseline ? { baseline: input.baseline } : {}),
-      ...(input.scalePxPerMm ? { scalePxPerMm: input.scalePxPerMm } : {}),
-      ...(input.settings ? { settings: input.settings } : {}),
+    // In the compute pool, off the request thread; the same lib/analysis code, the same numbers.
+    analysed = await runCompute(actor.userId, {
+      kind: 'analyse-drop',
+      image,
+      options: {
+        method: input.method,
+        ...(input.baseline ? { baseline: input.baseline } : {}),
+        ...(input.scalePxPerMm ? { scalePxPerMm: input.scalePxPerMm } : {}),
+        ...(input.settings ? { settings: input.settings } : {}),
+      },
     });
   } catch (error) {
     if (error instanceof AnalysisError) {

@@ -54,6 +54,7 @@ export const HTTP_STATUS = {
   baseline_not_found: 422,
   fit_failed: 422,
   bad_input: 422,
+  busy: 429,
   database_unreachable: 503,
   internal: 500,
 } as const satisfies Record<ErrorCode, number>;
@@ -89,5 +90,9 @@ export function describeError(error: unknown, where: string): Described {
 
 export function errorResponse(error: unknown): Response {
   const { status, body } = describeError(error, 'api');
-  return Response.json(body, { status });
+  const retryAfter = error instanceof AppError ? error.retryAfterSeconds : undefined;
+  return Response.json(body, {
+    status,
+    headers: retryAfter === undefined ? undefined : { 'Retry-After': String(retryAfter) },
+  });
 }
