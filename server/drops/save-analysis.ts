@@ -135,7 +135,10 @@ export async function saveDropAnalysis(
         revision,
         method: input.method,
         baseline: input.baseline,
-        options: { scalePxPerMm: input.scalePxPerMm ?? null, baselineSource: result.baselineSource },
+        options: {
+          scalePxPerMm: input.scalePxPerMm ?? null,
+          baselineSource: result.baselineSource,
+        },
         result,
         createdByUserId: actor.userId,
       }),

@@ -3,7 +3,6 @@ import { createHash } from 'node:crypto';
 import type { z } from 'zod';
 import { AppError } from '@/lib/app-error';
 import { clientAddress } from '@/lib/auth/origin';
-import type { Action } from '@/lib/auth/permissions';
 import { RateLimiter } from '@/lib/auth/rate-limit';
 import { parseSearchParams } from '@/lib/contracts/common';
 import { authenticateApiToken, bearerToken, type TokenCaller } from '../api-tokens/authenticate';
@@ -12,6 +11,7 @@ import {
   completeIdempotencyKey,
   releaseIdempotencyKey,
 } from '../api-v1/idempotency';
+import type { V1Endpoint } from '@/lib/contracts/api-v1-endpoints';
 import { DEFAULT_MAX_BODY_BYTES, parseJsonObject, parseMultipart, readBodyBytes } from './body';
 import { describeError } from './errors';
 
@@ -24,36 +24,21 @@ import { describeError } from './errors';
  * body of lib/contracts/errors.ts.
  */
 
-type Schema = z.ZodType | undefined;
-type Parsed<S extends Schema> = S extends z.ZodType ? z.output<S> : undefined;
+type Parsed<S> = S extends z.ZodType ? z.output<S> : undefined;
 
-export type ApiV1Config<P extends Schema, B extends Schema, Q extends Schema> = {
-  /** The permission the token's scope must give (lib/auth/permissions.ts, API_TOKEN_SCOPE_ACTIONS). */
-  access: Action;
-  /** "… does not allow you to <what> with an API token of scope …". */
-  what: string;
-  params?: P;
-  query?: Q;
-  /** The JSON body, or with `multipart` the text fields of a multipart/form-data body. */
-  body?: B;
-  multipart?: boolean;
-  maxBodyBytes?: number;
-};
-
-export type ApiV1Input<P extends Schema, B extends Schema, Q extends Schema> = {
+export type ApiV1Input<E extends V1Endpoint> = {
   request: Request;
   caller: TokenCaller;
   ipAddress: string;
-  params: Parsed<P>;
-  query: Parsed<Q>;
-  body: Parsed<B>;
+  params: Parsed<E['params']>;
+  query: Parsed<E['query']>;
+  body: Parsed<E['body']>;
   /** The file parts of a multipart body. */
   files: Record<string, File>;
 };
 
-type RouteContext<P extends Schema> = P extends z.ZodType
-  ? { params: Promise<z.input<P>> }
-  : unknown;
+/** The second argument Next passes to a route handler. */
+type RouteContext<P> = P extends z.ZodType ? { params: Promise<z.input<P>> } : unknown;
 
 /** Requests per token per minute (API_RATE_LIMIT_PER_MINUTE, default 120). */
 export function apiRateLimitPerMinute(env: NodeJS.ProcessEnv = process.env): number {
@@ -116,14 +101,15 @@ function requestHash(request: Request, bytes: Uint8Array): string {
     .digest('hex');
 }
 
-export function apiV1Route<
-  P extends Schema = undefined,
-  B extends Schema = undefined,
-  Q extends Schema = undefined,
->(
-  config: ApiV1Config<P, B, Q>,
-  handler: (input: ApiV1Input<P, B, Q>) => Promise<Response>,
-): (request: Request, context: RouteContext<P>) => Promise<Response> {
+/**
+ * A route handler of /api/v1 from its entry in V1_ENDPOINTS (lib/contracts/api-v1-endpoints.ts):
+ * the handler calls one service and hands back the reply, answered with the entry's status.
+ */
+export function apiV1Route<E extends V1Endpoint>(
+  endpoint: E,
+  handler: (input: ApiV1Input<E>) => Promise<z.output<E['reply']>>,
+): (request: Request, context: RouteContext<E['params']>) => Promise<Response> {
+  const config = endpoint;
   return async (request, context) => {
     let claimed: { tokenId: string; key: string } | null = null;
     try {
@@ -171,12 +157,8 @@ export function apiV1Route<
           body = config.body.parse(parseJsonObject(bytes));
         }
       }
-      const input = { request, caller, ipAddress, params, query, body, files } as ApiV1Input<
-        P,
-        B,
-        Q
-      >;
-      const response = await handler(input);
+      const input = { request, caller, ipAddress, params, query, body, files } as ApiV1Input<E>;
+      const response = Response.json(await handler(input), { status: config.status });
       if (claimed) return await remember(claimed, response);
       return request.method === 'GET' ? await withEtag(request, response) : response;
     } catch (error) {
