@@ -93,12 +93,29 @@ async function withEtag(request: Request, response: Response): Promise<Response>
   return new Response(text, { status: 200, headers });
 }
 
-function requestHash(request: Request, bytes: Uint8Array): string {
+/** What makes two requests the same: method, path and query, and the body's content. */
+function requestHash(request: Request, content: Uint8Array[]): string {
   const url = new URL(request.url);
-  return createHash('sha256')
-    .update(`${request.method} ${url.pathname}${url.search}\n`)
-    .update(bytes)
-    .digest('hex');
+  const hash = createHash('sha256').update(`${request.method} ${url.pathname}${url.search}\n`);
+  for (const part of content) hash.update(part);
+  return hash.digest('hex');
+}
+
+/**
+ * A multipart body's content without its boundary (random for every request a client builds):
+ * the fields by name, then each file's name and bytes.
+ */
+async function multipartContent(form: {
+  fields: Record<string, string>;
+  files: Record<string, File>;
+}): Promise<Uint8Array[]> {
+  const encoder = new TextEncoder();
+  const parts = [encoder.encode(JSON.stringify(Object.entries(form.fields).sort()))];
+  for (const [name, file] of Object.entries(form.files).sort(([a], [b]) => a.localeCompare(b))) {
+    parts.push(encoder.encode(`\n${name}:${file.name}:${file.size}\n`));
+    parts.push(new Uint8Array(await file.arrayBuffer()));
+  }
+  return parts;
 }
 
 /**
@@ -134,12 +151,21 @@ export function apiV1Route<E extends V1Endpoint>(
       let files: Record<string, File> = {};
       if (config.body) {
         const bytes = await readBodyBytes(request, config.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES);
-        const idempotencyKey = request.headers.get('idempotency-key');
-        if (idempotencyKey !== null) {
+        let content: Uint8Array[] = [bytes];
+        if (config.multipart) {
+          const form = await parseMultipart(bytes, request.headers.get('content-type'));
+          body = config.body.parse(form.fields);
+          files = form.files;
+          content = await multipartContent(form);
+        } else {
+          body = config.body.parse(parseJsonObject(bytes));
+        }
+        const idempotencyKey = request.headers.get('idempotency-key')?.trim();
+        if (idempotencyKey !== undefined) {
           const claim = await claimIdempotencyKey(
             caller.tokenId,
-            idempotencyKey.trim(),
-            requestHash(request, bytes),
+            idempotencyKey,
+            requestHash(request, content),
           );
           if (claim.kind === 'replay') {
             return Response.json(claim.reply.body, {
@@ -147,14 +173,7 @@ export function apiV1Route<E extends V1Endpoint>(
               headers: { 'Idempotent-Replayed': 'true' },
             });
           }
-          claimed = { tokenId: caller.tokenId, key: idempotencyKey.trim() };
-        }
-        if (config.multipart) {
-          const form = await parseMultipart(bytes, request.headers.get('content-type'));
-          body = config.body.parse(form.fields);
-          files = form.files;
-        } else {
-          body = config.body.parse(parseJsonObject(bytes));
+          claimed = { tokenId: caller.tokenId, key: idempotencyKey };
         }
       }
       const input = { request, caller, ipAddress, params, query, body, files } as ApiV1Input<E>;
