@@ -73,6 +73,7 @@ export async function saveDropAnalysis(
       method: input.method,
       ...(input.baseline ? { baseline: input.baseline } : {}),
       ...(input.scalePxPerMm ? { scalePxPerMm: input.scalePxPerMm } : {}),
+      ...(input.settings ? { settings: input.settings } : {}),
     });
   } catch (error) {
     if (error instanceof AnalysisError) {
@@ -138,6 +139,7 @@ export async function saveDropAnalysis(
         options: {
           scalePxPerMm: input.scalePxPerMm ?? null,
           baselineSource: result.baselineSource,
+          settings: result.settings,
         },
         result,
         createdByUserId: actor.userId,
