@@ -10,7 +10,7 @@ import {
 import { deleteStoredFiles, storeServerFile } from '@/lib/uploads/server-upload';
 import type { Actor } from '../actor';
 import { saveDropAnalysis } from '../drops/save-analysis';
-import { recordUploadedPhoto } from '../photos/record-upload';
+import { inspectedPhotoRow, recordUploadedPhoto } from '../photos/record-upload';
 
 /**
  * A drop photo posted to the API by an instrument: checked from its bytes as browser uploads
@@ -41,22 +41,14 @@ export async function postDropPhoto(actor: Actor, fields: V1PhotoFields, file: F
   const stored = await storeServerFile(bytes, name, inspected.mime);
   let photoId: string;
   try {
-    ({ photoId } = await recordUploadedPhoto({
-      organizationId: actor.organizationId,
-      uploadedByUserId: actor.userId,
-      fileKey: stored.key,
-      url: stored.url,
-      originalName: name,
-      sizeBytes: bytes.length,
-      format: inspected.format,
-      width: inspected.width,
-      height: inspected.height,
-      bitDepth: inspected.bitDepth,
-      sha256: inspected.sha256,
-      thumbnailPng: inspected.thumbnailPng,
-      workingPng: inspected.orientedPng ?? null,
-      purpose: 'sessile-drop',
-    }));
+    ({ photoId } = await recordUploadedPhoto(
+      inspectedPhotoRow(
+        actor,
+        { key: stored.key, url: stored.url, name, size: bytes.length },
+        inspected,
+        'sessile-drop',
+      ),
+    ));
   } catch (error) {
     await deleteStoredFiles([stored.key]);
     throw error;
