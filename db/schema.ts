@@ -626,7 +626,7 @@ export const batchVerdicts = pgTable('batch_verdicts', {
 });
 
 // ---------------------------------------------------------------------------------------------
-// The versioned API (/api/v1): tokens for instruments and LIMS, idempotent replies, webhooks.
+// The versioned API (/api/v1): tokens for instruments and LIMS, and idempotent replies.
 // ---------------------------------------------------------------------------------------------
 
 /** What an API token may do: read records and results, measure (create and post photos), or both. */
@@ -679,50 +679,4 @@ export const apiIdempotencyKeys = pgTable(
     createdAt: createdAt(),
   },
   (t) => [primaryKey({ columns: [t.tokenId, t.key] })],
-);
-
-export const WEBHOOK_EVENTS = [
-  'analysis.saved',
-  'review.decided',
-  'batch.verdict_changed',
-] as const;
-export type WebhookEvent = (typeof WEBHOOK_EVENTS)[number];
-
-/** A URL an admin registered for some events; deliveries are signed with its secret. */
-export const webhooks = pgTable(
-  'webhooks',
-  {
-    id: text('id').primaryKey(),
-    organizationId: orgRef(),
-    url: text('url').notNull(),
-    events: text('events').array().$type<WebhookEvent[]>().notNull(),
-    secret: text('secret').notNull(),
-    createdByUserId: text('created_by_user_id').references(() => users.id, {
-      onDelete: 'set null',
-    }),
-    disabledAt: timestamp('disabled_at', { withTimezone: true }),
-    createdAt: createdAt(),
-  },
-  (t) => [index('webhooks_org_idx').on(t.organizationId)],
-);
-
-/** One event sent (or being sent) to one webhook, with its attempts. */
-export const webhookDeliveries = pgTable(
-  'webhook_deliveries',
-  {
-    id: text('id').primaryKey(),
-    webhookId: text('webhook_id')
-      .notNull()
-      .references(() => webhooks.id, { onDelete: 'cascade' }),
-    organizationId: orgRef(),
-    event: text('event').$type<WebhookEvent>().notNull(),
-    payload: jsonb('payload').notNull(),
-    attempts: integer('attempts').notNull().default(0),
-    lastStatus: integer('last_status'),
-    lastError: text('last_error'),
-    deliveredAt: timestamp('delivered_at', { withTimezone: true }),
-    createdAt: createdAt(),
-    updatedAt: updatedAt(),
-  },
-  (t) => [index('webhook_deliveries_hook_idx').on(t.webhookId, t.createdAt)],
 );
