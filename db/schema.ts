@@ -653,3 +653,59 @@ export const batchVerdicts = pgTable('batch_verdicts', {
   outcome: text('outcome').$type<'pass' | 'fail' | 'not-enough-data' | 'no-spec'>().notNull(),
   updatedAt: updatedAt(),
 });
+
+// ---------------------------------------------------------------------------------------------
+// The versioned API (/api/v1): tokens for instruments and LIMS, and idempotent replies.
+// ---------------------------------------------------------------------------------------------
+
+/** What an API token may do: read records and results, measure (create and post photos), or both. */
+export const apiTokenScopeEnum = pgEnum('api_token_scope', ['read', 'measure', 'read-measure']);
+
+/**
+ * A bearer token of an organization, made by an admin. Only its SHA-256 is kept (as the mailed
+ * tokens, lib/auth/tokens.ts); the token is shown once. Accepted by /api/v1 only.
+ */
+export const apiTokens = pgTable(
+  'api_tokens',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    name: text('name').notNull(),
+    scope: apiTokenScopeEnum('scope').notNull(),
+    /** The first characters of the token, to tell tokens apart in the list. */
+    prefix: text('prefix').notNull(),
+    tokenHash: text('token_hash').notNull(),
+    createdByUserId: text('created_by_user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    lastUsedAt: timestamp('last_used_at', { withTimezone: true }),
+    lastUsedAddress: text('last_used_address'),
+    revokedAt: timestamp('revoked_at', { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('api_tokens_token_hash_unique').on(t.tokenHash),
+    index('api_tokens_org_idx').on(t.organizationId),
+  ],
+);
+
+/**
+ * The reply to a request sent with an Idempotency-Key: the same token and key answer the same
+ * reply again instead of doing the work twice. `status` null while the first request runs.
+ */
+export const apiIdempotencyKeys = pgTable(
+  'api_idempotency_keys',
+  {
+    tokenId: text('token_id')
+      .notNull()
+      .references(() => apiTokens.id, { onDelete: 'cascade' }),
+    key: text('key').notNull(),
+    /** SHA-256 of method, path and body: the same key with another request is refused. */
+    requestHash: text('request_hash').notNull(),
+    status: integer('status'),
+    body: jsonb('body'),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.tokenId, t.key] })],
+);

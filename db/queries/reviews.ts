@@ -226,8 +226,15 @@ function reviewsWithNames(where: SQL | undefined) {
     .where(where);
 }
 
-/** The organization's newest 100 reviews; `submitted` for the queue, `decided` for the history. */
-export async function listReviews(organizationId: string, status?: 'submitted' | 'decided') {
+/**
+ * The organization's reviews, newest first (100 from the start unless `position` says);
+ * `submitted` for the queue, `decided` for the history.
+ */
+export async function listReviews(
+  organizationId: string,
+  status?: 'submitted' | 'decided',
+  position: { offset: number; limit: number } = { offset: 0, limit: 100 },
+) {
   return reviewsWithNames(
     and(
       eq(reviews.organizationId, organizationId),
@@ -238,8 +245,9 @@ export async function listReviews(organizationId: string, status?: 'submitted' |
           : undefined,
     ),
   )
-    .orderBy(desc(reviews.submittedAt))
-    .limit(100);
+    .orderBy(desc(reviews.submittedAt), desc(reviews.id))
+    .limit(position.limit)
+    .offset(position.offset);
 }
 
 /** A review of the organization; null when there is none here. */

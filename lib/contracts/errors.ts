@@ -21,6 +21,8 @@ export const ERROR_CODES = [
   'invalid_credentials',
   'too_many_attempts',
   'too_soon',
+  'rate_limited',
+  'idempotency_conflict',
   // Records
   'not_found',
   'archived',

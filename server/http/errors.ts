@@ -23,6 +23,8 @@ export const HTTP_STATUS = {
   invalid_credentials: 401,
   too_many_attempts: 429,
   too_soon: 429,
+  rate_limited: 429,
+  idempotency_conflict: 409,
   not_found: 404,
   archived: 409,
   duplicate: 409,

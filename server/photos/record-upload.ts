@@ -2,6 +2,7 @@ import 'server-only';
 import { recordAudit } from '@/db/queries/audit';
 import { newId } from '@/db/queries/ids';
 import { insertPhoto, type NewPhoto } from '@/db/queries/photos';
+import type { InspectedImage } from '@/lib/uploads/inspect-image';
 import { inTransaction } from '@/db/queries/transaction';
 
 /** Keeps an accepted upload as a `photos` row with its audit row, in one transaction. */
@@ -26,4 +27,29 @@ export async function recordUploadedPhoto(input: NewPhoto): Promise<{ photoId: s
     });
   });
   return { photoId };
+}
+
+/** The photo row of a stored file whose bytes lib/uploads/inspect-image.ts accepted. */
+export function inspectedPhotoRow(
+  owner: { organizationId: string; userId: string },
+  file: { key: string; url: string; name: string; size: number },
+  inspected: InspectedImage,
+  purpose: NonNullable<NewPhoto['purpose']>,
+): NewPhoto {
+  return {
+    organizationId: owner.organizationId,
+    uploadedByUserId: owner.userId,
+    fileKey: file.key,
+    url: file.url,
+    originalName: file.name,
+    sizeBytes: file.size,
+    format: inspected.format,
+    width: inspected.width,
+    height: inspected.height,
+    bitDepth: inspected.bitDepth,
+    sha256: inspected.sha256,
+    thumbnailPng: inspected.thumbnailPng,
+    workingPng: inspected.orientedPng ?? null,
+    purpose,
+  };
 }
