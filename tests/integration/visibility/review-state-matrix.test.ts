@@ -250,6 +250,7 @@ const NOT_IN_MATRIX: Record<string, string> = {
   'api/photos/[id]/drop': 'results:read-all',
   'api/photos/[id]/image': 'results:read-all',
   'api/photos/[id]/thumbnail': 'results:read-all',
+  'api/photos/[id]/pixels': 'results:read-all',
   'api/reviews': 'results:read-all',
   'api/reviews/[id]/decision': 'review:decide',
   'api/reviews/[id]/revocation': 'review:decide',
