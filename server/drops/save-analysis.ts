@@ -32,7 +32,11 @@ const missing = (field: string, what: string) =>
   });
 
 /** The sample, probe liquid and session a save names must be this organization's. */
-async function checkReferences(tx: Transaction, actor: Actor, input: SaveDropAnalysisInput) {
+export async function checkReferences(
+  tx: Transaction,
+  actor: Actor,
+  input: Pick<SaveDropAnalysisInput, 'sampleId' | 'probeLiquidId' | 'sessionId'>,
+) {
   const org = actor.organizationId;
   const sample = await findRecord<{ archivedAt: Date | null }>(
     tx,
