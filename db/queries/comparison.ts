@@ -3,6 +3,7 @@ import { and, asc, desc, eq, inArray, isNull, or, sql } from 'drizzle-orm';
 import type {
   ComparisonBatchInput,
   ComparisonDropInput,
+  ComparisonDynamicInput,
   ComparisonLiquidInput,
   ComparisonSpecInput,
 } from '@/lib/contracts/compare';
@@ -36,6 +37,7 @@ export interface ComparisonData {
   specs: ComparisonSpecInput[];
   liquids: ComparisonLiquidInput[];
   drops: ComparisonDropRow[];
+  dynamic: ComparisonDynamicInput[];
 }
 
 /** Live coatings of the organization, by code. */
@@ -145,6 +147,73 @@ export async function comparisonDrops(
   }));
 }
 
+type DynamicSqlRow = {
+  measurement_id: string;
+  batch_id: string;
+  sample_id: string;
+  sample_label: string;
+  probe_liquid_id: string;
+  measured_at: Date | string;
+  treated_at: Date | string | null;
+  advancing_deg: number | null;
+  receding_deg: number | null;
+  hysteresis_deg: number | null;
+  roll_off_deg: number | null;
+};
+
+const numberOrNull = (v: number | string | null) => (v === null ? null : Number(v));
+
+/**
+ * Every live dynamic measurement of the given batches with the values of its latest analysis
+ * revision (approved only, with `approvedOnly`, as for drops).
+ */
+export async function comparisonDynamic(
+  organizationId: string,
+  batchIds: readonly string[],
+  options: { approvedOnly: boolean },
+): Promise<ComparisonDynamicInput[]> {
+  if (batchIds.length === 0) return [];
+  const ids = sql.join(
+    batchIds.map((id) => sql`${id}`),
+    sql`, `,
+  );
+  const rows = await getDb().execute<DynamicSqlRow>(sql`
+    select m.id as measurement_id, b.id as batch_id, s.id as sample_id, s.label as sample_label,
+           m.probe_liquid_id, m.measured_at, s.treated_at,
+           a.advancing_deg, a.receding_deg, a.hysteresis_deg, a.roll_off_deg
+    from batches b
+    join samples s on s.batch_id = b.id and s.organization_id = b.organization_id
+                  and s.archived_at is null
+    join dynamic_measurements m on m.sample_id = s.id and m.organization_id = b.organization_id
+                               and m.archived_at is null
+    join lateral (
+      select x.advancing_deg, x.receding_deg, x.hysteresis_deg, x.roll_off_deg, x.review_status
+      from dynamic_analyses x
+      where x.measurement_id = m.id
+      order by x.revision desc
+      limit 1
+    ) a on true
+    where b.organization_id = ${organizationId}
+      and b.id in (${ids})
+      and b.archived_at is null
+      ${options.approvedOnly ? sql`and a.review_status = 'approved'` : sql``}
+    order by b.produced_on, b.lot_code, s.label, m.measured_at, m.id
+  `);
+  return rows.map((r) => ({
+    measurementId: r.measurement_id,
+    batchId: r.batch_id,
+    sampleId: r.sample_id,
+    sampleLabel: r.sample_label,
+    probeLiquidId: r.probe_liquid_id,
+    measuredAt: iso(r.measured_at),
+    treatedAt: r.treated_at === null ? null : iso(r.treated_at),
+    advancingDeg: numberOrNull(r.advancing_deg),
+    recedingDeg: numberOrNull(r.receding_deg),
+    hysteresisDeg: numberOrNull(r.hysteresis_deg),
+    rollOffDeg: numberOrNull(r.roll_off_deg),
+  }));
+}
+
 /**
  * What a comparison of one coating needs: its batches (the chosen ones, by id or lot code,
  * or else the newest twelve), its live specs, the probe liquids involved (with their surface
@@ -179,6 +248,14 @@ export async function loadComparison(
         maxDaysSinceTreatment: specs.maxDaysSinceTreatment,
         minSurfaceEnergyMnM: specs.minSurfaceEnergyMnM,
         maxSurfaceEnergyMnM: specs.maxSurfaceEnergyMnM,
+        minAdvancingDeg: specs.minAdvancingDeg,
+        maxAdvancingDeg: specs.maxAdvancingDeg,
+        minRecedingDeg: specs.minRecedingDeg,
+        maxRecedingDeg: specs.maxRecedingDeg,
+        minHysteresisDeg: specs.minHysteresisDeg,
+        maxHysteresisDeg: specs.maxHysteresisDeg,
+        minRollOffDeg: specs.minRollOffDeg,
+        maxRollOffDeg: specs.maxRollOffDeg,
         note: specs.note,
       })
       .from(specs)
@@ -196,13 +273,17 @@ export async function loadComparison(
     wanted.size > 0
       ? allBatches.filter((b) => wanted.has(b.id) || wanted.has(b.lotCode))
       : allBatches.slice(0, DEFAULT_BATCH_COUNT);
-  const drops = await comparisonDrops(
-    organizationId,
-    chosen.map((b) => b.id),
-    { approvedOnly: options.approvedOnly },
-  );
+  const chosenIds = chosen.map((b) => b.id);
+  const [drops, dynamic] = await Promise.all([
+    comparisonDrops(organizationId, chosenIds, { approvedOnly: options.approvedOnly }),
+    comparisonDynamic(organizationId, chosenIds, { approvedOnly: options.approvedOnly }),
+  ]);
   const liquidIds = [
-    ...new Set([...drops.map((d) => d.probeLiquidId), ...specRows.map((s) => s.probeLiquidId)]),
+    ...new Set([
+      ...drops.map((d) => d.probeLiquidId),
+      ...dynamic.map((d) => d.probeLiquidId),
+      ...specRows.map((s) => s.probeLiquidId),
+    ]),
   ];
   const liquids =
     liquidIds.length === 0
@@ -225,5 +306,5 @@ export async function loadComparison(
               ),
             ),
           );
-  return { allBatches, batches: chosen, specs: specRows, liquids, drops };
+  return { allBatches, batches: chosen, specs: specRows, liquids, drops, dynamic };
 }

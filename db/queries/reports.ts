@@ -18,6 +18,14 @@ export async function listSpecsOfCoating(coatingId: string) {
       minSurfaceEnergyMnM: specs.minSurfaceEnergyMnM,
       maxSurfaceEnergyMnM: specs.maxSurfaceEnergyMnM,
       maxDaysSinceTreatment: specs.maxDaysSinceTreatment,
+      minAdvancingDeg: specs.minAdvancingDeg,
+      maxAdvancingDeg: specs.maxAdvancingDeg,
+      minRecedingDeg: specs.minRecedingDeg,
+      maxRecedingDeg: specs.maxRecedingDeg,
+      minHysteresisDeg: specs.minHysteresisDeg,
+      maxHysteresisDeg: specs.maxHysteresisDeg,
+      minRollOffDeg: specs.minRollOffDeg,
+      maxRollOffDeg: specs.maxRollOffDeg,
     })
     .from(specs)
     .innerJoin(probeLiquids, eq(probeLiquids.id, specs.probeLiquidId))

@@ -30,7 +30,31 @@ export interface ComparisonSpecInput {
   /** Surface free energy limits, mN/m (judged by OWRK over the batch). */
   minSurfaceEnergyMnM?: number | null;
   maxSurfaceEnergyMnM?: number | null;
+  /** Dynamic-wetting limits (°), judged over each batch's dynamic measurements. */
+  minAdvancingDeg?: number | null;
+  maxAdvancingDeg?: number | null;
+  minRecedingDeg?: number | null;
+  maxRecedingDeg?: number | null;
+  minHysteresisDeg?: number | null;
+  maxHysteresisDeg?: number | null;
+  minRollOffDeg?: number | null;
+  maxRollOffDeg?: number | null;
   note: string;
+}
+
+/** One dynamic measurement (series) with the values of its latest analysis revision. */
+export interface ComparisonDynamicInput {
+  measurementId: string;
+  batchId: string;
+  sampleId: string;
+  sampleLabel: string;
+  probeLiquidId: string;
+  measuredAt: string;
+  treatedAt: string | null;
+  advancingDeg: number | null;
+  recedingDeg: number | null;
+  hysteresisDeg: number | null;
+  rollOffDeg: number | null;
 }
 
 /** One drop with the angles of its latest analysis revision. Times are ISO strings. */

@@ -21,6 +21,14 @@ export function specText(s: {
   minSurfaceEnergyMnM: number | null;
   maxSurfaceEnergyMnM: number | null;
   maxDaysSinceTreatment: number | null;
+  minAdvancingDeg?: number | null;
+  maxAdvancingDeg?: number | null;
+  minRecedingDeg?: number | null;
+  maxRecedingDeg?: number | null;
+  minHysteresisDeg?: number | null;
+  maxHysteresisDeg?: number | null;
+  minRollOffDeg?: number | null;
+  maxRollOffDeg?: number | null;
 }): string {
   const limits = [
     s.minDeg !== null ? `at least ${s.minDeg}°` : null,
@@ -37,6 +45,7 @@ export function specText(s: {
     s.maxSurfaceEnergyMnM !== null
       ? `surface free energy at most ${s.maxSurfaceEnergyMnM} mN/m`
       : null,
+    ...dynamicLimitTexts(s),
   ].filter(Boolean);
   return parts.join('; ') || 'no limits';
 }
@@ -44,4 +53,18 @@ export function specText(s: {
 /** certificate-HT-200-B-0412.pdf, safe in a Content-Disposition header. */
 export function reportFileName(coatingCode: string, lotCode: string): string {
   return `certificate-${coatingCode}-${lotCode}.pdf`.replace(/[^A-Za-z0-9._-]/g, '_');
+}
+
+/** "advancing angle at least 110°", one per dynamic limit a spec sets. */
+function dynamicLimitTexts(s: Parameters<typeof specText>[0]): string[] {
+  const named: [string, number | null | undefined, number | null | undefined][] = [
+    ['advancing angle', s.minAdvancingDeg, s.maxAdvancingDeg],
+    ['receding angle', s.minRecedingDeg, s.maxRecedingDeg],
+    ['hysteresis', s.minHysteresisDeg, s.maxHysteresisDeg],
+    ['roll-off angle', s.minRollOffDeg, s.maxRollOffDeg],
+  ];
+  return named.flatMap(([name, min, max]) => [
+    ...(min !== null && min !== undefined ? [`${name} at least ${min}°`] : []),
+    ...(max !== null && max !== undefined ? [`${name} at most ${max}°`] : []),
+  ]);
 }

@@ -76,11 +76,22 @@ beforeAll(async () => {
   const coatingId = newId();
   const batchId = newId();
   sampleId = newId();
-  await db.insert(coatings).values({ id: coatingId, organizationId: lab.id, code: 'DYN-1', name: 'Easy-clean' });
-  await db.insert(batches).values({ id: batchId, organizationId: lab.id, coatingId, lotCode: 'DYN-L1', producedOn: '2026-11-01' });
+  await db
+    .insert(coatings)
+    .values({ id: coatingId, organizationId: lab.id, code: 'DYN-1', name: 'Easy-clean' });
+  await db
+    .insert(batches)
+    .values({
+      id: batchId,
+      organizationId: lab.id,
+      coatingId,
+      lotCode: 'DYN-L1',
+      producedOn: '2026-11-01',
+    });
   await db.insert(samples).values({ id: sampleId, organizationId: lab.id, batchId, label: 'S1' });
   photoIds = [];
-  for (const frame of manifest.frames) photoIds.push(await recordFrame(lab.id, analyst.userId, frame.file));
+  for (const frame of manifest.frames)
+    photoIds.push(await recordFrame(lab.id, analyst.userId, frame.file));
   foreignPhotoId = await recordFrame(otherLab.id, outsider.userId, manifest.frames[0].file);
 });
 
@@ -106,7 +117,10 @@ describe('saving a dynamic measurement', () => {
   let measurementId: string;
 
   it('re-analyses frame photos on the server and keeps advancing and receding within 0.5° of the generator', async () => {
-    const response = await save(analyst.sessionId, needleIn({ type: 'frames', photoIds, fps: manifest.fps }));
+    const response = await save(
+      analyst.sessionId,
+      needleIn({ type: 'frames', photoIds, fps: manifest.fps }),
+    );
     expect(response.status).toBe(201);
     const saved = await response.json();
     expect(saved.revision).toBe(1);
@@ -119,7 +133,10 @@ describe('saving a dynamic measurement', () => {
     expect(advancing.frameCount).toBeGreaterThanOrEqual(3);
     expect(advancing.sdDeg).toBeGreaterThanOrEqual(0);
 
-    const [row] = await getDb().select().from(dynamicAnalyses).where(eq(dynamicAnalyses.id, saved.analysisId));
+    const [row] = await getDb()
+      .select()
+      .from(dynamicAnalyses)
+      .where(eq(dynamicAnalyses.id, saved.analysisId));
     expect(row.advancingDeg).toBeCloseTo(advancing.meanDeg, 9);
     expect(row.recedingDeg).toBeCloseTo(receding.meanDeg, 9);
     expect(row.advancingFrames).toBe(advancing.frameCount);
@@ -145,9 +162,12 @@ describe('saving a dynamic measurement', () => {
     expect(saved.result.receding).toBeNull();
     expect(saved.result.hysteresisDeg).toBeNull();
 
-    const read = await GET(apiRequest(`/api/dynamic-measurements/${measurementId}`, { sessionId: analyst.sessionId }), {
-      params: Promise.resolve({ id: measurementId }),
-    });
+    const read = await GET(
+      apiRequest(`/api/dynamic-measurements/${measurementId}`, { sessionId: analyst.sessionId }),
+      {
+        params: Promise.resolve({ id: measurementId }),
+      },
+    );
     expect(read.status).toBe(200);
     const body = await read.json();
     expect(body.revisions.map((r: { revision: number }) => r.revision)).toEqual([2, 1]);
@@ -157,7 +177,9 @@ describe('saving a dynamic measurement', () => {
   it('re-analyses a video stored through the upload service (MP4/H.264)', async () => {
     const dir = mkdtempSync(path.join(tmpdir(), 'beadline-dyn-'));
     const file = path.join(dir, 'needle-in.mp4');
-    const frames = await Promise.all(manifest.frames.map((f) => decodeImageFile(path.join(SERIES, f.file))));
+    const frames = await Promise.all(
+      manifest.frames.map((f) => decodeImageFile(path.join(SERIES, f.file))),
+    );
     await writeVideo(frames, file, manifest.fps, 'mp4');
     const [uploaded] = await new UTApi(utapiOptions()).uploadFiles([
       new UTFile([readFileSync(file)], 'needle-in.mp4', { type: 'video/mp4' }),
@@ -165,15 +187,24 @@ describe('saving a dynamic measurement', () => {
     expect(uploaded.error).toBeNull();
     const { videoId, info } = await recordUploadedVideo(
       { organizationId: lab.id, userId: analyst.userId },
-      { key: uploaded.data!.key, url: uploaded.data!.ufsUrl, name: 'needle-in.mp4', size: uploaded.data!.size },
+      {
+        key: uploaded.data!.key,
+        url: uploaded.data!.ufsUrl,
+        name: 'needle-in.mp4',
+        size: uploaded.data!.size,
+      },
     );
     expect(info).toMatchObject({ codec: 'h264', width: 320, height: 240, fps: manifest.fps });
 
     const response = await save(analyst.sessionId, needleIn({ type: 'video', videoId }));
     expect(response.status).toBe(201);
     const saved = await response.json();
-    expect(Math.abs(saved.result.advancing.meanDeg - manifest.expected.advancingDeg)).toBeLessThan(0.5);
-    expect(Math.abs(saved.result.receding.meanDeg - manifest.expected.recedingDeg)).toBeLessThan(0.5);
+    expect(Math.abs(saved.result.advancing.meanDeg - manifest.expected.advancingDeg)).toBeLessThan(
+      0.5,
+    );
+    expect(Math.abs(saved.result.receding.meanDeg - manifest.expected.recedingDeg)).toBeLessThan(
+      0.5,
+    );
   });
 
   it('refuses a viewer, a frame of another organization, and a revision of another source', async () => {
@@ -182,14 +213,21 @@ describe('saving a dynamic measurement', () => {
 
     const foreign = await save(
       analyst.sessionId,
-      needleIn({ type: 'frames', photoIds: [foreignPhotoId, ...photoIds.slice(1)], fps: manifest.fps }),
+      needleIn({
+        type: 'frames',
+        photoIds: [foreignPhotoId, ...photoIds.slice(1)],
+        fps: manifest.fps,
+      }),
     );
     expect(foreign.status).toBe(404);
     expect((await foreign.json()).error.fields).toHaveProperty('source');
 
     const other = await save(
       analyst.sessionId,
-      needleIn({ type: 'frames', photoIds: photoIds.slice(0, 10), fps: manifest.fps }, { measurementId }),
+      needleIn(
+        { type: 'frames', photoIds: photoIds.slice(0, 10), fps: manifest.fps },
+        { measurementId },
+      ),
     );
     expect(other.status).toBe(400);
     expect((await other.json()).error.code).toBe('invalid_input');
