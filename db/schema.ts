@@ -364,16 +364,21 @@ export const photoPurposeEnum = pgEnum('photo_purpose', [
   'series-frame',
 ]);
 
+/** The columns of a file stored through the upload service, in the order of its table. */
+const storedFileColumns = () => ({
+  id: text('id').primaryKey(),
+  organizationId: orgRef(),
+  uploadedByUserId: userRef('uploaded_by_user_id'),
+  fileKey: text('file_key').notNull(),
+  url: text('url').notNull(),
+  originalName: text('original_name').notNull(),
+  sizeBytes: integer('size_bytes').notNull(),
+});
+
 export const photos = pgTable(
   'photos',
   {
-    id: text('id').primaryKey(),
-    organizationId: orgRef(),
-    uploadedByUserId: userRef('uploaded_by_user_id'),
-    fileKey: text('file_key').notNull(),
-    url: text('url').notNull(),
-    originalName: text('original_name').notNull(),
-    sizeBytes: integer('size_bytes').notNull(),
+    ...storedFileColumns(),
     format: text('format').notNull(),
     width: integer('width').notNull(),
     height: integer('height').notNull(),
@@ -458,13 +463,7 @@ export const analyses = pgTable(
 export const videos = pgTable(
   'videos',
   {
-    id: text('id').primaryKey(),
-    organizationId: orgRef(),
-    uploadedByUserId: userRef('uploaded_by_user_id'),
-    fileKey: text('file_key').notNull(),
-    url: text('url').notNull(),
-    originalName: text('original_name').notNull(),
-    sizeBytes: integer('size_bytes').notNull(),
+    ...storedFileColumns(),
     codec: text('codec').notNull(),
     width: integer('width').notNull(),
     height: integer('height').notNull(),

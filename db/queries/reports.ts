@@ -1,4 +1,5 @@
 import 'server-only';
+import { dynamicLimitColumns } from './comparison';
 import { and, desc, eq, isNull, sql } from 'drizzle-orm';
 import { analyses, drops, probeLiquids, reviews, samples, specs, users } from '../schema';
 import { database } from './transaction';
@@ -18,14 +19,7 @@ export async function listSpecsOfCoating(coatingId: string) {
       minSurfaceEnergyMnM: specs.minSurfaceEnergyMnM,
       maxSurfaceEnergyMnM: specs.maxSurfaceEnergyMnM,
       maxDaysSinceTreatment: specs.maxDaysSinceTreatment,
-      minAdvancingDeg: specs.minAdvancingDeg,
-      maxAdvancingDeg: specs.maxAdvancingDeg,
-      minRecedingDeg: specs.minRecedingDeg,
-      maxRecedingDeg: specs.maxRecedingDeg,
-      minHysteresisDeg: specs.minHysteresisDeg,
-      maxHysteresisDeg: specs.maxHysteresisDeg,
-      minRollOffDeg: specs.minRollOffDeg,
-      maxRollOffDeg: specs.maxRollOffDeg,
+      ...dynamicLimitColumns,
     })
     .from(specs)
     .innerJoin(probeLiquids, eq(probeLiquids.id, specs.probeLiquidId))

@@ -74,7 +74,10 @@ export type SpecLimits = {
   maxDeg?: number | null;
   minSurfaceEnergyMnM?: number | null;
   maxSurfaceEnergyMnM?: number | null;
-} & { [K in (typeof DYNAMIC_LIMITS)[number][1 | 2]]?: number | null };
+} & DynamicLimitValues;
+
+/** The dynamic-wetting limits of a spec (°), each optional. */
+export type DynamicLimitValues = { [K in (typeof DYNAMIC_LIMITS)[number][1 | 2]]?: number | null };
 
 /** The dynamic-wetting limit pairs of a spec: what each limits, its minimum and its maximum. */
 export const DYNAMIC_LIMITS = [

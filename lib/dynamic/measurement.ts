@@ -12,13 +12,7 @@ import {
 } from './angle-over-time';
 import { summariseDynamic, type PhaseSegment } from './phases';
 import { analyseTiltingPlate, type DropSide } from './tilt';
-import type {
-  AngleWindowStats,
-  FrameWarning,
-  PhaseWindow,
-  SeriesFrame,
-  SeriesWarning,
-} from './types';
+import type { AngleWindowStats, PhaseWindow, SeriesFrame, SeriesWarning } from './types';
 
 /** What a series was taken for. */
 export const DYNAMIC_KINDS = [
@@ -50,17 +44,17 @@ export interface RollOff {
 }
 
 /** One frame as kept with a saved measurement (no outline, no edge points). */
-export interface KeptSeriesFrame {
-  index: number;
-  tSec: number;
-  leftDeg: number | null;
-  rightDeg: number | null;
-  meanDeg: number | null;
-  baseDiameterPx: number | null;
-  volumePx3: number | null;
-  tiltDeg: number | null;
-  warnings: FrameWarning[];
-}
+export type KeptSeriesFrame = Pick<
+  SeriesFrame,
+  | 'index'
+  | 'tSec'
+  | 'leftDeg'
+  | 'rightDeg'
+  | 'meanDeg'
+  | 'baseDiameterPx'
+  | 'volumePx3'
+  | 'warnings'
+> & { tiltDeg: number | null };
 
 export interface MeasurementResult {
   kind: DynamicKind;

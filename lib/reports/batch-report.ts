@@ -1,3 +1,5 @@
+import { DYNAMIC_LIMITS, type DynamicLimitValues } from '@/lib/contracts/specs';
+
 /*
  * The words of the certificate of analysis that do not depend on the database: how each analysis
  * method is cited and how a spec reads. The service that gathers the data is
@@ -14,22 +16,16 @@ export const METHOD_SOURCES: Record<string, string> = {
 };
 
 /** A spec in words: "at least 100° for every drop; within 7 days of treatment; …". */
-export function specText(s: {
-  minDeg: number | null;
-  maxDeg: number | null;
-  scope: 'each-drop' | 'mean';
-  minSurfaceEnergyMnM: number | null;
-  maxSurfaceEnergyMnM: number | null;
-  maxDaysSinceTreatment: number | null;
-  minAdvancingDeg?: number | null;
-  maxAdvancingDeg?: number | null;
-  minRecedingDeg?: number | null;
-  maxRecedingDeg?: number | null;
-  minHysteresisDeg?: number | null;
-  maxHysteresisDeg?: number | null;
-  minRollOffDeg?: number | null;
-  maxRollOffDeg?: number | null;
-}): string {
+export function specText(
+  s: {
+    minDeg: number | null;
+    maxDeg: number | null;
+    scope: 'each-drop' | 'mean';
+    minSurfaceEnergyMnM: number | null;
+    maxSurfaceEnergyMnM: number | null;
+    maxDaysSinceTreatment: number | null;
+  } & DynamicLimitValues,
+): string {
   const limits = [
     s.minDeg !== null ? `at least ${s.minDeg}°` : null,
     s.maxDeg !== null ? `at most ${s.maxDeg}°` : null,
@@ -56,15 +52,13 @@ export function reportFileName(coatingCode: string, lotCode: string): string {
 }
 
 /** "advancing angle at least 110°", one per dynamic limit a spec sets. */
-function dynamicLimitTexts(s: Parameters<typeof specText>[0]): string[] {
-  const named: [string, number | null | undefined, number | null | undefined][] = [
-    ['advancing angle', s.minAdvancingDeg, s.maxAdvancingDeg],
-    ['receding angle', s.minRecedingDeg, s.maxRecedingDeg],
-    ['hysteresis', s.minHysteresisDeg, s.maxHysteresisDeg],
-    ['roll-off angle', s.minRollOffDeg, s.maxRollOffDeg],
-  ];
-  return named.flatMap(([name, min, max]) => [
-    ...(min !== null && min !== undefined ? [`${name} at least ${min}°`] : []),
-    ...(max !== null && max !== undefined ? [`${name} at most ${max}°`] : []),
-  ]);
+function dynamicLimitTexts(s: DynamicLimitValues): string[] {
+  return DYNAMIC_LIMITS.flatMap(([name, minKey, maxKey]) => {
+    const min = s[minKey];
+    const max = s[maxKey];
+    return [
+      ...(min !== null && min !== undefined ? [`${name} at least ${min}°`] : []),
+      ...(max !== null && max !== undefined ? [`${name} at most ${max}°`] : []),
+    ];
+  });
 }

@@ -46,6 +46,14 @@ export async function recordUploadedVideo(
   const info = await probeVideoBytes(bytes);
   const sha256 = createHash('sha256').update(bytes).digest('hex');
   const videoId = newId();
+  const facts = {
+    codec: info.codec,
+    width: info.width,
+    height: info.height,
+    fps: info.fps,
+    frameCount: info.frameCount,
+    sha256,
+  };
   await inTransaction(async (tx) => {
     await insertVideo(tx, {
       id: videoId,
@@ -55,12 +63,7 @@ export async function recordUploadedVideo(
       url: file.url,
       originalName: file.name,
       sizeBytes: bytes.length,
-      codec: info.codec,
-      width: info.width,
-      height: info.height,
-      fps: info.fps,
-      frameCount: info.frameCount,
-      sha256,
+      ...facts,
     });
     await recordAudit(tx, {
       actorUserId: owner.userId,
@@ -68,15 +71,7 @@ export async function recordUploadedVideo(
       action: 'video.upload',
       entityType: 'video',
       entityId: videoId,
-      after: {
-        name: file.name,
-        codec: info.codec,
-        width: info.width,
-        height: info.height,
-        fps: info.fps,
-        frameCount: info.frameCount,
-        sha256,
-      },
+      after: { name: file.name, ...facts },
     });
   });
   return { videoId, info };

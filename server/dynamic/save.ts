@@ -1,5 +1,5 @@
 import 'server-only';
-import { recordAudit } from '@/db/queries/audit';
+import { auditAs } from '@/db/queries/audit';
 import {
   findLiveMeasurement,
   getVideo,
@@ -103,15 +103,7 @@ export async function saveDynamicMeasurement(
   };
   const saved = await inTransaction(async (tx) => {
     await checkReferences(tx, actor, input);
-    const audit = (action: string, entityType: string, entityId: string, after: object) =>
-      recordAudit(tx, {
-        actorUserId: actor.userId,
-        organizationId: actor.organizationId,
-        action,
-        entityType,
-        entityId,
-        after,
-      });
+    const audit = auditAs(tx, actor);
     let measurementId = input.measurementId;
     let revision = 1;
     if (measurementId) {
@@ -147,14 +139,16 @@ export async function saveDynamicMeasurement(
         createdByUserId: actor.userId,
       });
       await audit('dynamic.create', 'dynamic_measurement', measurementId, {
-        sampleId: input.sampleId,
-        probeLiquidId: input.probeLiquidId,
-        kind: input.kind,
-        source:
-          source.type === 'video'
-            ? { videoId: source.videoId }
-            : { frames: source.photoIds.length },
-        fps,
+        after: {
+          sampleId: input.sampleId,
+          probeLiquidId: input.probeLiquidId,
+          kind: input.kind,
+          source:
+            source.type === 'video'
+              ? { videoId: source.videoId }
+              : { frames: source.photoIds.length },
+          fps,
+        },
       });
     }
     const analysisId = newId();
@@ -181,13 +175,15 @@ export async function saveDynamicMeasurement(
       createdByUserId: actor.userId,
     });
     await audit('dynamic_analysis.create', 'dynamic_analysis', analysisId, {
-      measurementId,
-      revision,
-      method: input.method,
-      advancingDeg: result.advancing?.meanDeg ?? null,
-      recedingDeg: result.receding?.meanDeg ?? null,
-      hysteresisDeg: result.hysteresisDeg,
-      rollOffDeg: result.rollOff?.tiltDeg ?? null,
+      after: {
+        measurementId,
+        revision,
+        method: input.method,
+        advancingDeg: result.advancing?.meanDeg ?? null,
+        recedingDeg: result.receding?.meanDeg ?? null,
+        hysteresisDeg: result.hysteresisDeg,
+        rollOffDeg: result.rollOff?.tiltDeg ?? null,
+      },
     });
     return { measurementId, analysisId, revision };
   });
