@@ -11,6 +11,7 @@ import {
   type RateOverWindow,
 } from './angle-over-time';
 import { summariseDynamic, type PhaseSegment } from './phases';
+import type { ContractFrame } from './report';
 import { analyseTiltingPlate, type DropSide } from './tilt';
 import type { AngleWindowStats, PhaseWindow, SeriesFrame, SeriesWarning } from './types';
 
