@@ -45,17 +45,7 @@ export interface RollOff {
 }
 
 /** One frame as kept with a saved measurement (no outline, no edge points). */
-export type KeptSeriesFrame = Pick<
-  SeriesFrame,
-  | 'index'
-  | 'tSec'
-  | 'leftDeg'
-  | 'rightDeg'
-  | 'meanDeg'
-  | 'baseDiameterPx'
-  | 'volumePx3'
-  | 'warnings'
-> & { tiltDeg: number | null };
+export type KeptSeriesFrame = ContractFrame & { tiltDeg: number | null };
 
 export interface MeasurementResult {
   kind: DynamicKind;
