@@ -19,7 +19,7 @@ export type NewPhoto = {
   thumbnailPng: Buffer;
   workingPng: Buffer | null;
   /** Sessile drop (the default) or hanging drop. */
-  purpose?: 'sessile-drop' | 'pendant-drop';
+  purpose?: 'sessile-drop' | 'pendant-drop' | 'series-frame';
 };
 
 export async function insertPhoto(db: Executor, row: NewPhoto & { id: string }): Promise<void> {

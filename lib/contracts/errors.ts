@@ -53,6 +53,7 @@ export const ERROR_CODES = [
   'nothing_computed',
   'invalid_measurement',
   'unreadable_photo',
+  'unreadable_video',
   'no_drop_found',
   'baseline_not_found',
   'fit_failed',

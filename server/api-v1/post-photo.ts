@@ -59,6 +59,8 @@ export async function postDropPhoto(actor: Actor, fields: V1PhotoFields, file: F
     sessionId: fields.sessionId ?? null,
     method: fields.method,
     baseline: fields.baseline ?? null,
+    // A photo stored just now has no drop yet: this is its first save.
+    expectedRevision: 0,
   });
   return { photoId, ...saved };
 }

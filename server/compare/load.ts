@@ -41,6 +41,7 @@ export async function loadComparePage(ctx: OrgContext, query: CompareQuery) {
           liquids: data.liquids,
           specs: data.specs,
           drops: data.drops,
+          dynamic: data.dynamic,
           referenceBatchId: reference?.id ?? null,
         })
       : null;

@@ -1,5 +1,5 @@
 import 'server-only';
-import { recordAudit } from '@/db/queries/audit';
+import { auditAs } from '@/db/queries/audit';
 import {
   engineAnalysisRow,
   findLiveDropOfPhoto,
@@ -39,7 +39,11 @@ const staleRevision = (current: number) =>
   );
 
 /** The sample, probe liquid and session a save names must be this organization's. */
-async function checkReferences(tx: Transaction, actor: Actor, input: SaveDropAnalysisInput) {
+export async function checkReferences(
+  tx: Transaction,
+  actor: Actor,
+  input: Pick<SaveDropAnalysisInput, 'sampleId' | 'probeLiquidId' | 'sessionId'>,
+) {
   const org = actor.organizationId;
   const sample = await findRecord<{ archivedAt: Date | null }>(
     tx,
@@ -103,15 +107,7 @@ export async function saveDropAnalysis(
   const saved = await inTransaction(async (tx) => {
     await checkReferences(tx, actor, input);
     await lockPhotoDrops(tx, photoId);
-    const audit = (action: string, entityType: string, entityId: string, change: object) =>
-      recordAudit(tx, {
-        actorUserId: actor.userId,
-        organizationId: actor.organizationId,
-        action,
-        entityType,
-        entityId,
-        ...change,
-      });
+    const audit = auditAs(tx, actor);
     const placement = { sampleId: input.sampleId, probeLiquidId: input.probeLiquidId };
     const existing = await findLiveDropOfPhoto(tx, photoId);
     const dropId = existing?.id ?? newId();

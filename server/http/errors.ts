@@ -52,6 +52,7 @@ export const HTTP_STATUS = {
   nothing_computed: 422,
   invalid_measurement: 422,
   unreadable_photo: 422,
+  unreadable_video: 422,
   no_drop_found: 422,
   baseline_not_found: 422,
   fit_failed: 422,

@@ -71,6 +71,7 @@ export async function buildBatchReport(
     liquids: loaded.liquids,
     specs: loaded.specs,
     drops: loaded.drops,
+    dynamic: loaded.dynamic,
   });
   const [specRows, sampleRows, hazards, review, methods, representative] = await Promise.all([
     listSpecsOfCoating(batch.coatingId),
@@ -127,6 +128,10 @@ export async function buildBatchReport(
             coverageFactor: se.coverageFactor,
           }
         : null,
+    dynamic: comparison.dynamic.flatMap((q) => {
+      const result = q.batches.find((b) => b.batch.id === batch.id);
+      return result && result.drops.length > 0 ? [{ title: q.title, result }] : [];
+    }),
     representative,
     review: review?.signature
       ? {

@@ -20,7 +20,13 @@ import { loadBatchPage } from '@/server/records/detail-pages';
 import { loadSurfaceEnergyPage } from '@/server/surface-energy/read';
 import { createMember, createOrganization } from '../support/fixtures';
 import { apiRequest } from '../support/request';
-import { insertBatch, insertCoating, insertDrop, insertSample, insertWaterSpec } from '../support/seed';
+import {
+  insertBatch,
+  insertCoating,
+  insertDrop,
+  insertSample,
+  insertWaterSpec,
+} from '../support/seed';
 import { ensureLibrary } from '../records/helpers';
 import { mailJobsTo } from '../team/support';
 
@@ -66,44 +72,62 @@ async function labIn(state: State): Promise<Fixture> {
     [DIIODOMETHANE, [51, 52, 53]],
   ] as const) {
     for (const meanDeg of means) {
-      await insertDrop(lab.id, sampleId, { probeLiquidId, revisions: [{ meanDeg, reviewStatus: stored }] });
+      await insertDrop(lab.id, sampleId, {
+        probeLiquidId,
+        revisions: [{ meanDeg, reviewStatus: stored }],
+      });
     }
   }
   const analysisIds = (
-    await getDb().select({ id: analyses.id }).from(analyses).where(eq(analyses.organizationId, lab.id))
+    await getDb()
+      .select({ id: analyses.id })
+      .from(analyses)
+      .where(eq(analyses.organizationId, lab.id))
   ).map((a) => a.id);
   if (state === 'approved' || state === 'revoked') {
-    await getDb().insert(reviews).values({
-      id: newId(),
-      organizationId: lab.id,
-      scope: 'batch',
-      batchId,
-      analysisIds,
-      status: state,
-      submittedByUserId: members.analyst.userId,
-      decidedByUserId: members.reviewer.userId,
-      decidedAt: new Date(),
-      signature: {
-        name: 'Test reviewer',
-        email: members.reviewer.email,
-        signedAt: new Date().toISOString(),
-        method: 'password-reconfirmed',
-        digest: 'test',
-      },
-      ...(state === 'revoked' ? { revokedAt: new Date(), revokeReason: 'Stage was tilted.' } : {}),
-    });
+    await getDb()
+      .insert(reviews)
+      .values({
+        id: newId(),
+        organizationId: lab.id,
+        scope: 'batch',
+        batchId,
+        analysisIds,
+        status: state,
+        submittedByUserId: members.analyst.userId,
+        decidedByUserId: members.reviewer.userId,
+        decidedAt: new Date(),
+        signature: {
+          name: 'Test reviewer',
+          email: members.reviewer.email,
+          signedAt: new Date().toISOString(),
+          method: 'password-reconfirmed',
+          digest: 'test',
+        },
+        ...(state === 'revoked'
+          ? { revokedAt: new Date(), revokeReason: 'Stage was tilted.' }
+          : {}),
+      });
   }
   // Saved by the analyst, who sees every result: the saved inputs name all six analyses.
-  const saved = await call(batchSurfaceEnergy.POST, `/api/batches/${batchId}/surface-energy`, members.analyst, {
-    method: 'POST',
-    body: { methods: ['owrk'] },
-    params: { id: batchId },
-  });
+  const saved = await call(
+    batchSurfaceEnergy.POST,
+    `/api/batches/${batchId}/surface-energy`,
+    members.analyst,
+    {
+      method: 'POST',
+      body: { methods: ['owrk'] },
+      params: { id: batchId },
+    },
+  );
   expect(saved.status).toBe(201);
   return { state, lab, members, coatingCode, lotCode, batchId, sampleId };
 }
 
-type Handler = (request: Request, context: { params: Promise<{ id: string }> }) => Promise<Response>;
+type Handler = (
+  request: Request,
+  context: { params: Promise<{ id: string }> },
+) => Promise<Response>;
 
 async function call(
   handler: Handler,
@@ -112,7 +136,11 @@ async function call(
   options: { method?: string; body?: unknown; params?: { id: string } } = {},
 ) {
   const response = await handler(
-    apiRequest(url, { method: options.method ?? 'GET', sessionId: member.sessionId, body: options.body }),
+    apiRequest(url, {
+      method: options.method ?? 'GET',
+      sessionId: member.sessionId,
+      body: options.body,
+    }),
     { params: Promise.resolve(options.params ?? { id: '' }) },
   );
   return { status: response.status, response };
@@ -138,15 +166,25 @@ const seShows = (body: { angleTable: AngleRow[]; saved: unknown[] }) =>
  */
 const RESOURCES: Record<string, (f: Fixture, role: Role) => Promise<boolean>> = {
   'GET /api/batches/[id]/surface-energy': async (f, role) => {
-    const r = await call(batchSurfaceEnergy.GET, `/api/batches/${f.batchId}/surface-energy`, f.members[role], {
-      params: { id: f.batchId },
-    });
+    const r = await call(
+      batchSurfaceEnergy.GET,
+      `/api/batches/${f.batchId}/surface-energy`,
+      f.members[role],
+      {
+        params: { id: f.batchId },
+      },
+    );
     return r.status === 200 && seShows(await r.response.json());
   },
   'GET /api/samples/[id]/surface-energy': async (f, role) => {
-    const r = await call(sampleSurfaceEnergy.GET, `/api/samples/${f.sampleId}/surface-energy`, f.members[role], {
-      params: { id: f.sampleId },
-    });
+    const r = await call(
+      sampleSurfaceEnergy.GET,
+      `/api/samples/${f.sampleId}/surface-energy`,
+      f.members[role],
+      {
+        params: { id: f.sampleId },
+      },
+    );
     return r.status === 200 && seShows(await r.response.json());
   },
   'GET /api/batches/[id]/report (certificate PDF)': async (f, role) => {
@@ -168,16 +206,29 @@ const RESOURCES: Record<string, (f: Fixture, role: Role) => Promise<boolean>> = 
     return r.status === 200 && (await r.response.text()).includes(f.lotCode);
   },
   'page /batches/[id]': async (f, role) => {
-    const page = await loadBatchPage(ctxOf(f, role), f.batchId, sampleListQuerySchema.parse({ batchId: f.batchId }));
-    return (page?.drops.length ?? 0) > 0 || (page?.samples.items ?? []).some((s) => s.meanWaterDeg !== null);
+    const page = await loadBatchPage(
+      ctxOf(f, role),
+      f.batchId,
+      sampleListQuerySchema.parse({ batchId: f.batchId }),
+    );
+    return (
+      (page?.drops.length ?? 0) > 0 ||
+      (page?.samples.items ?? []).some((s) => s.meanWaterDeg !== null)
+    );
   },
   'page /compare': async (f, role) => {
-    const page = await loadComparePage(ctxOf(f, role), { coating: f.coatingCode, batches: [f.lotCode] } as never);
+    const page = await loadComparePage(ctxOf(f, role), {
+      coating: f.coatingCode,
+      batches: [f.lotCode],
+    } as never);
     return (page.data?.drops.length ?? 0) > 0;
   },
   'page /surface-energy': async (f, role) => {
     const page = await loadSurfaceEnergyPage(ctxOf(f, role), { batchId: f.batchId });
-    return page.evaluation !== null && (page.evaluation.angleTable.some((r) => r.n > 0) || page.saved.length > 0);
+    return (
+      page.evaluation !== null &&
+      (page.evaluation.angleTable.some((r) => r.n > 0) || page.saved.length > 0)
+    );
   },
   'page /dashboard': async (f, role) => {
     const page = await loadDashboard(ctxOf(f, role));
@@ -222,22 +273,33 @@ describe('e-mails', () => {
     const coatingId = await coatingOf(f);
     await insertWaterSpec(f.lab.id, coatingId, 110);
     for (const role of ['reviewer', 'analyst'] as const) {
-      await getDb().insert(coatingWatchers).values({ organizationId: f.lab.id, userId: f.members[role].userId, coatingId });
+      await getDb()
+        .insert(coatingWatchers)
+        .values({ organizationId: f.lab.id, userId: f.members[role].userId, coatingId });
     }
     // The analyst watched, then became a viewer: draft results are no longer theirs to see.
     await getDb()
       .update(memberships)
       .set({ role: 'viewer' })
-      .where(and(eq(memberships.userId, f.members.analyst.userId), eq(memberships.organizationId, f.lab.id)));
+      .where(
+        and(
+          eq(memberships.userId, f.members.analyst.userId),
+          eq(memberships.organizationId, f.lab.id),
+        ),
+      );
     expect(await refreshBatchVerdict(f.lab.id, f.batchId)).toBe('fail');
-    const kinds = async (email: string) => (await mailJobsTo(email)).filter((m) => m.data.kind === 'out-of-spec');
+    const kinds = async (email: string) =>
+      (await mailJobsTo(email)).filter((m) => m.data.kind === 'out-of-spec');
     expect(await kinds(f.members.reviewer.email)).toHaveLength(1);
     expect(await kinds(f.members.analyst.email)).toHaveLength(0);
   });
 });
 
 async function coatingOf(f: Fixture): Promise<string> {
-  const [row] = await getDb().select({ coatingId: batches.coatingId }).from(batches).where(eq(batches.id, f.batchId));
+  const [row] = await getDb()
+    .select({ coatingId: batches.coatingId })
+    .from(batches)
+    .where(eq(batches.id, f.batchId));
   return row.coatingId;
 }
 
@@ -290,6 +352,30 @@ const NOT_IN_MATRIX: Record<string, string> = {
   'api/tensiometry/pendant-drop': 'tensiometry, not under review',
   'api/tensiometry/water-check': 'tensiometry, not under review',
   'api/tensiometry/wilhelmy': 'tensiometry, not under review',
+  // Dynamic wetting: reading a measurement needs results:read-all, saving records:write.
+  'api/dynamic-measurements': 'records:write',
+  'api/dynamic-measurements/[id]': 'results:read-all',
+  // The versioned API answers API tokens only (never a session); a token's read scope is
+  // results:read-all and its measure scope records:write (lib/auth/permissions.ts).
+  'api/v1/openapi.json': 'service (the API description, no results)',
+  'api/v1/batches': 'API token scope',
+  'api/v1/batches/[id]': 'API token scope',
+  'api/v1/batches/[id]/verdict': 'API token scope',
+  'api/v1/coatings': 'API token scope',
+  'api/v1/coatings/[id]': 'API token scope',
+  'api/v1/drops': 'API token scope',
+  'api/v1/drops/[id]': 'API token scope',
+  'api/v1/photos': 'API token scope',
+  'api/v1/probe-liquids': 'API token scope',
+  'api/v1/probe-liquids/[id]': 'API token scope',
+  'api/v1/reviews': 'API token scope',
+  'api/v1/reviews/[id]': 'API token scope',
+  'api/v1/samples': 'API token scope',
+  'api/v1/samples/[id]': 'API token scope',
+  'api/v1/sessions': 'API token scope',
+  'api/v1/sessions/[id]': 'API token scope',
+  '(app)/api-reference': 'service (the API description, no results)',
+  '(app)/team/api': 'team (admins: API tokens)',
   // Pages: through the services in RESOURCES, or without results.
   '(app)/reviews': 'results:read-all',
   '(app)/reviews/[id]': 'results:read-all',
@@ -322,9 +408,13 @@ describe('the matrix covers every route', () => {
       ...routesUnder(path.join(app, 'api'), 'route.ts', 'api/'),
       ...routesUnder(path.join(app, '(app)'), 'page.tsx', '(app)/'),
     ];
-    const inMatrix = Object.keys(RESOURCES).map((r) => r.replace(/^(GET|page) \//, '').replace(/ .*$/, ''));
+    const inMatrix = Object.keys(RESOURCES).map((r) =>
+      r.replace(/^(GET|page) \//, '').replace(/ .*$/, ''),
+    );
     const placed = (route: string) =>
-      route in NOT_IN_MATRIX || inMatrix.includes(route) || inMatrix.includes(route.replace(/^\(app\)\//, ''));
+      route in NOT_IN_MATRIX ||
+      inMatrix.includes(route) ||
+      inMatrix.includes(route.replace(/^\(app\)\//, ''));
     expect(found.filter((route) => !placed(route))).toEqual([]);
   });
 });
