@@ -34,7 +34,7 @@ export function VerdictBadge({ outcome }: { outcome: BatchVerdict['outcome'] }) 
   );
 }
 
-function VerdictDetail({ verdict, noSpec }: { verdict: BatchVerdict; noSpec: string }) {
+export function VerdictDetail({ verdict, noSpec }: { verdict: BatchVerdict; noSpec: string }) {
   return (
     <>
       <VerdictBadge outcome={verdict.outcome} />

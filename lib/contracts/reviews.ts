@@ -81,3 +81,15 @@ export const reviewDecisionResponseSchema = z.object({
   status: z.enum(['approved', 'rejected']),
   signature: signatureSchema.nullable(),
 });
+
+/** What the review page draws over a drop's photo: its analysis's stored geometry (null: no photo). */
+export type ReviewDropOverlay = {
+  photoId: string;
+  photoName: string;
+  width: number;
+  height: number;
+  baseline: { x1: number; y1: number; x2: number; y2: number };
+  contactLeft: [number, number];
+  contactRight: [number, number];
+  heightPx: number;
+} | null;

@@ -2,6 +2,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD } from '@/db/demo';
 import { BASE_URL, launchBrowser, signIn } from './support/browser';
+import { waitForMail } from './support/mailbox';
 
 let browser: Browser;
 
@@ -30,7 +31,11 @@ async function submit(page: Page, batchLabel: string, note: string) {
 
 async function openReview(page: Page, lot: string) {
   await page.goto(`${BASE_URL}/reviews`);
-  await page.getByRole('table', { name: 'Waiting for review' }).getByRole('link', { name: new RegExp(lot) }).first().click();
+  await page
+    .getByRole('table', { name: 'Waiting for review' })
+    .getByRole('link', { name: new RegExp(lot) })
+    .first()
+    .click();
   await page.getByRole('heading', { name: new RegExp(`Review of .*${lot}`) }).waitFor();
 }
 
@@ -39,15 +44,42 @@ describe('review and sign-off', () => {
     const analyst = await as('analyst@kestrel.example');
     await submit(analyst, 'PP-Print · F-2612', 'Plasma dose checked on the line');
 
+    // The reviewer is told by mail, and the mail opens the review.
+    const mail = await waitForMail(
+      'reviewer@kestrel.example',
+      /^Results to review: PP-Print F-2612/,
+    );
+    expect(mail.text).toContain('Plasma dose checked on the line');
+    const reviewPath = /\/reviews\/[A-Za-z0-9_-]+/.exec(mail.text)?.[0];
+    expect(reviewPath).toBeTruthy();
     const reviewer = await as('reviewer@kestrel.example');
-    await openReview(reviewer, 'F-2612');
-    expect(await reviewer.getByTestId('review-rows').getByRole('row').count()).toBeGreaterThan(1);
+    await reviewer.goto(`${BASE_URL}${reviewPath}`);
+    await reviewer.getByRole('heading', { name: /Review of .*F-2612/ }).waitFor();
+    // Each drop with its photo and overlay, opening its drop page; the batch's verdict; the certificate.
+    const drops = reviewer.getByTestId('review-drop');
+    expect(await drops.count()).toBeGreaterThan(0);
+    const photo = drops.first().getByRole('img');
+    await photo.waitFor();
+    expect(
+      await photo.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0),
+    ).toBe(true);
+    expect(await drops.first().locator('svg line').count()).toBeGreaterThanOrEqual(3);
+    expect(await drops.first().getByRole('link').getAttribute('href')).toMatch(/^\/drops\/[^/]+$/);
+    const verdicts = reviewer.getByTestId('review-verdicts');
+    expect(await verdicts.getByRole('row').count()).toBeGreaterThan(1);
+    expect(await verdicts.textContent()).toMatch(/Pass|Fail|Not enough data|No spec/);
+    expect(await reviewer.getByTestId('certificate-preview').getAttribute('href')).toMatch(
+      /^\/api\/batches\/[^/]+\/report$/,
+    );
     // Rejecting needs a reason.
     await reviewer.getByRole('button', { name: 'Reject' }).click();
     await reviewer.getByText('Say why the results are rejected').waitFor();
     await reviewer.getByLabel(/Comment/).fill('Repeat P2: drops look contaminated.');
     await reviewer.getByRole('button', { name: 'Reject' }).click();
-    await reviewer.getByTestId('review-outcome').getByRole('heading', { name: 'Rejected' }).waitFor({ timeout: 30_000 });
+    await reviewer
+      .getByTestId('review-outcome')
+      .getByRole('heading', { name: 'Rejected' })
+      .waitFor({ timeout: 30_000 });
     expect(await reviewer.getByTestId('review-outcome').textContent()).toContain('Repeat P2');
 
     // Resubmitted; a wrong password does not sign, the right one does.
@@ -58,7 +90,9 @@ describe('review and sign-off', () => {
     await reviewer.getByText('That password is not right').waitFor({ timeout: 30_000 });
     await reviewer.getByLabel(/Your password/).fill(DEMO_PASSWORD);
     await reviewer.getByRole('button', { name: 'Approve and sign' }).click();
-    await reviewer.getByRole('heading', { name: 'Approved and signed' }).waitFor({ timeout: 30_000 });
+    await reviewer
+      .getByRole('heading', { name: 'Approved and signed' })
+      .waitFor({ timeout: 30_000 });
     expect(await reviewer.getByTestId('review-outcome').textContent()).toMatch(/Ines Okafor/);
     await analyst.context().close();
     await reviewer.context().close();
@@ -69,7 +103,11 @@ describe('review and sign-off', () => {
     await viewer.goto(`${BASE_URL}/reviews`);
     expect(await viewer.getByRole('button', { name: 'Submit for review' }).count()).toBe(0);
     const status = await viewer.evaluate(async () => {
-      const res = await fetch('/api/reviews', { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' });
+      const res = await fetch('/api/reviews', {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: '{}',
+      });
       return res.status;
     });
     expect(status).toBe(403);

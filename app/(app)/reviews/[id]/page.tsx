@@ -3,18 +3,19 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { ReviewDecisionForm } from '@/components/reviews/decision-form';
 import { PageHeader } from '@/components/ui/empty-state';
-import { PlainTable } from '@/components/ui/plain-table';
+import { ReviewBatchVerdict, ReviewDrops } from '@/components/reviews/review-evidence';
 import { requirePage } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/permissions';
-import { loadReview } from '@/server/reviews/load';
+import { loadReviewPage } from '@/server/reviews/page';
 
 export const metadata: Metadata = { title: 'Review' };
 
 export default async function ReviewPage({ params }: { params: Promise<{ id: string }> }) {
   const ctx = await requirePage('results:read-all');
   const { id } = await params;
-  const review = await loadReview(ctx.organization.id, id);
-  if (!review) notFound();
+  const page = await loadReviewPage(ctx, id);
+  if (!page) notFound();
+  const { review } = page;
   const title = `${review.coatingCode} · ${review.lotCode}${review.sampleLabel ? ` / ${review.sampleLabel}` : ''}`;
   return (
     <>
@@ -30,7 +31,7 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
       {review.submitNote ? (
         <p className="mb-4 rounded-md bg-white px-3 py-2 text-sm">Note: {review.submitNote}</p>
       ) : null}
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+      <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_26rem]">
         <section className="card">
           <h2 className="mb-3">Results under review</h2>
           {review.supersededCount > 0 ? (
@@ -39,60 +40,56 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
               they need a new review.
             </p>
           ) : null}
-          <PlainTable
-            testId="review-rows"
-            head={[
-              'Sample',
-              'Liquid',
-              'Method',
-              { label: 'Left (°)', align: 'right' },
-              { label: 'Right (°)', align: 'right' },
-              { label: 'Mean (°)', align: 'right' },
-            ]}
-          >
-            {review.rows.map((r) => (
-              <tr key={r.analysisId} className="border-b border-ink-100 last:border-0">
-                <td className="py-1.5 pr-3">{r.sampleLabel}</td>
-                <td className="py-1.5 pr-3">{r.liquidName}</td>
-                <td className="py-1.5 pr-3 text-xs">
-                  {r.method} r{r.revision}
-                </td>
-                {[r.leftDeg, r.rightDeg, r.meanDeg].map((deg, i) => (
-                  <td key={i} className="py-1.5 pr-3 text-right font-mono">
-                    {deg.toFixed(1)}
-                  </td>
-                ))}
-              </tr>
-            ))}
-          </PlainTable>
+          <ReviewDrops drops={page.drops} />
         </section>
-        <section className="card h-fit">
-          {review.status === 'submitted' ? (
-            can(ctx.organization.role, 'review:decide') ? (
-              <>
-                <h2 className="mb-3">Decision</h2>
-                <ReviewDecisionForm reviewId={review.id} />
-              </>
+        <div className="space-y-6">
+          <section className="card" aria-labelledby="batch-verdict">
+            <h2 id="batch-verdict" className="mb-3">
+              Batch {review.lotCode}: statistics and spec verdict
+            </h2>
+            <ReviewBatchVerdict
+              liquids={page.liquids}
+              surfaceEnergy={page.surfaceEnergy}
+              angleBasis={page.angleBasis}
+            />
+            <p className="mt-3 text-sm">
+              <a
+                href={page.certificateHref}
+                className="text-lagoon-700 underline"
+                data-testid="certificate-preview"
+              >
+                Preview the certificate (PDF)
+              </a>
+            </p>
+          </section>
+          <section className="card h-fit">
+            {review.status === 'submitted' ? (
+              can(ctx.organization.role, 'review:decide') ? (
+                <>
+                  <h2 className="mb-3">Decision</h2>
+                  <ReviewDecisionForm reviewId={review.id} />
+                </>
+              ) : (
+                <p className="text-sm text-ink-600">Waiting for a reviewer.</p>
+              )
             ) : (
-              <p className="text-sm text-ink-600">Waiting for a reviewer.</p>
-            )
-          ) : (
-            <div className="space-y-2 text-sm" data-testid="review-outcome">
-              <h2>{review.status === 'approved' ? 'Approved and signed' : 'Rejected'}</h2>
-              <p>
-                By {review.decidedBy ?? '—'} on{' '}
-                {review.decidedAt?.toISOString().slice(0, 16).replace('T', ' ')} UTC
-              </p>
-              {review.decisionComment ? <p>Comment: {review.decisionComment}</p> : null}
-              {review.signature ? (
-                <p className="break-all text-xs text-ink-500">
-                  Signature: {review.signature.name} ({review.signature.email}), password
-                  reconfirmed; digest {review.signature.digest.slice(0, 16)}…
+              <div className="space-y-2 text-sm" data-testid="review-outcome">
+                <h2>{review.status === 'approved' ? 'Approved and signed' : 'Rejected'}</h2>
+                <p>
+                  By {review.decidedBy ?? '—'} on{' '}
+                  {review.decidedAt?.toISOString().slice(0, 16).replace('T', ' ')} UTC
                 </p>
-              ) : null}
-            </div>
-          )}
-        </section>
+                {review.decisionComment ? <p>Comment: {review.decisionComment}</p> : null}
+                {review.signature ? (
+                  <p className="break-all text-xs text-ink-500">
+                    Signature: {review.signature.name} ({review.signature.email}), password
+                    reconfirmed; digest {review.signature.digest.slice(0, 16)}…
+                  </p>
+                ) : null}
+              </div>
+            )}
+          </section>
+        </div>
       </div>
     </>
   );
