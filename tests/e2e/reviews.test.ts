@@ -71,6 +71,17 @@ describe('review and sign-off', () => {
     expect(await reviewer.getByTestId('certificate-preview').getAttribute('href')).toMatch(
       /^\/api\/batches\/[^/]+\/report$/,
     );
+    // The certificate is prepared by a job: 202 with a page that reloads, then the PDF.
+    const certificate = `${BASE_URL}${await reviewer.getByTestId('certificate-preview').getAttribute('href')}`;
+    let answer = await reviewer.request.get(certificate);
+    if (answer.status() === 202) expect(await answer.text()).toContain('being prepared');
+    for (let i = 0; i < 60 && answer.status() === 202; i++) {
+      await reviewer.waitForTimeout(1000);
+      answer = await reviewer.request.get(certificate);
+    }
+    expect(answer.status()).toBe(200);
+    expect(answer.headers()['content-type']).toBe('application/pdf');
+    expect((await answer.body()).subarray(0, 5).toString()).toBe('%PDF-');
     // Rejecting needs a reason.
     await reviewer.getByRole('button', { name: 'Reject' }).click();
     await reviewer.getByText('Say why the results are rejected').waitFor();
