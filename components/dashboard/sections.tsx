@@ -133,10 +133,6 @@ export function OutOfSpec({ batches }: { batches: OutOfSpecBatch[] }) {
           ))}
         </ul>
       )}
-      <p className="mt-2 text-xs text-ink-600">
-        Results that release product for safety-relevant uses must follow the lab&apos;s validated
-        procedure and qualified sign-off.
-      </p>
     </section>
   );
 }

@@ -51,14 +51,6 @@ export async function listSamplesWithDropCounts(batchId: string) {
     .orderBy(samples.label);
 }
 
-/** Every probe liquid's hazard note, by id. */
-export async function probeLiquidHazards(): Promise<Map<string, string | null>> {
-  const rows = await database()
-    .select({ id: probeLiquids.id, hazardNote: probeLiquids.hazardNote })
-    .from(probeLiquids);
-  return new Map(rows.map((l) => [l.id, l.hazardNote]));
-}
-
 /** A drop's photo with its latest analysis (method, baseline, revision). */
 export async function latestAnalysisOfDrop(dropId: string) {
   const [row] = await database()

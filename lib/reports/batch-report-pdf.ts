@@ -10,7 +10,7 @@ export type BatchReportData = {
   batch: { lotCode: string; producedOn: string; process: Record<string, number | undefined>; notes: string };
   specs: { liquidName: string; text: string }[];
   samples: { label: string; substrate: string; position: string; treatedAt: Date | null; dropCount: number }[];
-  liquids: { name: string; hazardNote: string | null; result: BatchLiquidResult; specLines: SpecLine[] }[];
+  liquids: { name: string; result: BatchLiquidResult; specLines: SpecLine[] }[];
   /** The batch's OWRK surface free energy and its verdict, when the comparison has one. */
   surfaceEnergy: { result: BatchSurfaceEnergy; method: string; basis: string; coverageFactor: number } | null;
   representative: { png: Buffer; caption: string } | null;
@@ -295,11 +295,10 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
       result.verdict.outcome === 'pass' ? LEAF : result.verdict.outcome === 'fail' ? CORAL : AMBER,
     ),
   );
-  for (const { name, result, hazardNote } of data.liquids) {
+  for (const { name, result } of data.liquids) {
     for (const spec of result.verdict.specs) {
       doc.fontSize(8.5).fillColor(MUTED).text(`${name} — rule applied: ${spec.rule} ${spec.reason}`, left, doc.y, { width });
     }
-    if (hazardNote) doc.fillColor(AMBER).text(`${name}: ${hazardNote}`, left, doc.y, { width });
   }
   doc.fontSize(9.5).fillColor(INK);
 

@@ -7,7 +7,6 @@ import {
   listSamplesWithDropCounts,
   listSpecsOfCoating,
   methodsUsedInBatch,
-  probeLiquidHazards,
   sessionsOfBatch,
 } from '@/db/queries/reports';
 import { latestAnalysesUnder } from '@/db/queries/reviews';
@@ -120,11 +119,10 @@ export async function certificateContent(request: CertificateRequest, batchId: s
   });
   if (!compared) throw notFound('That batch');
   const { batch, comparison } = compared;
-  const [specRows, sampleRows, hazards, approved, latest, latestRows, methods, sessions] =
+  const [specRows, sampleRows, approved, latest, latestRows, methods, sessions] =
     await Promise.all([
       listSpecsOfCoating(batch.coatingId),
       listSamplesWithDropCounts(batch.id),
-      probeLiquidHazards(),
       latestApprovedBatchReview(batch.id),
       latestBatchReview(batch.id),
       latestAnalysesUnder(organizationId, batch.id, null),
@@ -160,7 +158,6 @@ export async function certificateContent(request: CertificateRequest, batchId: s
         ? [
             {
               name: l.liquid.name,
-              hazardNote: hazards.get(l.liquid.id) ?? null,
               result,
               specLines: l.specLines,
             },
