@@ -7,14 +7,36 @@ import type { BatchLiquidResult, BatchSurfaceEnergy, SpecLine } from '@/lib/comp
 export type BatchReportData = {
   organizationName: string;
   coating: { code: string; name: string; description: string };
-  batch: { lotCode: string; producedOn: string; process: Record<string, number | undefined>; notes: string };
+  batch: {
+    lotCode: string;
+    producedOn: string;
+    process: Record<string, number | undefined>;
+    notes: string;
+  };
   specs: { liquidName: string; text: string }[];
-  samples: { label: string; substrate: string; position: string; treatedAt: Date | null; dropCount: number }[];
+  samples: {
+    label: string;
+    substrate: string;
+    position: string;
+    treatedAt: Date | null;
+    dropCount: number;
+  }[];
   liquids: { name: string; result: BatchLiquidResult; specLines: SpecLine[] }[];
   /** The batch's OWRK surface free energy and its verdict, when the comparison has one. */
-  surfaceEnergy: { result: BatchSurfaceEnergy; method: string; basis: string; coverageFactor: number } | null;
+  surfaceEnergy: {
+    result: BatchSurfaceEnergy;
+    method: string;
+    basis: string;
+    coverageFactor: number;
+  } | null;
   representative: { png: Buffer; caption: string } | null;
-  review: { reviewerName: string; signedAt: string; digest: string; comment: string; analysisCount: number } | null;
+  review: {
+    reviewerName: string;
+    signedAt: string;
+    digest: string;
+    comment: string;
+    analysisCount: number;
+  } | null;
   /** Whether the certificate is final: approved and signed, a draft, or rejected (stamped on every page). */
   status: CertificateStatus;
   /** The sittings at the instrument behind the batch's drops, per probe liquid. */
@@ -118,8 +140,14 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
   let section = root;
   const rawText = doc.text.bind(doc) as (...args: unknown[]) => PDFKit.PDFDocument;
   type TextOptions = PDFKit.Mixins.TextOptions & { structParent?: unknown; structType?: string };
-  (doc as unknown as { text: (...args: unknown[]) => PDFKit.PDFDocument }).text = (value: unknown, ...rest: unknown[]) => {
-    const last = rest.length > 0 && typeof rest[rest.length - 1] === 'object' && rest[rest.length - 1] !== null ? (rest.pop() as TextOptions) : {};
+  (doc as unknown as { text: (...args: unknown[]) => PDFKit.PDFDocument }).text = (
+    value: unknown,
+    ...rest: unknown[]
+  ) => {
+    const last =
+      rest.length > 0 && typeof rest[rest.length - 1] === 'object' && rest[rest.length - 1] !== null
+        ? (rest.pop() as TextOptions)
+        : {};
     return rawText(String(value), ...rest, { structParent: section, structType: 'P', ...last });
   };
   /** Lines, boxes and plot marks are decoration: marked as artifacts, outside the structure. */
@@ -139,8 +167,20 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
   const heading = (text: string) => {
     if (doc.y > doc.page.height - 140) doc.addPage();
     newSection(text);
-    doc.moveDown(0.8).font('Helvetica-Bold').fontSize(12).fillColor(LAGOON).text(text, left, doc.y, { structType: 'H2' });
-    artifact(() => doc.moveTo(left, doc.y + 2).lineTo(left + width, doc.y + 2).lineWidth(0.5).strokeColor('#cbd3dc').stroke());
+    doc
+      .moveDown(0.8)
+      .font('Helvetica-Bold')
+      .fontSize(12)
+      .fillColor(LAGOON)
+      .text(text, left, doc.y, { structType: 'H2' });
+    artifact(() =>
+      doc
+        .moveTo(left, doc.y + 2)
+        .lineTo(left + width, doc.y + 2)
+        .lineWidth(0.5)
+        .strokeColor('#cbd3dc')
+        .stroke(),
+    );
     doc.moveDown(0.5).font('Helvetica').fontSize(9.5).fillColor(INK);
   };
   const pairs = (rows: [string, string][]) => {
@@ -151,7 +191,11 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
       doc.moveDown(0.15);
     }
   };
-  const table = (columns: { title: string; width: number; align?: 'left' | 'right' }[], rows: string[][], colors?: (string | null)[]) => {
+  const table = (
+    columns: { title: string; width: number; align?: 'left' | 'right' }[],
+    rows: string[][],
+    colors?: (string | null)[],
+  ) => {
     const drawRow = (cells: string[], bold: boolean, color: string) => {
       if (doc.y > doc.page.height - 90) doc.addPage();
       const y = doc.y;
@@ -159,16 +203,30 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
       let h = 0;
       cells.forEach((cell, i) => {
         const col = columns[i];
-        doc.font(bold ? 'Helvetica-Bold' : 'Helvetica').fontSize(8.5).fillColor(i === cells.length - 1 ? color : INK);
+        doc
+          .font(bold ? 'Helvetica-Bold' : 'Helvetica')
+          .fontSize(8.5)
+          .fillColor(i === cells.length - 1 ? color : INK);
         const cellHeight = doc.heightOfString(cell, { width: col.width - 4 });
         doc.text(cell, x, y, { width: col.width - 4, align: col.align ?? 'left' });
         h = Math.max(h, cellHeight);
         x += col.width;
       });
       doc.y = y + h + 3;
-      artifact(() => doc.moveTo(left, doc.y - 1.5).lineTo(left + width, doc.y - 1.5).lineWidth(0.3).strokeColor('#e6eaef').stroke());
+      artifact(() =>
+        doc
+          .moveTo(left, doc.y - 1.5)
+          .lineTo(left + width, doc.y - 1.5)
+          .lineWidth(0.3)
+          .strokeColor('#e6eaef')
+          .stroke(),
+      );
     };
-    drawRow(columns.map((c) => c.title), true, INK);
+    drawRow(
+      columns.map((c) => c.title),
+      true,
+      INK,
+    );
     rows.forEach((r, i) => drawRow(r, false, colors?.[i] ?? INK));
     doc.font('Helvetica').fontSize(9.5).fillColor(INK);
   };
@@ -177,19 +235,49 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
   artifact(() => {
     doc.save();
     doc.roundedRect(left, 40, 22, 22, 5).fill('#134f52');
-    doc.path(`M ${left + 4} ${56} C ${left + 4} 47 ${left + 8} 44 ${left + 11} 44 C ${left + 14} 44 ${left + 18} 47 ${left + 18} 56 Z`).fill('#67d5d2');
-    doc.moveTo(left + 3, 56).lineTo(left + 19, 56).lineWidth(1).strokeColor('#ecfbfa').stroke();
+    doc
+      .path(
+        `M ${left + 4} ${56} C ${left + 4} 47 ${left + 8} 44 ${left + 11} 44 C ${left + 14} 44 ${left + 18} 47 ${left + 18} 56 Z`,
+      )
+      .fill('#67d5d2');
+    doc
+      .moveTo(left + 3, 56)
+      .lineTo(left + 19, 56)
+      .lineWidth(1)
+      .strokeColor('#ecfbfa')
+      .stroke();
     doc.restore();
   });
-  doc.font('Helvetica-Bold').fontSize(11).fillColor(LAGOON).text('Beadline', left + 30, 46);
-  doc.font('Helvetica').fontSize(8.5).fillColor(MUTED).text(data.organizationName, left + 30, 46, { width: width - 30, align: 'right' });
+  doc
+    .font('Helvetica-Bold')
+    .fontSize(11)
+    .fillColor(LAGOON)
+    .text('Beadline', left + 30, 46);
+  doc
+    .font('Helvetica')
+    .fontSize(8.5)
+    .fillColor(MUTED)
+    .text(data.organizationName, left + 30, 46, { width: width - 30, align: 'right' });
   doc.y = 80;
-  doc.font('Helvetica-Bold').fontSize(18).fillColor(INK).text('Certificate of analysis', left, doc.y, { structType: 'H1' });
-  doc.font('Helvetica').fontSize(11).fillColor(MUTED).text(`${data.coating.code} · batch ${data.batch.lotCode}`);
+  doc
+    .font('Helvetica-Bold')
+    .fontSize(18)
+    .fillColor(INK)
+    .text('Certificate of analysis', left, doc.y, { structType: 'H1' });
+  doc
+    .font('Helvetica')
+    .fontSize(11)
+    .fillColor(MUTED)
+    .text(`${data.coating.code} · batch ${data.batch.lotCode}`);
   const stamp = statusStamp(data.status);
   if (stamp) {
     // The status in words on page 1 (the stamp on every page repeats it).
-    doc.moveDown(0.4).font('Helvetica-Bold').fontSize(11).fillColor(CORAL).text(stamp.title, left, doc.y, { width });
+    doc
+      .moveDown(0.4)
+      .font('Helvetica-Bold')
+      .fontSize(11)
+      .fillColor(CORAL)
+      .text(stamp.title, left, doc.y, { width });
     doc.font('Helvetica').fontSize(9.5).text(stamp.detail, left, doc.y, { width });
     doc.fillColor(INK);
   }
@@ -197,7 +285,9 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
   heading('Coating and batch');
   pairs([
     ['Coating', `${data.coating.code}: ${data.coating.name}`],
-    ...(data.coating.description ? ([['Description', data.coating.description]] as [string, string][]) : []),
+    ...(data.coating.description
+      ? ([['Description', data.coating.description]] as [string, string][])
+      : []),
     ['Batch (lot code)', data.batch.lotCode],
     ['Produced on', data.batch.producedOn],
     ...Object.entries(data.batch.process)
@@ -207,8 +297,10 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
   ]);
 
   heading('Specification');
-  if (data.specs.length === 0) doc.text('No specification is recorded for this coating.', left, doc.y, { width });
-  for (const spec of data.specs) doc.text(`${spec.liquidName}: ${spec.text}`, left, doc.y, { width });
+  if (data.specs.length === 0)
+    doc.text('No specification is recorded for this coating.', left, doc.y, { width });
+  for (const spec of data.specs)
+    doc.text(`${spec.liquidName}: ${spec.text}`, left, doc.y, { width });
 
   heading('Samples');
   table(
@@ -219,18 +311,27 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
       { title: 'Treated', width: 80 },
       { title: 'Drops', width: 50, align: 'right' },
     ],
-    data.samples.map((s) => [s.label, s.substrate || '—', s.position || '—', s.treatedAt ? s.treatedAt.toISOString().slice(0, 10) : '—', String(s.dropCount)]),
+    data.samples.map((s) => [
+      s.label,
+      s.substrate || '—',
+      s.position || '—',
+      s.treatedAt ? s.treatedAt.toISOString().slice(0, 10) : '—',
+      String(s.dropCount),
+    ]),
   );
 
   heading('Measurement');
-  if (data.sessions.length === 0) doc.text('No drops have been measured on this batch.', left, doc.y, { width });
+  if (data.sessions.length === 0)
+    doc.text('No drops have been measured on this batch.', left, doc.y, { width });
   else {
     const range = (values: (number | null)[], unit: string, digits = 1) => {
       const known = values.filter((v): v is number => v !== null);
       if (known.length === 0) return '—';
       const lo = Math.min(...known);
       const hi = Math.max(...known);
-      return lo === hi ? `${lo.toFixed(digits)} ${unit}` : `${lo.toFixed(digits)}–${hi.toFixed(digits)} ${unit}`;
+      return lo === hi
+        ? `${lo.toFixed(digits)} ${unit}`
+        : `${lo.toFixed(digits)}–${hi.toFixed(digits)} ${unit}`;
     };
     table(
       [
@@ -254,19 +355,33 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
         s.instrumentNotes || 'not recorded',
       ]),
     );
-    const first = data.sessions.reduce((a, s) => (s.firstMeasuredAt < a ? s.firstMeasuredAt : a), data.sessions[0].firstMeasuredAt);
-    const last = data.sessions.reduce((a, s) => (s.lastMeasuredAt > a ? s.lastMeasuredAt : a), data.sessions[0].lastMeasuredAt);
-    doc.fontSize(8.5).fillColor(MUTED).text(
-      `Drops measured from ${utc(first)} to ${utc(last)}. Conditions as recorded for the session: room temperature and relative humidity. Method and software: see Methods.`,
-      left,
-      doc.y,
-      { width },
+    const first = data.sessions.reduce(
+      (a, s) => (s.firstMeasuredAt < a ? s.firstMeasuredAt : a),
+      data.sessions[0].firstMeasuredAt,
     );
+    const last = data.sessions.reduce(
+      (a, s) => (s.lastMeasuredAt > a ? s.lastMeasuredAt : a),
+      data.sessions[0].lastMeasuredAt,
+    );
+    doc
+      .fontSize(8.5)
+      .fillColor(MUTED)
+      .text(
+        `Drops measured from ${utc(first)} to ${utc(last)}. Conditions as recorded for the session: room temperature and relative humidity. Method and software: see Methods.`,
+        left,
+        doc.y,
+        { width },
+      );
     doc.fontSize(9.5).fillColor(INK);
   }
 
   heading('Results per probe liquid');
-  doc.fontSize(8.5).fillColor(MUTED).text(`${data.angleBasis} Confidence intervals: Student t, 95 %.`, left, doc.y, { width }).fontSize(9.5).fillColor(INK);
+  doc
+    .fontSize(8.5)
+    .fillColor(MUTED)
+    .text(`${data.angleBasis} Confidence intervals: Student t, 95 %.`, left, doc.y, { width })
+    .fontSize(9.5)
+    .fillColor(INK);
   doc.moveDown(0.4);
   table(
     [
@@ -280,7 +395,10 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
     ],
     data.liquids.map(({ name, result }) => {
       const d = result.description;
-      const verdict = result.verdict.outcome === 'no-spec' ? 'no spec' : result.verdict.outcome.replace(/-/g, ' ');
+      const verdict =
+        result.verdict.outcome === 'no-spec'
+          ? 'no spec'
+          : result.verdict.outcome.replace(/-/g, ' ');
       return [
         name,
         String(d?.n ?? 0),
@@ -297,7 +415,10 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
   );
   for (const { name, result } of data.liquids) {
     for (const spec of result.verdict.specs) {
-      doc.fontSize(8.5).fillColor(MUTED).text(`${name} — rule applied: ${spec.rule} ${spec.reason}`, left, doc.y, { width });
+      doc
+        .fontSize(8.5)
+        .fillColor(MUTED)
+        .text(`${name} — rule applied: ${spec.rule} ${spec.reason}`, left, doc.y, { width });
     }
   }
   doc.fontSize(9.5).fillColor(INK);
@@ -307,9 +428,15 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
     const pm = (v: { value: number; standardUncertainty: number } | null) =>
       v ? `${fmt(v.value)} ± ${fmt(coverageFactor * v.standardUncertainty)}` : '—';
     heading('Surface free energy');
-    doc.fontSize(8.5).fillColor(MUTED).text(`${method}. ${basis}`, left, doc.y, { width }).fontSize(9.5).fillColor(INK);
+    doc
+      .fontSize(8.5)
+      .fillColor(MUTED)
+      .text(`${method}. ${basis}`, left, doc.y, { width })
+      .fontSize(9.5)
+      .fillColor(INK);
     doc.moveDown(0.4);
-    const outcome = result.verdict.outcome === 'no-spec' ? 'no spec' : result.verdict.outcome.replace(/-/g, ' ');
+    const outcome =
+      result.verdict.outcome === 'no-spec' ? 'no spec' : result.verdict.outcome.replace(/-/g, ' ');
     table(
       [
         { title: 'Liquids (n)', width: 150 },
@@ -327,11 +454,23 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
           outcome.toUpperCase(),
         ],
       ],
-      [result.verdict.outcome === 'pass' ? LEAF : result.verdict.outcome === 'fail' ? CORAL : AMBER],
+      [
+        result.verdict.outcome === 'pass'
+          ? LEAF
+          : result.verdict.outcome === 'fail'
+            ? CORAL
+            : AMBER,
+      ],
     );
-    if (!result.total && result.note) doc.fontSize(8.5).fillColor(MUTED).text(result.note, left, doc.y, { width });
+    if (!result.total && result.note)
+      doc.fontSize(8.5).fillColor(MUTED).text(result.note, left, doc.y, { width });
     for (const spec of result.verdict.specs) {
-      doc.fontSize(8.5).fillColor(MUTED).text(`Surface free energy — rule applied: ${spec.rule}. ${spec.reason}`, left, doc.y, { width });
+      doc
+        .fontSize(8.5)
+        .fillColor(MUTED)
+        .text(`Surface free energy — rule applied: ${spec.rule}. ${spec.reason}`, left, doc.y, {
+          width,
+        });
     }
     doc.fontSize(9.5).fillColor(INK);
   }
@@ -353,31 +492,72 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
     doc.markContent('Artifact');
     doc.rect(plotX, plotY, plotW, plotH).lineWidth(0.5).strokeColor('#cbd3dc').stroke();
     for (let t = Math.ceil(lo); t <= hi; t += Math.max(1, Math.round((hi - lo) / 8))) {
-      doc.moveTo(x(t), plotY + plotH).lineTo(x(t), plotY + plotH + 3).strokeColor(MUTED).stroke();
+      doc
+        .moveTo(x(t), plotY + plotH)
+        .lineTo(x(t), plotY + plotH + 3)
+        .strokeColor(MUTED)
+        .stroke();
     }
     for (const s of specLines) {
-      doc.moveTo(x(s.value), plotY).lineTo(x(s.value), plotY + plotH).dash(3, { space: 2 }).lineWidth(0.8).strokeColor(CORAL).stroke().undash();
+      doc
+        .moveTo(x(s.value), plotY)
+        .lineTo(x(s.value), plotY + plotH)
+        .dash(3, { space: 2 })
+        .lineWidth(0.8)
+        .strokeColor(CORAL)
+        .stroke()
+        .undash();
     }
     values.forEach((v, i) => {
-      doc.circle(x(v), plotY + 20 + (i % 5) * 5, 2).fillOpacity(0.8).fill(LAGOON).fillOpacity(1);
+      doc
+        .circle(x(v), plotY + 20 + (i % 5) * 5, 2)
+        .fillOpacity(0.8)
+        .fill(LAGOON)
+        .fillOpacity(1);
     });
     const d = result.description;
     if (d?.ci) {
       const cy = plotY + plotH - 12;
-      doc.moveTo(x(d.ci.lower), cy).lineTo(x(d.ci.upper), cy).lineWidth(1.2).strokeColor(INK).stroke();
+      doc
+        .moveTo(x(d.ci.lower), cy)
+        .lineTo(x(d.ci.upper), cy)
+        .lineWidth(1.2)
+        .strokeColor(INK)
+        .stroke();
       doc.rect(x(d.mean) - 2.5, cy - 2.5, 5, 5).fill(INK);
     }
     doc.endMarkedContent();
     // The plot's words are text of the figure's section.
     for (let t = Math.ceil(lo); t <= hi; t += Math.max(1, Math.round((hi - lo) / 8))) {
-      doc.fontSize(7).fillColor(MUTED).text(`${t}°`, x(t) - 10, plotY + plotH + 5, { width: 20, align: 'center' });
+      doc
+        .fontSize(7)
+        .fillColor(MUTED)
+        .text(`${t}°`, x(t) - 10, plotY + plotH + 5, { width: 20, align: 'center' });
     }
     for (const s of specLines) {
-      doc.fontSize(7).fillColor(CORAL).text(`${s.kind} ${s.value}° (${s.scope})`, x(s.value) + 2, plotY + 2 + (s.scope === 'mean' ? 9 : 0));
+      doc
+        .fontSize(7)
+        .fillColor(CORAL)
+        .text(
+          `${s.kind} ${s.value}° (${s.scope})`,
+          x(s.value) + 2,
+          plotY + 2 + (s.scope === 'mean' ? 9 : 0),
+        );
     }
-    doc.fontSize(7).fillColor(MUTED).text('angle (°)', left, plotY + plotH / 2 - 4, { width: 36 });
+    doc
+      .fontSize(7)
+      .fillColor(MUTED)
+      .text('angle (°)', left, plotY + plotH / 2 - 4, { width: 36 });
     doc.y = plotY + plotH + 18;
-    doc.fontSize(8).fillColor(MUTED).text('Dots: every drop. Black bar: batch mean with its 95 % confidence interval. Dashed: spec limits.', left, doc.y, { width });
+    doc
+      .fontSize(8)
+      .fillColor(MUTED)
+      .text(
+        'Dots: every drop. Black bar: batch mean with its 95 % confidence interval. Dashed: spec limits.',
+        left,
+        doc.y,
+        { width },
+      );
     doc.fontSize(9.5).fillColor(INK);
   }
 
@@ -400,28 +580,41 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
 
   heading('Methods');
   for (const m of data.methods) doc.text(`${m.name}: ${m.source}`, left, doc.y, { width });
-  doc.text(`Software: ${data.softwareVersion}. Generated ${utc(data.generatedAt)} by ${data.generatedBy}.`, left, doc.y, { width });
+  doc.text(
+    `Software: ${data.softwareVersion}. Generated ${utc(data.generatedAt)} by ${data.generatedBy}.`,
+    left,
+    doc.y,
+    { width },
+  );
 
   heading('Review and signature');
   if (data.review) {
     pairs([
       ['Approved and signed by', data.review.reviewerName],
       ['Signed on', `${data.review.signedAt.slice(0, 16).replace('T', ' ')} UTC`],
-      ['Results covered', `${data.review.analysisCount} analyses (digest ${data.review.digest.slice(0, 16)}…)`],
+      [
+        'Results covered',
+        `${data.review.analysisCount} analyses (digest ${data.review.digest.slice(0, 16)}…)`,
+      ],
       ...(data.review.comment ? ([['Comment', data.review.comment]] as [string, string][]) : []),
     ]);
   } else {
-    doc.fillColor(CORAL).text(`Not signed. ${stamp ? `${stamp.title}: ${stamp.detail}` : ''}`, left, doc.y, { width }).fillColor(INK);
+    doc
+      .fillColor(CORAL)
+      .text(`Not signed. ${stamp ? `${stamp.title}: ${stamp.detail}` : ''}`, left, doc.y, { width })
+      .fillColor(INK);
   }
 
   heading('Release of product');
-  doc.fontSize(8.5).text(
-    'Results that release product for safety-relevant uses (medical, food contact, structural bonding) must follow the lab’s validated procedure and the applicable standards; ' +
-      'Beadline supports, and does not replace, that procedure and licensed or qualified sign-off.',
-    left,
-    doc.y,
-    { width },
-  );
+  doc
+    .fontSize(8.5)
+    .text(
+      'Results that release product for safety-relevant uses (medical, food contact, structural bonding) must follow the lab’s validated procedure and the applicable standards; ' +
+        'Beadline supports, and does not replace, that procedure and licensed or qualified sign-off.',
+      left,
+      doc.y,
+      { width },
+    );
 
   // Footer on every page.
   const range = doc.bufferedPageRange();
@@ -433,16 +626,30 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
     if (stamp) {
       // A band across the top and a diagonal mark: no page of an unsigned certificate looks final.
       doc.save();
-      doc.rect(0, 0, doc.page.width, 30).fill('#ffe0db');
-      doc.font('Helvetica-Bold').fontSize(9).fillColor(CORAL);
-      rawText(`${stamp.title} · ${stamp.detail}`, left, 10, { width, align: 'center', height: 14, ellipsis: true, lineBreak: false });
+      doc.rect(0, 0, doc.page.width, 36).fill('#ffe0db');
+      doc.font('Helvetica-Bold').fontSize(8).fillColor(CORAL);
+      rawText(`${stamp.title} · ${stamp.detail}`, left, 7, {
+        width,
+        align: 'center',
+        height: 24,
+        ellipsis: true,
+      });
       doc.rotate(-35, { origin: [doc.page.width / 2, doc.page.height / 2] });
       doc.fontSize(54).fillOpacity(0.12);
-      rawText(stamp.title, 0, doc.page.height / 2 - 30, { width: doc.page.width, align: 'center', lineBreak: false });
+      rawText(stamp.title, 0, doc.page.height / 2 - 30, {
+        width: doc.page.width,
+        align: 'center',
+        lineBreak: false,
+      });
       doc.restore();
     }
     doc.font('Helvetica').fontSize(7.5).fillColor(MUTED);
-    rawText(`${data.coating.code} · ${data.batch.lotCode} · page ${i + 1} of ${range.count}${stamp ? ` · ${stamp.title}` : ''}`, left, doc.page.height - 40, { width, align: 'center' });
+    rawText(
+      `${data.coating.code} · ${data.batch.lotCode} · page ${i + 1} of ${range.count}${stamp ? ` · ${stamp.title}` : ''}`,
+      left,
+      doc.page.height - 40,
+      { width, align: 'center' },
+    );
     doc.endMarkedContent();
     doc.page.margins.bottom = bottom;
   }
