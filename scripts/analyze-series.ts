@@ -31,7 +31,7 @@ interface CliOptions {
 }
 
 class ArgumentError extends Error {
-  readonly code = 'bad-arguments';
+  readonly code = 'bad_arguments';
 }
 
 function parseArgs(argv: string[]): CliOptions {
@@ -84,7 +84,7 @@ function errorOf(error: unknown): { code: string; message: string } {
   )
     return { code: error.code, message: error.message };
   return {
-    code: 'internal-error',
+    code: 'internal_error',
     message: error instanceof Error ? error.message : String(error),
   };
 }
@@ -149,7 +149,7 @@ async function main(): Promise<number> {
     if (progress) process.stderr.write('\n');
     if (!frames.some((f) => f.meanDeg !== null))
       throw new AnalysisError(
-        'no-drop-found',
+        'no_drop_found',
         `None of the ${frames.length} frames showed a drop on a baseline; the first says: ${frames[0]?.warnings[0]?.message ?? 'no frames were decoded'}`,
       );
     const summary = summariseDynamic(frames);

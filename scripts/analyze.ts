@@ -113,7 +113,7 @@ function errorOf(error: unknown): { code: string; message: string } {
   if (error instanceof AnalysisError) return { code: error.code, message: error.message };
   if (error instanceof DecodeError) return { code: error.code, message: error.message };
   return {
-    code: 'internal-error',
+    code: 'internal_error',
     message: error instanceof Error ? error.message : String(error),
   };
 }

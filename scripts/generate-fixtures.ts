@@ -17,9 +17,23 @@ async function main() {
   const manifest = [];
   for (const spec of FIXTURES) {
     const { image, truth, scene } = renderDrop(spec.scene);
-    const file = `${spec.name}.${spec.format}`;
+    const file = `${spec.name}.${spec.format === 'jpeg' ? 'jpg' : spec.format}`;
     let bytes: Uint8Array;
     if (spec.format === 'bmp') bytes = encodeGrayBmp(image);
+    else if (spec.format === 'jpeg') {
+      // A colour camera's photo: the gray render tinted per channel, JPEG quality 90.
+      const [r, g, b] = spec.tint ?? [1, 1, 1];
+      const rgb = Buffer.alloc(image.width * image.height * 3);
+      for (let i = 0; i < image.width * image.height; i++) {
+        const value = image.data[i];
+        rgb[3 * i] = Math.round(value * r);
+        rgb[3 * i + 1] = Math.round(value * g);
+        rgb[3 * i + 2] = Math.round(value * b);
+      }
+      bytes = await sharp(rgb, { raw: { width: image.width, height: image.height, channels: 3 } })
+        .jpeg({ quality: 90 })
+        .toBuffer();
+    }
     else if (image.data instanceof Uint16Array) {
       bytes = await sharp(image.data, {
         raw: { width: image.width, height: image.height, channels: 1 },
@@ -43,6 +57,8 @@ async function main() {
       bitDepth: scene.bitDepth,
       truth: {
         contactAngleDeg: truth.contactAngleDeg,
+        leftAngleDeg: round(truth.leftAngleDeg),
+        rightAngleDeg: round(truth.rightAngleDeg),
         bond: truth.bond,
         apexRadiusPx: round(truth.apexRadiusPx),
         baseline: {
@@ -60,6 +76,8 @@ async function main() {
       },
       scene: {
         tiltDeg: scene.tiltDeg,
+        plateTiltDeg: scene.plateTiltDeg,
+        colour: spec.tint ?? null,
         blurPx: scene.blurPx,
         noise: scene.noise,
         reflection: scene.reflection,

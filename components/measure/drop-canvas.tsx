@@ -8,13 +8,14 @@ import {
   Label,
   Layer,
   Line,
-  Rect,
+  Shape,
   Stage,
   Tag,
   Text,
 } from 'react-konva';
 import type Konva from 'konva';
 import type { AnalysisResult, Baseline, Point } from '@/lib/analysis/types';
+import { previewBaseline, useLiveResult } from './use-analysis';
 import {
   baselineAcross,
   nudgeBaseline,
@@ -35,6 +36,8 @@ const COLORS = {
 };
 
 type Props = {
+  /** The photo, to follow its newest analysis (drafts included) as it arrives from the worker. */
+  photoId?: string;
   imageUrl: string;
   width: number;
   height: number;
@@ -42,7 +45,7 @@ type Props = {
   baseline: Baseline | null;
   selectedHandle: BaselineHandle | null;
   onSelectHandle(handle: BaselineHandle | null): void;
-  /** Called while dragging (live) and once more when the drag ends. */
+  /** Called when a drag ends (and for each keyboard nudge); during a drag the canvas follows it. */
   onBaselineChange(baseline: Baseline): void;
   /** When set, a click on the photo picks an image point (scale calibration on the needle). */
   onPickPoint?: (point: Point) => void;
@@ -63,7 +66,16 @@ function useLoadedImage(url: string) {
 }
 
 export function DropCanvas(props: Props) {
-  const { width, height, result, selectedHandle, onSelectHandle, onBaselineChange } = props;
+  const { width, height, selectedHandle, onSelectHandle } = props;
+  // The worker's newest result for this photo (a draft while the baseline is dragged) is shown as
+  // soon as it arrives; the page's own result once nothing newer has come.
+  const live = useLiveResult(props.photoId);
+  const result = live ?? props.result;
+  const { onBaselineChange } = props;
+  // While a handle or the line is dragged the baseline lives here: the page re-renders only when
+  // the drag ends, and meanwhile the worker gets each position at once (`previewBaseline`) and the
+  // canvas shows its drafts.
+  const [dragged, setDragged] = useState<Baseline | null>(null);
   const image = useLoadedImage(props.imageUrl);
   const containerRef = useRef<HTMLDivElement>(null);
   const [viewWidth, setViewWidth] = useState(800);
@@ -83,7 +95,7 @@ export function DropCanvas(props: Props) {
     return () => observer.disconnect();
   }, []);
 
-  const baseline = props.baseline ?? result?.baseline ?? null;
+  const baseline = dragged ?? props.baseline ?? result?.baseline ?? null;
   const handleRadius = 7 / scale;
   const stroke = 1.5 / scale;
 
@@ -97,6 +109,10 @@ export function DropCanvas(props: Props) {
   }, [result, baseline]);
 
   const flat = (points: Point[]) => points.flatMap(([x, y]) => [x, y]);
+  // A draft (while the baseline is dragged) is drawn dashed and marked ≈ until the full fit lands.
+  const provisional = result?.provisional === true;
+  const provisionalDash = provisional ? [6 / scale, 4 / scale] : undefined;
+  const approx = provisional ? '≈' : '';
 
   function onWheel(event: Konva.KonvaEventObject<WheelEvent>) {
     event.evt.preventDefault();
@@ -124,13 +140,22 @@ export function DropCanvas(props: Props) {
     onBaselineChange(nudgeBaseline(baseline, selectedHandle, step[0], step[1]));
   }
 
-  const dragTo = (handle: 'start' | 'end') => (event: Konva.KonvaEventObject<DragEvent>) => {
-    if (!baseline) return;
-    const { x, y } = event.target.position();
-    onBaselineChange(
-      handle === 'start' ? { ...baseline, x1: x, y1: y } : { ...baseline, x2: x, y2: y },
-    );
+  const follow = (next: Baseline, final: boolean) => {
+    if (final) {
+      setDragged(null);
+      onBaselineChange(next);
+    } else {
+      setDragged(next);
+      previewBaseline(props.photoId, next);
+    }
   };
+
+  const dragTo =
+    (handle: 'start' | 'end', final = false) => (event: Konva.KonvaEventObject<DragEvent>) => {
+      if (!baseline) return;
+      const { x, y } = event.target.position();
+      follow(handle === 'start' ? { ...baseline, x1: x, y1: y } : { ...baseline, x2: x, y2: y }, final);
+    };
 
   return (
     <div ref={containerRef} className="w-full">
@@ -145,6 +170,17 @@ export function DropCanvas(props: Props) {
           baseline ? [baseline.x1, baseline.y1, baseline.x2, baseline.y2].join(',') : undefined
         }
         data-scale={scale}
+        // The shown result: its baseline, full-precision angles and whether it is a draft (tests).
+        data-result-baseline={
+          result
+            ? [result.baseline.x1, result.baseline.y1, result.baseline.x2, result.baseline.y2].join(',')
+            : undefined
+        }
+        data-result-method={result?.method}
+        data-result-left={result?.leftDeg}
+        data-result-right={result?.rightDeg}
+        data-result-provisional={result ? String(provisional) : undefined}
+        data-result-time-ms={result?.timeMs}
       >
         <Stage
           width={viewWidth}
@@ -167,20 +203,14 @@ export function DropCanvas(props: Props) {
             props.onPickPoint([(pointer.x - offset.x) / scale, (pointer.y - offset.y) / scale]);
           }}
         >
+          {/* The photo on its own layer: a drag redraws the overlay, not the scaled photo. */}
           <Layer scaleX={scale} scaleY={scale}>
             {image ? <KonvaImage image={image} width={width} height={height} name="photo" /> : null}
+          </Layer>
+          <Layer scaleX={scale} scaleY={scale}>
             {result ? (
               <Group listening={false}>
-                {result.edgePoints.left.concat(result.edgePoints.right).map(([x, y], i) => (
-                  <Rect
-                    key={i}
-                    x={x - 0.6 / scale}
-                    y={y - 0.6 / scale}
-                    width={1.2 / scale}
-                    height={1.2 / scale}
-                    fill={COLORS.edge}
-                  />
-                ))}
+                <EdgePoints result={result} size={1.2 / scale} />
                 {result.profile ? (
                   <Line
                     points={flat(result.profile)}
@@ -194,16 +224,18 @@ export function DropCanvas(props: Props) {
                       points={flat([result.contactLeft, tangents.left])}
                       stroke={COLORS.tangent}
                       strokeWidth={stroke * 1.6}
+                      dash={provisionalDash}
                     />
                     <Line
                       points={flat([result.contactRight, tangents.right])}
                       stroke={COLORS.tangent}
                       strokeWidth={stroke * 1.6}
+                      dash={provisionalDash}
                     />
                     <Label x={tangents.left[0] - 64 / scale} y={tangents.left[1] - 24 / scale}>
                       <Tag fill="#0e141c" opacity={0.8} cornerRadius={3 / scale} />
                       <Text
-                        text={`${result.leftDeg.toFixed(1)}°`}
+                        text={`${approx}${result.leftDeg.toFixed(1)}°`}
                         fontSize={13 / scale}
                         padding={3 / scale}
                         fill="#ffffff"
@@ -212,7 +244,7 @@ export function DropCanvas(props: Props) {
                     <Label x={tangents.right[0] + 8 / scale} y={tangents.right[1] - 24 / scale}>
                       <Tag fill="#0e141c" opacity={0.8} cornerRadius={3 / scale} />
                       <Text
-                        text={`${result.rightDeg.toFixed(1)}°`}
+                        text={`${approx}${result.rightDeg.toFixed(1)}°`}
                         fontSize={13 / scale}
                         padding={3 / scale}
                         fill="#ffffff"
@@ -257,8 +289,9 @@ export function DropCanvas(props: Props) {
                   onDragMove={(event) => {
                     const { x, y } = event.target.position();
                     event.target.position({ x: 0, y: 0 });
-                    onBaselineChange(nudgeBaseline(baseline, 'line', x, y));
+                    follow(nudgeBaseline(baseline, 'line', x, y), false);
                   }}
+                  onDragEnd={() => follow(baseline, true)}
                 />
                 {(['start', 'end'] as const).map((handle) => {
                   const x = handle === 'start' ? baseline.x1 : baseline.x2;
@@ -277,7 +310,7 @@ export function DropCanvas(props: Props) {
                         name={`baseline-${handle}`}
                         onMouseDown={() => onSelectHandle(handle)}
                         onDragMove={dragTo(handle)}
-                        onDragEnd={dragTo(handle)}
+                        onDragEnd={dragTo(handle, true)}
                       />
                     </Group>
                   );
@@ -307,5 +340,24 @@ export function DropCanvas(props: Props) {
         </span>
       </div>
     </div>
+  );
+}
+
+/** The fitted edge points as one shape: a drag redraws one node, not a thousand. */
+function EdgePoints({ result, size }: { result: AnalysisResult; size: number }) {
+  const { left, right } = result.edgePoints;
+  return (
+    <Shape
+      listening={false}
+      fill={COLORS.edge}
+      perfectDrawEnabled={false}
+      sceneFunc={(context, shape) => {
+        context.beginPath();
+        for (const points of [left, right]) {
+          for (const [x, y] of points) context.rect(x - size / 2, y - size / 2, size, size);
+        }
+        context.fillShape(shape);
+      }}
+    />
   );
 }

@@ -37,6 +37,7 @@ export function PhotoStage({
         </p>
       ) : null}
       <DropCanvas
+        photoId={photo.id}
         imageUrl={`/api/photos/${photo.id}/image`}
         width={photo.width}
         height={photo.height}

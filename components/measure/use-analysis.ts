@@ -1,8 +1,14 @@
 'use client';
 
-import { useEffect, useMemo, useRef } from 'react';
-import type { AnalyseOptions, AnalysisResult } from '@/lib/analysis/types';
-import { transferablesOf, type AnalyseRequest, type AnalyseResponse } from '@/lib/analysis/worker-protocol';
+import { useEffect, useMemo, useSyncExternalStore } from 'react';
+import type { AnalyseOptions, AnalysisResult, Baseline } from '@/lib/analysis/types';
+import {
+  unpackResult,
+  type AnalyseQuality,
+  type AnalyseRequest,
+  type AnalyseResponse,
+  type WorkerRequest,
+} from '@/lib/analysis/worker-protocol';
 
 export class AnalysisFailed extends Error {
   constructor(
@@ -16,46 +22,49 @@ export class AnalysisFailed extends Error {
 /** Rejection of a request that a newer one for the same photo replaced; callers ignore it. */
 export class Superseded extends Error {}
 
-type Pixels = { width: number; height: number; buffer: ArrayBuffer };
-type Waiter = { options: AnalyseOptions; resolve(result: AnalysisResult): void; reject(error: Error): void };
+/** After this long without a newer request for a photo, its draft is followed by the full result. */
+const REST_MS = 120;
+
+type Waiter = {
+  options: AnalyseOptions;
+  key: string;
+  resolve(result: AnalysisResult): void;
+  reject(error: Error): void;
+  onProvisional?: (result: AnalysisResult) => void;
+  createdAt: number;
+  draftSent: boolean;
+  fullSent: boolean;
+};
 type DropState = {
-  size: { width: number; height: number } | null;
-  /** The pixel buffer while it is here (it is away in the worker during a request). */
-  pixels: ArrayBuffer | null;
-  decoding: Promise<void> | null;
-  /** The request in the worker (its pixels travel with it). */
-  inFlight: (Waiter & { requestId: number }) | null;
-  /** The newest request waiting for the pixels to come back; older ones are superseded. */
-  queued: Waiter | null;
+  /** The newest request, until its full result arrives. */
+  waiter: Waiter | null;
+  /** A draft asked for straight from a drag (`preview`), before the page's own request. */
+  preview: { options: AnalyseOptions; key: string } | null;
+  /** The request in the worker (at most one per photo, so results never arrive out of order). */
+  inFlight: { requestId: number; waiter: Waiter | null; quality: AnalyseQuality } | null;
+  /** The options of the page's newest request, which a preview changes only in the baseline. */
+  lastOptions: AnalyseOptions | null;
+  /** The options of the newest draft sent, so the page's request for them is not drafted twice. */
+  lastDraftKey: string | null;
+  timer: ReturnType<typeof setTimeout> | null;
 };
 
-/** Decodes a photo in the browser and converts it to 8-bit luma (Rec. 601 weights). */
-async function decodePhoto(url: string): Promise<Pixels> {
-  const response = await fetch(url);
-  if (!response.ok) throw new AnalysisFailed('photo-unavailable', 'The photo could not be loaded. Reload the page.');
-  const bitmap = await createImageBitmap(await response.blob(), { imageOrientation: 'from-image' });
-  const canvas = new OffscreenCanvas(bitmap.width, bitmap.height);
-  const context = canvas.getContext('2d', { willReadFrequently: true });
-  if (!context) throw new AnalysisFailed('no-canvas', 'This browser cannot read image pixels.');
-  context.drawImage(bitmap, 0, 0);
-  const rgba = context.getImageData(0, 0, bitmap.width, bitmap.height).data;
-  const gray = new Uint8Array(bitmap.width * bitmap.height);
-  for (let i = 0, j = 0; i < gray.length; i++, j += 4) {
-    gray[i] = Math.round(0.299 * rgba[j] + 0.587 * rgba[j + 1] + 0.114 * rgba[j + 2]);
-  }
-  bitmap.close();
-  return { width: canvas.width, height: canvas.height, buffer: gray.buffer };
-}
+/** Where the worker fetches a photo's canonical gray pixels (the server's decoding). */
+export const pixelsUrlOf = (photoId: string) => `/api/photos/${photoId}/pixels`;
 
 /**
- * The analysis worker's client. Each photo's pixels are decoded once and then travel to the
- * worker and back as a transferred buffer. At most one request per photo is in the worker; while
- * it runs, only the newest next request is kept, so results never arrive out of order and a fast
- * baseline drag never queues stale work.
+ * The analysis worker's client, one per page. The worker fetches each photo's pixels and detects its
+ * edges once; here each photo has at most one request in the worker and only the newest next one
+ * waits. While something shows a photo live (`useLiveResult`, the canvas), a request first gets a
+ * quick draft, published to it at once so it follows a baseline drag, and, once no newer request
+ * has come for REST_MS, the full result, which is published too and resolves the promise. A drag
+ * can ask for a draft itself (`preview`) before the page has taken the new baseline.
  */
 class AnalysisClient {
   private readonly worker: Worker;
   private readonly drops = new Map<string, DropState>();
+  private readonly live = new Map<string, AnalysisResult | null>();
+  private readonly listeners = new Map<string, Set<() => void>>();
   private nextId = 1;
 
   constructor() {
@@ -66,41 +75,90 @@ class AnalysisClient {
   dispose() {
     this.worker.terminate();
     for (const state of this.drops.values()) {
-      state.inFlight?.reject(new Superseded());
-      state.queued?.reject(new Superseded());
+      if (state.timer) clearTimeout(state.timer);
+      state.waiter?.reject(new Superseded());
     }
     this.drops.clear();
   }
 
-  analyse(dropId: string, imageUrl: string, options: AnalyseOptions): Promise<AnalysisResult> {
+  analyse(
+    dropId: string,
+    options: AnalyseOptions,
+    onProvisional?: (result: AnalysisResult) => void,
+  ): Promise<AnalysisResult> {
     const state = this.stateOf(dropId);
+    state.lastOptions = options;
     return new Promise<AnalysisResult>((resolve, reject) => {
-      state.queued?.reject(new Superseded());
-      state.queued = { options, resolve, reject };
-      if (!state.pixels && !state.inFlight && !state.decoding) {
-        state.decoding = decodePhoto(imageUrl).then(
-          (pixels) => {
-            state.decoding = null;
-            state.pixels = pixels.buffer;
-            state.size = { width: pixels.width, height: pixels.height };
-            this.pump(dropId);
-          },
-          (error: Error) => {
-            state.decoding = null;
-            state.queued?.reject(error);
-            state.queued = null;
-          },
-        );
-      } else {
-        this.pump(dropId);
-      }
+      state.waiter?.reject(new Superseded());
+      const key = JSON.stringify(options);
+      state.waiter = {
+        options,
+        key,
+        resolve,
+        reject,
+        onProvisional,
+        createdAt: performance.now(),
+        // A draft for exactly these options is already on its way (a preview of this drag step).
+        draftSent: state.lastDraftKey === key,
+        fullSent: false,
+      };
+      this.pump(dropId);
     });
+  }
+
+  /** A draft for the page's newest options with this baseline, straight from a drag. */
+  preview(dropId: string, baseline: Baseline) {
+    const state = this.drops.get(dropId);
+    if (!state?.lastOptions || !this.listeners.has(dropId)) return;
+    const options = { ...state.lastOptions, baseline };
+    state.preview = { options, key: JSON.stringify(options) };
+    this.pump(dropId);
+  }
+
+  /** Follows the newest result (draft or full) of a photo; returns the unsubscribe function. */
+  subscribe(dropId: string, listener: () => void): () => void {
+    let set = this.listeners.get(dropId);
+    if (!set) {
+      set = new Set();
+      this.listeners.set(dropId, set);
+    }
+    set.add(listener);
+    return () => {
+      set.delete(listener);
+      if (!set.size) this.listeners.delete(dropId);
+    };
+  }
+
+  liveResult(dropId: string): AnalysisResult | null {
+    return this.live.get(dropId) ?? null;
+  }
+
+  private publish(dropId: string, result: AnalysisResult | null) {
+    this.live.set(dropId, result);
+    for (const listener of this.listeners.get(dropId) ?? []) listener();
+  }
+
+  forget(dropId: string) {
+    const state = this.drops.get(dropId);
+    if (state?.timer) clearTimeout(state.timer);
+    state?.waiter?.reject(new Superseded());
+    this.drops.delete(dropId);
+    this.live.delete(dropId);
+    const message: WorkerRequest = { type: 'forget', dropId };
+    this.worker.postMessage(message);
   }
 
   private stateOf(dropId: string): DropState {
     let state = this.drops.get(dropId);
     if (!state) {
-      state = { size: null, pixels: null, decoding: null, inFlight: null, queued: null };
+      state = {
+        waiter: null,
+        preview: null,
+        inFlight: null,
+        lastOptions: null,
+        lastDraftKey: null,
+        timer: null,
+      };
       this.drops.set(dropId, state);
     }
     return state;
@@ -108,56 +166,177 @@ class AnalysisClient {
 
   private pump(dropId: string) {
     const state = this.stateOf(dropId);
-    if (state.inFlight || !state.queued || !state.pixels || !state.size) return;
-    const waiter = state.queued;
-    state.queued = null;
+    if (state.timer) {
+      clearTimeout(state.timer);
+      state.timer = null;
+    }
+    if (state.inFlight) return;
+    const waiter = state.waiter;
+    const preview = state.preview;
+    // A preview newer than the page's request goes first (for the same options, the page's own
+    // request stands for it).
+    if (preview) {
+      state.preview = null;
+      if (!waiter || waiter.key !== preview.key) {
+        this.send(dropId, null, preview.options, preview.key, 'draft');
+        return;
+      }
+    }
+    if (!waiter) return;
+    const drafts = Boolean(waiter.onProvisional) || this.listeners.has(dropId);
+    if (drafts && !waiter.draftSent) {
+      waiter.draftSent = true;
+      this.send(dropId, waiter, waiter.options, waiter.key, 'draft');
+      return;
+    }
+    if (waiter.fullSent) return;
+    const waited = performance.now() - waiter.createdAt;
+    if (!drafts || waited >= REST_MS) {
+      waiter.fullSent = true;
+      this.send(dropId, waiter, waiter.options, waiter.key, 'full');
+    } else {
+      state.timer = setTimeout(() => this.pump(dropId), REST_MS - waited);
+    }
+  }
+
+  private send(
+    dropId: string,
+    waiter: Waiter | null,
+    options: AnalyseOptions,
+    key: string,
+    quality: AnalyseQuality,
+  ) {
+    const state = this.stateOf(dropId);
     const requestId = this.nextId++;
-    state.inFlight = { ...waiter, requestId };
+    state.inFlight = { requestId, waiter, quality };
+    if (quality === 'draft') state.lastDraftKey = key;
     const request: AnalyseRequest = {
       type: 'analyse',
       requestId,
       dropId,
-      width: state.size.width,
-      height: state.size.height,
-      bitDepth: 8,
-      pixels: state.pixels,
-      options: waiter.options,
+      pixelsUrl: pixelsUrlOf(dropId),
+      options,
+      quality,
     };
-    state.pixels = null;
-    this.worker.postMessage(request, transferablesOf(request));
+    this.worker.postMessage(request);
   }
 
   private receive(message: AnalyseResponse) {
     if (message.type === 'ready') return;
     const state = this.drops.get(message.dropId);
     if (!state?.inFlight || state.inFlight.requestId !== message.requestId) return;
-    const waiter = state.inFlight;
+    const { waiter, quality } = state.inFlight;
     state.inFlight = null;
-    state.pixels = message.pixels;
-    if (message.type === 'result') waiter.resolve(message.result);
-    else if (message.type === 'superseded') waiter.reject(new Superseded());
-    else waiter.reject(new AnalysisFailed(message.error.code, message.error.message));
+    const result = message.type === 'result' ? unpackResult(message.packed) : null;
+    if (result) this.publish(message.dropId, result);
+    if (waiter && waiter === state.waiter) {
+      if (result) {
+        if (quality === 'draft') waiter.onProvisional?.(result);
+        else {
+          state.waiter = null;
+          waiter.resolve(result);
+        }
+      } else if (message.type === 'error') {
+        this.publish(message.dropId, null);
+        state.waiter = null;
+        waiter.reject(new AnalysisFailed(message.error.code, message.error.message));
+      } else if (quality === 'draft') waiter.draftSent = false;
+      else waiter.fullSent = false;
+    } else if (message.type === 'error' && !state.waiter) {
+      // A preview that cannot be analysed: show nothing rather than an older angle.
+      this.publish(message.dropId, null);
+    }
     this.pump(message.dropId);
   }
 }
 
-/** The analysis worker, started once per page and stopped when the page goes away. */
-export function useAnalysisWorker() {
-  const client = useRef<AnalysisClient | null>(null);
+// One client per page, shared by the workspace and the canvas; started with the first user and
+// stopped when the last goes away.
+let shared: AnalysisClient | null = null;
+let users = 0;
+
+function acquire(): AnalysisClient {
+  shared ??= new AnalysisClient();
+  users++;
+  return shared;
+}
+
+function release() {
+  users--;
+  if (users === 0 && shared) {
+    shared.dispose();
+    shared = null;
+  }
+}
+
+/** Keeps the shared client alive while the calling component is mounted; returns it once started. */
+function useSharedClient(): AnalysisClient | null {
   useEffect(() => {
-    const instance = new AnalysisClient();
-    client.current = instance;
+    acquire();
+    notifyClient();
     return () => {
-      instance.dispose();
-      client.current = null;
+      release();
+      notifyClient();
     };
   }, []);
+  return useSyncExternalStore(
+    subscribeToClient,
+    () => shared,
+    () => null,
+  );
+}
+
+const clientListeners = new Set<() => void>();
+function subscribeToClient(listener: () => void) {
+  clientListeners.add(listener);
+  return () => {
+    clientListeners.delete(listener);
+  };
+}
+function notifyClient() {
+  for (const listener of clientListeners) listener();
+}
+
+/** The analysis worker, started once per page and stopped when the page goes away. */
+export function useAnalysisWorker() {
+  useSharedClient();
+  // The client is read when called (it starts in an effect, after the first render).
   return useMemo(
     () => ({
-      analyse(dropId: string, imageUrl: string, options: AnalyseOptions): Promise<AnalysisResult> {
-        return client.current?.analyse(dropId, imageUrl, options) ?? Promise.reject(new Superseded());
+      /**
+       * The full analysis of a photo with these options; drafts go to `onProvisional` (and to
+       * `useLiveResult`) first. Rejects with Superseded when a newer request replaces it.
+       */
+      analyse(
+        dropId: string,
+        options: AnalyseOptions,
+        onProvisional?: (result: AnalysisResult) => void,
+      ): Promise<AnalysisResult> {
+        return shared?.analyse(dropId, options, onProvisional) ?? Promise.reject(new Superseded());
+      },
+      forget(dropId: string) {
+        shared?.forget(dropId);
       },
     }),
     [],
+  );
+}
+
+/** Asks for a draft of a photo with this baseline at once, during a drag (see `preview`). */
+export function previewBaseline(dropId: string | undefined, baseline: Baseline) {
+  if (dropId) shared?.preview(dropId, baseline);
+}
+
+/**
+ * The newest result of a photo as it arrives from the worker, drafts included (null before the
+ * first, after an error, or without a photo): what the canvas shows while a baseline is dragged,
+ * without waiting for the page's own state.
+ */
+export function useLiveResult(dropId: string | null | undefined): AnalysisResult | null {
+  const client = useSharedClient();
+  return useSyncExternalStore(
+    (listener) => (client && dropId ? client.subscribe(dropId, listener) : () => undefined),
+    () => (client && dropId ? client.liveResult(dropId) : null),
+    () => null,
   );
 }

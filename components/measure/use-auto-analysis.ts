@@ -27,7 +27,7 @@ export function useAutoAnalysis(scalePxPerMm: number | null) {
     async (photo: WorkspacePhoto, options: AnalyseOptions) => {
       setStatus(photo.id, 'analysing');
       try {
-        const result = await worker.analyse(photo.id, `/api/photos/${photo.id}/image`, options);
+        const result = await worker.analyse(photo.id, options);
         setResult(photo.id, result);
       } catch (error) {
         if (error instanceof Superseded) return;

@@ -28,6 +28,10 @@ export class BaselineFrame {
     const dy = y - this.oy;
     return [dx * this.eu[0] + dy * this.eu[1], dx * this.ev[0] + dy * this.ev[1]];
   }
+  /** The v (height above the baseline) of an image point. */
+  toFrameV(x: number, y: number): number {
+    return (x - this.ox) * this.ev[0] + (y - this.oy) * this.ev[1];
+  }
   toImage(u: number, v: number): Point {
     return [this.ox + u * this.eu[0] + v * this.ev[0], this.oy + u * this.eu[1] + v * this.ev[1]];
   }

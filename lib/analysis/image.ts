@@ -1,71 +1,96 @@
 import { AnalysisError, type GrayImage, type RegionOfInterest } from './types';
 
-/** Pixels as floats on the 0–255 scale (16-bit sources keep their extra precision). */
-export interface FloatImage {
+/**
+ * The analysed pixels: gray samples read on the 0–255 scale (`data[i] · scale`), so 16-bit sources
+ * keep their extra precision without a converted copy. 8-bit sources are used in place.
+ */
+export interface PixelImage {
   width: number;
   height: number;
-  data: Float32Array;
+  data: Uint8Array | Uint16Array;
+  /** Factor to the 0–255 scale: 1 for 8-bit, 255 / 65535 for 16-bit samples. */
+  scale: number;
 }
 
 export function validateImage(image: GrayImage): void {
   const { width, height, data } = image;
   if (!Number.isInteger(width) || !Number.isInteger(height) || width < 16 || height < 16) {
     throw new AnalysisError(
-      'bad-input',
+      'bad_input',
       `Image size ${width}×${height} is too small; use at least 320×240 pixels.`,
     );
   }
   if (data.length !== width * height) {
     throw new AnalysisError(
-      'bad-input',
+      'bad_input',
       `Pixel buffer holds ${data.length} samples but ${width}×${height} needs ${width * height}; pass one gray sample per pixel.`,
     );
   }
 }
 
-/** Crops to the region of interest and converts to floats (0–255). */
-export function toFloatImage(
+/** The region of interest as a PixelImage (no copy without a region), and its offset. */
+export function pixelImage(
   image: GrayImage,
   roi?: RegionOfInterest,
-): { image: FloatImage; offsetX: number; offsetY: number } {
-  const x0 = roi ? Math.max(0, Math.floor(roi.x)) : 0;
-  const y0 = roi ? Math.max(0, Math.floor(roi.y)) : 0;
-  const x1 = roi ? Math.min(image.width, Math.ceil(roi.x + roi.width)) : image.width;
-  const y1 = roi ? Math.min(image.height, Math.ceil(roi.y + roi.height)) : image.height;
+): { image: PixelImage; offsetX: number; offsetY: number } {
+  const source =
+    image.data instanceof Uint16Array
+      ? image.data
+      : new Uint8Array(image.data.buffer, image.data.byteOffset, image.data.length);
+  const scale = source instanceof Uint16Array ? 255 / 65535 : 1;
+  if (!roi) {
+    return {
+      image: { width: image.width, height: image.height, data: source, scale },
+      offsetX: 0,
+      offsetY: 0,
+    };
+  }
+  const x0 = Math.max(0, Math.floor(roi.x));
+  const y0 = Math.max(0, Math.floor(roi.y));
+  const x1 = Math.min(image.width, Math.ceil(roi.x + roi.width));
+  const y1 = Math.min(image.height, Math.ceil(roi.y + roi.height));
   const width = x1 - x0;
   const height = y1 - y0;
   if (width < 16 || height < 16)
     throw new AnalysisError(
-      'bad-input',
+      'bad_input',
       'The region of interest is too small or outside the image.',
     );
-  const scale = image.data instanceof Uint16Array ? 255 / 65535 : 1;
-  const out = new Float32Array(width * height);
+  const out =
+    source instanceof Uint16Array
+      ? new Uint16Array(width * height)
+      : new Uint8Array(width * height);
   for (let y = 0; y < height; y++) {
-    const srcRow = (y + y0) * image.width + x0;
-    const dstRow = y * width;
-    for (let x = 0; x < width; x++) out[dstRow + x] = image.data[srcRow + x] * scale;
+    const from = (y + y0) * image.width + x0;
+    out.set(source.subarray(from, from + width), y * width);
   }
-  return { image: { width, height, data: out }, offsetX: x0, offsetY: y0 };
+  return { image: { width, height, data: out, scale }, offsetX: x0, offsetY: y0 };
 }
 
-export function toUint8(image: FloatImage): Uint8Array {
+/** 8-bit samples for OpenCV: the pixels themselves when they are 8-bit, else rounded. */
+export function toUint8(image: PixelImage): Uint8Array {
+  if (image.data instanceof Uint8Array) return image.data;
   const out = new Uint8Array(image.data.length);
-  for (let i = 0; i < out.length; i++) out[i] = Math.round(image.data[i]);
+  const { data, scale } = image;
+  for (let i = 0; i < out.length; i++) out[i] = Math.round(data[i] * scale);
   return out;
 }
 
-/** Bilinear sample with edge clamping. */
-export function sampleBilinear(image: FloatImage, x: number, y: number): number {
+/** Bilinear sample (0–255 scale) with edge clamping. */
+export function sampleBilinear(image: PixelImage, x: number, y: number): number {
   const { width, height, data } = image;
-  const cx = Math.min(Math.max(x, 0), width - 1.000001);
-  const cy = Math.min(Math.max(y, 0), height - 1.000001);
-  const ix = Math.floor(cx);
-  const iy = Math.floor(cy);
+  const cx = x < 0 ? 0 : x > width - 1.000001 ? width - 1.000001 : x;
+  const cy = y < 0 ? 0 : y > height - 1.000001 ? height - 1.000001 : y;
+  const ix = cx | 0;
+  const iy = cy | 0;
   const fx = cx - ix;
   const fy = cy - iy;
   const i = iy * width + ix;
-  const top = data[i] + fx * (data[i + 1] - data[i]);
-  const bottom = data[i + width] + fx * (data[i + width + 1] - data[i + width]);
-  return top + fy * (bottom - top);
+  const a = data[i];
+  const b = data[i + 1];
+  const c = data[i + width];
+  const d = data[i + width + 1];
+  const top = a + fx * (b - a);
+  const bottom = c + fx * (d - c);
+  return (top + fy * (bottom - top)) * image.scale;
 }

@@ -56,6 +56,7 @@ export interface OpenCv {
   contourArea(contour: CvMat, oriented: boolean): number;
   CV_8UC1: number;
   BORDER_REPLICATE: number;
+  BORDER_DEFAULT: number;
   THRESH_BINARY_INV: number;
   THRESH_OTSU: number;
   RETR_EXTERNAL: number;

@@ -1,4 +1,4 @@
-import { sampleBilinear, type FloatImage } from './image';
+import { sampleBilinear, type PixelImage } from './image';
 
 export interface EdgeCrossing {
   /** Offset of the edge along the search direction from the start point (px). */
@@ -10,6 +10,9 @@ export interface EdgeCrossing {
 }
 
 const STEP = 0.5;
+// Scratch buffers reused by every call (the engine is single-threaded per worker or process).
+let samples = new Float64Array(64);
+let diffs = new Float64Array(64);
 
 /**
  * Sub-pixel edge position along a line: the gradient-weighted centroid of the intensity derivative
@@ -18,7 +21,7 @@ const STEP = 0.5;
  * derivative around the strongest step counts, so neighbouring edges and noise do not pull it.
  */
 export function edgeAlongNormal(
-  image: FloatImage,
+  image: PixelImage,
   px: number,
   py: number,
   nx: number,
@@ -26,7 +29,10 @@ export function edgeAlongNormal(
   halfWindow = 4,
 ): EdgeCrossing | null {
   const count = Math.round((2 * halfWindow) / STEP) + 1;
-  const samples = new Float64Array(count);
+  if (samples.length < count) {
+    samples = new Float64Array(count * 2);
+    diffs = new Float64Array(count * 2);
+  }
   const tx = -ny;
   const ty = nx;
   for (let k = 0; k < count; k++) {
@@ -41,11 +47,11 @@ export function edgeAlongNormal(
   }
   let best = -1;
   let bestValue = 0;
-  const diffs = new Float64Array(count - 1);
   for (let k = 0; k < count - 1; k++) {
-    diffs[k] = samples[k + 1] - samples[k];
-    if (diffs[k] > bestValue) {
-      bestValue = diffs[k];
+    const d = samples[k + 1] - samples[k];
+    diffs[k] = d;
+    if (d > bestValue) {
+      bestValue = d;
       best = k;
     }
   }

@@ -1,3 +1,5 @@
+import type { AnalysisSettings } from './settings';
+
 /**
  * Public types of the drop-analysis engine. Everything here is plain data so it can cross a
  * worker boundary (structured clone) unchanged.
@@ -49,23 +51,34 @@ export interface AnalyseOptions {
   roi?: RegionOfInterest;
   /** Camera scale; when given, volume and area are also reported in µL and mm². */
   scalePxPerMm?: number;
+  /** Tuning values; any not given take their documented defaults (lib/analysis/settings.ts). */
+  settings?: Partial<AnalysisSettings>;
+  /**
+   * A quick provisional result, e.g. while a baseline is dragged: Young–Laplace with fewer points
+   * and iterations, and no model check. The result says `provisional: true`.
+   */
+  draft?: boolean;
 }
 
 export type WarningCode =
-  | 'left-right-disagree'
-  | 'low-contrast'
-  | 'drop-cut-by-border'
-  | 'needle-in-contact'
-  | 'too-few-edge-points'
-  | 'baseline-not-found'
-  | 'fit-did-not-converge';
+  | 'left_right_disagree'
+  | 'low_contrast'
+  | 'drop_cut_by_border'
+  | 'needle_in_contact'
+  | 'too_few_edge_points'
+  | 'baseline_not_found'
+  | 'baseline_off_contact'
+  | 'fit_did_not_converge'
+  | 'model_bias'
+  | 'model_misfit'
+  | 'angle_uncertain';
 
 export interface AnalysisWarning {
   code: WarningCode;
   message: string;
 }
 
-export type AnalysisErrorCode = 'no-drop-found' | 'baseline-not-found' | 'fit-failed' | 'bad-input';
+export type AnalysisErrorCode = 'no_drop_found' | 'baseline_not_found' | 'fit_failed' | 'bad_input';
 
 /** Thrown by `analyseDrop` when no result can be produced at all. */
 export class AnalysisError extends Error {
@@ -78,6 +91,21 @@ export class AnalysisError extends Error {
 }
 
 export type Point = [number, number];
+
+export interface ModelCheckSummary {
+  /**
+   * Bond number of the Young–Laplace profile fitted to the same edge points (for Young–Laplace its
+   * own); poorly determined on flat drops (below about 30°). Null when that fit failed.
+   */
+  estimatedBond: number | null;
+  /** That profile's left and right angles. */
+  youngLaplaceDeg: { left: number; right: number } | null;
+  /**
+   * The method's reading of edge points generated from that profile (no noise, same spacing and
+   * margin) minus the profile's own angle: the bias of the method's model for this drop's shape.
+   */
+  modelBiasDeg: { left: number; right: number } | null;
+}
 
 export interface AnalysisResult {
   method: FitMethod;
@@ -101,6 +129,8 @@ export interface AnalysisResult {
   apexRadiusPx: number | null;
   /** Bond number β = Δρ g b² / γ (apex radius b), only for the Young–Laplace fit. */
   bond: number | null;
+  /** Whether the method's model holds for this drop (lib/analysis/model-check.ts). */
+  modelCheck: ModelCheckSummary;
   volumePx3: number | null;
   surfaceAreaPx2: number | null;
   volumeUl: number | null;
@@ -112,6 +142,10 @@ export interface AnalysisResult {
   /** The fitted profile (image pixels), left contact over the apex to the right contact; null for local fits. */
   profile: Point[] | null;
   warnings: AnalysisWarning[];
+  /** True for a quick draft (`AnalyseOptions.draft`), to be followed by the full result. */
+  provisional: boolean;
+  /** The complete settings used, so the result can be reproduced. */
+  settings: AnalysisSettings;
   /** Milliseconds from decoded pixels to result. */
   timeMs: number;
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { DEFAULT_SETTINGS, type AnalysisSettings } from '@/lib/analysis/settings';
 import { FIT_METHODS, type AnalysisResult, type FitMethod } from '@/lib/analysis/types';
 import { ANALYSIS_REVIEW_STATUSES } from './reviews';
 
@@ -49,6 +50,27 @@ export const fitMethodSchema = z.enum(FIT_METHOD_VALUES, {
   error: `Choose a method: ${FIT_METHODS.join(', ')}.`,
 });
 
+const settingNumber = z.number().finite('Analysis settings are numbers.');
+
+/**
+ * Analysis settings other than the defaults (lib/analysis/settings.ts), each optional: a number,
+ * or 'auto' where the default is 'auto'; an unknown name is refused. The declared type is the
+ * engine's own, which the shape below is built from.
+ */
+export const analysisSettingsSchema = z.strictObject(
+  Object.fromEntries(
+    Object.entries(DEFAULT_SETTINGS).map(([key, fallback]) => [
+      key,
+      (fallback === 'auto'
+        ? z.union([settingNumber, z.literal('auto')], {
+            error: `${key} is a number or "auto".`,
+          })
+        : settingNumber
+      ).optional(),
+    ]),
+  ),
+) as unknown as z.ZodType<Partial<AnalysisSettings>>;
+
 /** What the workspace sends to save a photo's analysis to a sample. */
 export const saveDropAnalysisSchema = z.object({
   sampleId: z.string().min(1, 'Choose the sample this drop was placed on.'),
@@ -63,6 +85,8 @@ export const saveDropAnalysisSchema = z.object({
     .max(100_000)
     .nullable()
     .optional(),
+  /** Stored with the result (`result.settings`, complete) so the analysis can be reproduced. */
+  settings: analysisSettingsSchema.optional(),
 });
 export type SaveDropAnalysisInput = z.infer<typeof saveDropAnalysisSchema>;
 
@@ -87,6 +111,8 @@ export type StoredAnalysisResult = KeptAnalysisResult | ManualAnalysisResult;
 export type StoredAnalysisOptions = {
   scalePxPerMm?: number | null;
   baselineSource?: 'automatic' | 'given';
+  /** The complete settings the engine used (the same as `result.settings`). */
+  settings?: AnalysisSettings;
 };
 
 /** 201 of POST: the drop, the new revision, and the result the server computed. */

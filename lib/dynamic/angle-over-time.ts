@@ -109,7 +109,7 @@ export function analyseAngleOverTime(
     };
   } else {
     warnings.push({
-      code: 'no-initial-angle',
+      code: 'no_initial_angle',
       message: `The initial angle needs at least ${degree + 2} analysed frames after the drop landed; ${first.length} were found.`,
     });
   }
@@ -144,7 +144,7 @@ export function analyseAngleOverTime(
     };
   } else {
     warnings.push({
-      code: 'empty-window',
+      code: 'empty_window',
       message: 'The rate window holds fewer than 3 analysed frames; widen it.',
     });
   }

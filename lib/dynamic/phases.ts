@@ -79,7 +79,7 @@ export function detectPhases(
   const needed = Math.max(5, o.minPhaseFrames);
   if (valid.length < needed) {
     warnings.push({
-      code: 'too-few-frames',
+      code: 'too_few_frames',
       message: `Only ${valid.length} frames have a drop; at least ${needed} are needed to tell pinned from moving.`,
     });
     return {
@@ -130,7 +130,7 @@ export function detectPhases(
     const change = (last - first) / first;
     if ((r.kind === 'advancing' && change < -0.01) || (r.kind === 'receding' && change > 0.01)) {
       warnings.push({
-        code: 'phase-volume-disagree',
+        code: 'phase_volume_disagree',
         message: `From ${valid[r.from].tSec.toFixed(2)} s to ${valid[r.to].tSec.toFixed(2)} s the base ${r.kind === 'advancing' ? 'grows' : 'shrinks'} while the volume ${change < 0 ? 'falls' : 'rises'} by ${Math.abs(100 * change).toFixed(1)} %; the drop may be sliding, spreading or evaporating rather than being grown or withdrawn.`,
       });
     }
@@ -155,7 +155,7 @@ export function detectPhases(
     if (to < from) from = to = (best.from + best.to) >> 1;
     if (to - from < 2)
       warnings.push({
-        code: 'short-phase',
+        code: 'short_phase',
         message: `The ${kind} phase (${best.to - best.from + 1} frames) leaves only ${to - from + 1} steady frame${to > from ? 's' : ''} once its edges are left out. Record more frames while the contact line moves.`,
       });
     return { fromSec: valid[from].tSec, toSec: valid[to].tSec };
@@ -278,7 +278,7 @@ export function summariseDynamic(
   const stats = (window: PhaseWindow | null, kind: 'advancing' | 'receding') => {
     if (!window) {
       warnings.push({
-        code: kind === 'advancing' ? 'no-advancing-phase' : 'no-receding-phase',
+        code: kind === 'advancing' ? 'no_advancing_phase' : 'no_receding_phase',
         message:
           kind === 'advancing'
             ? 'No frames where the contact line moves outward were found; grow the drop until its base spreads, or choose the window by hand.'
@@ -289,7 +289,7 @@ export function summariseDynamic(
     const s = windowStats(frames, window);
     if (!s)
       warnings.push({
-        code: 'empty-window',
+        code: 'empty_window',
         message: `The ${kind} window ${window.fromSec.toFixed(2)}–${window.toSec.toFixed(2)} s holds no analysed frame.`,
       });
     return s;
@@ -313,16 +313,16 @@ export function frameWarnings(frames: readonly SeriesFrame[]): SeriesWarning[] {
   const failed = frames.filter((f) => f.meanDeg === null).map((f) => f.index);
   if (failed.length)
     warnings.push({
-      code: 'frames-failed',
+      code: 'frames_failed',
       message: `${failed.length} of ${frames.length} frames could not be analysed (frames ${listIndices(failed)}); they are left out of every mean. Each says why in its warnings.`,
     });
   // The needle is in the drop on purpose in the needle-in method, so that alone is no reason to look.
   const flagged = frames
-    .filter((f) => f.meanDeg !== null && f.warnings.some((w) => w.code !== 'needle-in-contact'))
+    .filter((f) => f.meanDeg !== null && f.warnings.some((w) => w.code !== 'needle_in_contact'))
     .map((f) => f.index);
   if (flagged.length)
     warnings.push({
-      code: 'frames-flagged',
+      code: 'frames_flagged',
       message: `${flagged.length} analysed frames carry warnings (frames ${listIndices(flagged)}); check them.`,
     });
   return warnings;

@@ -105,7 +105,7 @@ export function analyseTiltingPlate(
     downhillSide = slope >= 0 ? 'right' : 'left';
     if (!(Math.abs(slope) > 0))
       warnings.push({
-        code: 'downhill-side-unclear',
+        code: 'downhill_side_unclear',
         message:
           'The angles do not show which side is downhill; the right side was assumed. Say which side is downhill.',
       });
@@ -156,7 +156,7 @@ export function analyseTiltingPlate(
       : Math.max(downhillOnsetDeg, uphillOnsetDeg);
   if (rollOffTiltDeg === null)
     warnings.push({
-      code: 'no-roll-off',
+      code: 'no_roll_off',
       message: `The contact line did not move as a whole up to ${Math.max(...tiltsDeg).toFixed(1)}° of tilt; tilt further or use a larger drop.`,
     });
 

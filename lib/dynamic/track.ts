@@ -117,7 +117,7 @@ export function baselineStillFits(
 
 /** The analysis result touches the region's border where the image goes on: the region was too small. */
 function cutByRegion(result: AnalysisResult, roi: RegionOfInterest, image: GrayImage): boolean {
-  if (!result.warnings.some((w) => w.code === 'drop-cut-by-border')) {
+  if (!result.warnings.some((w) => w.code === 'drop_cut_by_border')) {
     const xs = [result.contactLeft[0], result.contactRight[0]];
     const inner = 3;
     return xs.some(
@@ -134,7 +134,7 @@ function cutByRegion(result: AnalysisResult, roi: RegionOfInterest, image: GrayI
 function failure(error: unknown): FrameWarning {
   if (error instanceof AnalysisError) return { code: error.code, message: error.message };
   return {
-    code: 'analysis-failed',
+    code: 'analysis_failed',
     message: `The frame could not be analysed: ${error instanceof Error ? error.message : String(error)}`,
   };
 }

@@ -21,10 +21,10 @@ export interface SeriesInputFrame {
 }
 
 /**
- * Why a frame needs a look: the engine's warnings and error codes, plus `analysis-failed` for
+ * Why a frame needs a look: the engine's warnings and error codes, plus `analysis_failed` for
  * anything else that stopped a frame. A failed frame keeps its place with null values.
  */
-export type FrameWarningCode = WarningCode | AnalysisErrorCode | 'analysis-failed';
+export type FrameWarningCode = WarningCode | AnalysisErrorCode | 'analysis_failed';
 
 export interface FrameWarning {
   code: FrameWarningCode;
@@ -94,17 +94,17 @@ export interface AngleWindowStats {
 }
 
 export type SeriesWarningCode =
-  | 'frames-failed'
-  | 'frames-flagged'
-  | 'too-few-frames'
-  | 'no-advancing-phase'
-  | 'no-receding-phase'
-  | 'short-phase'
-  | 'phase-volume-disagree'
-  | 'empty-window'
-  | 'no-roll-off'
-  | 'downhill-side-unclear'
-  | 'no-initial-angle';
+  | 'frames_failed'
+  | 'frames_flagged'
+  | 'too_few_frames'
+  | 'no_advancing_phase'
+  | 'no_receding_phase'
+  | 'short_phase'
+  | 'phase_volume_disagree'
+  | 'empty_window'
+  | 'no_roll_off'
+  | 'downhill_side_unclear'
+  | 'no_initial_angle';
 
 export interface SeriesWarning {
   code: SeriesWarningCode;

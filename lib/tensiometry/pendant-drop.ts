@@ -1,5 +1,5 @@
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
-import { integrateYoungLaplace, type YoungLaplaceProfile } from '../analysis/young-laplace';
+import { integrateYoungLaplace, type YoungLaplaceProfile } from '../analysis/young-laplace-profile';
 import { STANDARD_GRAVITY } from './wilhelmy';
 import { TensiometryInputError, requirePositive } from './errors';
 

@@ -73,6 +73,7 @@ export async function saveDropAnalysis(
       method: input.method,
       ...(input.baseline ? { baseline: input.baseline } : {}),
       ...(input.scalePxPerMm ? { scalePxPerMm: input.scalePxPerMm } : {}),
+      ...(input.settings ? { settings: input.settings } : {}),
     });
   } catch (error) {
     if (error instanceof AnalysisError) {
@@ -135,7 +136,11 @@ export async function saveDropAnalysis(
         revision,
         method: input.method,
         baseline: input.baseline,
-        options: { scalePxPerMm: input.scalePxPerMm ?? null, baselineSource: result.baselineSource },
+        options: {
+          scalePxPerMm: input.scalePxPerMm ?? null,
+          baselineSource: result.baselineSource,
+          settings: result.settings,
+        },
         result,
         createdByUserId: actor.userId,
       }),

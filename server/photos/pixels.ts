@@ -1,9 +1,14 @@
 import 'server-only';
+import { promisify } from 'node:util';
+import { gzip } from 'node:zlib';
 import { getPhotoSource, getPhotoThumbnail } from '@/db/queries/photos';
+import { encodeGrayPixels } from '@/lib/analysis/gray-pixels';
 import { decodeImageBytes } from '@/lib/analysis/node/decode';
 import type { GrayImage } from '@/lib/analysis/types';
 import { notFound } from '@/lib/app-error';
 import { fetchStoredFile } from '@/lib/uploads/file-router';
+
+const gzipAsync = promisify(gzip);
 
 /** The bytes a browser can decode: the kept PNG when there is one, else the stored original. */
 export async function loadPhotoBytes(
@@ -31,4 +36,12 @@ export async function loadPhotoThumbnail(organizationId: string, photoId: string
   const thumbnail = await getPhotoThumbnail(organizationId, photoId);
   if (!thumbnail) throw notFound('That photo');
   return thumbnail.thumbnailPng;
+}
+
+/**
+ * The same gray pixels for the browser's analysis worker (lib/analysis/gray-pixels.ts layout),
+ * gzip-compressed: the worker analyses exactly what the server analyses when a result is saved.
+ */
+export async function loadPhotoGrayPixels(organizationId: string, photoId: string): Promise<Uint8Array> {
+  return gzipAsync(encodeGrayPixels(await loadPhotoGray(organizationId, photoId)), { level: 3 });
 }

@@ -1,5 +1,5 @@
 import sharp from 'sharp';
-import { integrateYoungLaplace } from '@/lib/analysis/young-laplace';
+import { integrateYoungLaplace } from '@/lib/analysis/young-laplace-profile';
 
 /** Standard gravity, m/s² (CGPM 1901), as lib/tensiometry uses by default. */
 const G = 9.80665;

@@ -10,8 +10,7 @@
  * nearest visible edge point on that side, R the previous radius). On an exact spherical cap every
  * window gives the same circle. Height, volume and area come from the whole-profile cap.
  */
-import { linearLeastSquares } from './least-squares';
-import { levenbergMarquardt } from 'ml-levenberg-marquardt';
+import { levenbergMarquardt, linearLeastSquares } from './least-squares';
 import {
   DEG,
   type ContactAngles,
@@ -19,7 +18,10 @@ import {
   type FramePoints,
   type ProfileFit,
   type ProfileFitter,
+  subsetOf,
 } from './types';
+import { TwoSidedFit } from './two-sided';
+import { DEFAULT_SETTINGS, type AnalysisSettings } from '../settings';
 
 export interface Circle {
   cu: number;
@@ -38,16 +40,18 @@ export function kasaCircle(u: ArrayLike<number>, v: ArrayLike<number>): Circle {
   }
   mu /= n;
   mv /= n;
-  // Centred coordinates keep the normal equations well conditioned.
-  const design: number[][] = [];
+  // Centred coordinates keep the problem well conditioned.
+  const design = new Float64Array(3 * n);
   const rhs = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const x = u[i] - mu;
     const y = v[i] - mv;
-    design.push([x, y, 1]);
+    design[3 * i] = x;
+    design[3 * i + 1] = y;
+    design[3 * i + 2] = 1;
     rhs[i] = -(x * x + y * y);
   }
-  const [d, e, f] = linearLeastSquares(design, rhs).coefficients;
+  const [d, e, f] = linearLeastSquares(design, rhs, 3).coefficients;
   const cu = -d / 2;
   const cv = -e / 2;
   return { cu: cu + mu, cv: cv + mv, r: Math.sqrt(Math.max(cu * cu + cv * cv - f, 0)) };
@@ -60,36 +64,35 @@ export function refineCircle(
   start: Circle,
 ): { circle: Circle; iterations: number } {
   const n = u.length;
-  const index = Float64Array.from({ length: n }, (_, i) => i);
-  const zeros = new Float64Array(n);
   const result = levenbergMarquardt(
-    { x: index, y: zeros },
-    ([cu, cv, r]) =>
-      (i) =>
-        Math.hypot(u[i] - cu, v[i] - cv) - r,
-    {
-      initialValues: [start.cu, start.cv, start.r],
-      // Started from the algebraic fit, a few Gauss–Newton-like steps converge; the library has no
-      // step-size stop, so the count is kept small.
-      maxIterations: 6,
-      damping: 1e-6,
-      errorTolerance: 1e-12,
-      jacobianFunction:
-        ([cu, cv]) =>
-        (i) => {
-          const d = Math.hypot(u[i] - cu, v[i] - cv) || 1e-12;
-          return [-(u[i] - cu) / d, -(v[i] - cv) / d, -1];
-        },
+    n,
+    [start.cu, start.cv, start.r],
+    (p, r, jac) => {
+      const cu = p[0];
+      const cv = p[1];
+      const radius = p[2];
+      for (let i = 0; i < n; i++) {
+        const du = u[i] - cu;
+        const dv = v[i] - cv;
+        const d = Math.sqrt(du * du + dv * dv) || 1e-12;
+        r[i] = d - radius;
+        jac[3 * i] = -du / d;
+        jac[3 * i + 1] = -dv / d;
+        jac[3 * i + 2] = -1;
+      }
     },
+    { maxIterations: 50, stepTolerance: 1e-7 * Math.max(start.r, 1) },
   );
-  const [cu, cv, r] = result.parameterValues;
+  const [cu, cv, r] = result.parameters;
   return { circle: { cu, cv, r }, iterations: result.iterations };
 }
 
-export function circleAngles(c: Circle): ContactAngles {
-  const ratio = Math.max(-1, Math.min(1, -c.cv / c.r));
+/** Angles where the circle meets the baseline (or the parallel line `baselineV` above it). */
+export function circleAngles(c: Circle, baselineV = 0): ContactAngles {
+  const cv = c.cv - baselineV;
+  const ratio = Math.max(-1, Math.min(1, -cv / c.r));
   const theta = Math.acos(ratio) * DEG;
-  const half = Math.sqrt(Math.max(c.r * c.r - c.cv * c.cv, 0));
+  const half = Math.sqrt(Math.max(c.r * c.r - cv * cv, 0));
   return { leftDeg: theta, rightDeg: theta, leftU: c.cu - half, rightU: c.cu + half };
 }
 
@@ -115,7 +118,7 @@ class CircleFit implements ProfileFit {
     private readonly points: FramePoints,
     circle: Circle,
     /** The cap through the whole profile, for height, volume and area. */
-    private readonly whole: Circle = circle,
+    readonly wholeCircle: Circle = circle,
   ) {
     this.parameters = [circle.cu, circle.cv, circle.r];
     this.parameterSteps = [1e-4 * circle.r, 1e-4 * circle.r, 1e-4 * circle.r];
@@ -127,11 +130,23 @@ class CircleFit implements ProfileFit {
     for (let i = 0; i < u.length; i++) out[i] = Math.hypot(u[i] - p[0], v[i] - p[1]) - p[2];
     return out;
   }
-  angles(p: readonly number[] = this.parameters): ContactAngles {
-    return circleAngles({ cu: p[0], cv: p[1], r: p[2] });
+  angles(p: readonly number[] = this.parameters, baselineV = 0): ContactAngles {
+    return circleAngles({ cu: p[0], cv: p[1], r: p[2] }, baselineV);
   }
   shape(): DropShape {
-    return capShape(this.whole);
+    return capShape(this.wholeCircle);
+  }
+  curve(samples = 160): Array<[number, number]> | null {
+    const [cu, cv, r] = this.parameters;
+    if (!(r > 0)) return null;
+    // Angles (from the centre) where the circle is above the baseline v = 0.
+    const limit = Math.abs(cv) >= r ? Math.PI : Math.acos(Math.max(-1, Math.min(1, -cv / r)));
+    const curve: Array<[number, number]> = [];
+    for (let i = 0; i <= samples; i++) {
+      const a = Math.PI / 2 + limit - (2 * limit * i) / samples;
+      curve.push([cu + r * Math.cos(a), Math.max(0, cv + r * Math.sin(a))]);
+    }
+    return curve;
   }
 }
 
@@ -141,13 +156,14 @@ export function fitWholeCircle(points: FramePoints): Circle {
   return refineCircle(points.u, points.v, start).circle;
 }
 
-/** Share of the radius, beyond the nearest visible point, that the contact-line window reaches. */
-export const CONTACT_WINDOW = 0.2;
 /** Fewest points per side in a contact-line window; with fewer the whole profile is used. */
 const MIN_WINDOW_POINTS = 12;
 
-/** The points within d₀ + CONTACT_WINDOW · R of each contact point of `circle`, or null if too few. */
-function contactWindow(points: FramePoints, circle: Circle): FramePoints | null {
+/**
+ * The points within d₀ + w · R of each contact point of `circle` (w = `circleContactWindow`), or
+ * null if too few.
+ */
+function contactWindow(points: FramePoints, circle: Circle, window: number): FramePoints | null {
   const { leftU, rightU } = circleAngles(circle);
   if (!Number.isFinite(leftU) || !Number.isFinite(rightU)) return null;
   const n = points.u.length;
@@ -162,7 +178,7 @@ function contactWindow(points: FramePoints, circle: Circle): FramePoints | null 
   const counts = [0, 0];
   for (let i = 0; i < n; i++) {
     const k = points.side[i] < 0 ? 0 : 1;
-    if (distance[i] <= nearest[k] + CONTACT_WINDOW * circle.r) {
+    if (distance[i] <= nearest[k] + window * circle.r) {
       keep.push(i);
       counts[k]++;
     }
@@ -181,12 +197,16 @@ export function fitCircleToAll(points: FramePoints): ProfileFit {
   return new CircleFit(points, fitWholeCircle(points));
 }
 
-export function fitCircle(points: FramePoints): ProfileFit {
+/** The contact-line cap of both sides together (one circle). */
+export function fitJointCircle(
+  points: FramePoints,
+  settings: AnalysisSettings = DEFAULT_SETTINGS,
+): ProfileFit {
   const whole = fitWholeCircle(points);
   let circle = whole;
   let fitted = points;
   for (let pass = 0; pass < 2; pass++) {
-    const window = contactWindow(points, circle);
+    const window = contactWindow(points, circle, settings.circleContactWindow);
     if (!window) break;
     // Started from the previous cap, which is already close: no algebraic start needed.
     const next = refineCircle(window.u, window.v, circle).circle;
@@ -197,4 +217,30 @@ export function fitCircle(points: FramePoints): ProfileFit {
   return new CircleFit(fitted, circle, whole);
 }
 
-export const circleFitter: ProfileFitter = { method: 'circle', fit: (points) => fitCircle(points) };
+/**
+ * Each side's own contact-line cap: the joint cap's window on that side, refitted alone (started
+ * from the joint cap).
+ */
+export function fitCircle(
+  points: FramePoints,
+  settings: AnalysisSettings = DEFAULT_SETTINGS,
+): ProfileFit {
+  const joint = fitJointCircle(points, settings);
+  const [cu, cv, r] = joint.parameters;
+  const circle = { cu, cv, r };
+  const whole = (joint as CircleFit).wholeCircle;
+  const window = contactWindow(points, circle, settings.circleContactWindow) ?? points;
+  const sideFit = (side: -1 | 1): ProfileFit => {
+    const keep: number[] = [];
+    for (let i = 0; i < window.u.length; i++) if (window.side[i] === side) keep.push(i);
+    const own = subsetOf(window, keep);
+    const fitted = refineCircle(own.u, own.v, circle).circle;
+    return new CircleFit(own, Number.isFinite(fitted.r) && fitted.r > 0 ? fitted : circle, whole);
+  };
+  return new TwoSidedFit(sideFit(-1), sideFit(1), joint, cu);
+}
+
+export const circleFitter: ProfileFitter = {
+  method: 'circle',
+  fit: (points, options) => fitCircle(points, options?.settings),
+};

@@ -93,9 +93,9 @@ class EllipseFit implements ProfileFit {
     }
     return out;
   }
-  angles(p: readonly number[] = this.parameters): ContactAngles {
+  angles(p: readonly number[] = this.parameters, baselineV = 0): ContactAngles {
     const [A, B, C, D, E] = p;
-    const y0 = -this.mv / this.scale; // the baseline v = 0 in normalised coordinates
+    const y0 = (baselineV - this.mv) / this.scale; // the baseline in normalised coordinates
     const qa = A;
     const qb = B * y0 + D;
     const qc = C * y0 * y0 + E * y0 + this.f;

@@ -6,7 +6,8 @@
  * top fifth of the profile, so it also works when a needle hides the apex. Its standard error
  * covers the height only.
  */
-import { fitCircle, fitCircleToAll, capShape } from './circle';
+import { fitJointCircle, fitCircleToAll, capShape } from './circle';
+import { DEFAULT_SETTINGS, type AnalysisSettings } from '../settings';
 import { fitPolynomial } from './polynomial';
 import {
   DEG,
@@ -23,22 +24,34 @@ class HeightWidthFit implements ProfileFit {
   readonly parameters: readonly number[];
   readonly parameterSteps: readonly number[];
   readonly converged = true;
+  private readonly leftU: number;
+  private readonly rightU: number;
   constructor(
     private readonly apex: ProfileFit,
-    private readonly leftU: number,
-    private readonly rightU: number,
+    /** The fit whose contact points give the base (polynomial tangent or contact-line cap). */
+    private readonly contacts: ProfileFit,
   ) {
     this.parameters = apex.parameters;
     this.parameterSteps = apex.parameterSteps;
+    ({ leftU: this.leftU, rightU: this.rightU } = contacts.angles());
   }
   residuals(p: readonly number[] = this.parameters): Float64Array {
     return this.apex.residuals(p);
   }
-  angles(p: readonly number[] = this.parameters): ContactAngles {
-    const height = p[1] + p[2];
-    const half = (this.rightU - this.leftU) / 2;
-    const theta = 2 * Math.atan2(height, half) * DEG;
-    return { leftDeg: theta, rightDeg: theta, leftU: this.leftU, rightU: this.rightU };
+  angles(p: readonly number[] = this.parameters, baselineV = 0): ContactAngles {
+    const { leftU, rightU } =
+      baselineV === 0
+        ? { leftU: this.leftU, rightU: this.rightU }
+        : this.contacts.angles(undefined, baselineV);
+    // Each side from its own half-base: the apex (centre of the apex cap) to that contact point.
+    const height = p[1] + p[2] - baselineV;
+    const apexU = p[0];
+    return {
+      leftDeg: 2 * Math.atan2(height, apexU - leftU) * DEG,
+      rightDeg: 2 * Math.atan2(height, rightU - apexU) * DEG,
+      leftU,
+      rightU,
+    };
   }
   shape(): DropShape {
     const height = this.parameters[1] + this.parameters[2];
@@ -49,15 +62,19 @@ class HeightWidthFit implements ProfileFit {
   }
 }
 
-export function fitHeightWidth(points: FramePoints): ProfileFit {
+export function fitHeightWidth(
+  points: FramePoints,
+  settings: AnalysisSettings = DEFAULT_SETTINGS,
+): ProfileFit {
   // The base from where the profile itself meets the baseline (the polynomial tangent's contact
   // points), not from a model of the whole drop.
-  let contacts = fitPolynomial(points).angles();
+  let contacts = fitPolynomial(points, undefined, settings);
   // Where the polynomial's extrapolated tangent passes the horizontal (near 180°) its contact point
   // is unreliable; the contact-line cap gives the base there instead.
   const saturated = (deg: number) => !Number.isFinite(deg) || deg >= 179.5 || deg <= 0.5;
-  if (saturated(contacts.leftDeg) || saturated(contacts.rightDeg))
-    contacts = fitCircle(points).angles();
+  const found = contacts.angles();
+  if (saturated(found.leftDeg) || saturated(found.rightDeg))
+    contacts = fitJointCircle(points, settings);
   let maxV = 0;
   for (let i = 0; i < points.v.length; i++) maxV = Math.max(maxV, points.v[i]);
   const keep: number[] = [];
@@ -69,10 +86,10 @@ export function fitHeightWidth(points: FramePoints): ProfileFit {
     axisU: points.axisU,
   };
   const apex = keep.length >= 8 ? fitCircleToAll(top) : fitCircleToAll(points);
-  return new HeightWidthFit(apex, contacts.leftU, contacts.rightU);
+  return new HeightWidthFit(apex, contacts);
 }
 
 export const heightWidthFitter: ProfileFitter = {
   method: 'height-width',
-  fit: (points) => fitHeightWidth(points),
+  fit: (points, options) => fitHeightWidth(points, options?.settings),
 };

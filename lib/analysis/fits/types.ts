@@ -1,3 +1,4 @@
+import type { AnalysisSettings } from '../settings';
 import type { FitMethod } from '../types';
 
 /**
@@ -41,15 +42,43 @@ export interface ProfileFit {
   readonly converged: boolean;
   /** Signed distances (px) of the fitted points from the model with these (default: fitted) parameters. */
   residuals(parameters?: readonly number[]): Float64Array;
-  /** Contact angles and contact points for these (default: fitted) parameters. */
-  angles(parameters?: readonly number[]): ContactAngles;
+  /**
+   * Contact angles and contact points for these (default: fitted) parameters, where the model
+   * meets the baseline, or with `baselineV` the line parallel to it that far above (for the
+   * ±1 px baseline sensitivity without a re-fit).
+   */
+  angles(parameters?: readonly number[], baselineV?: number): ContactAngles;
   shape(): DropShape;
+  /**
+   * The fitted profile as a polyline in the baseline frame, from the left contact over the apex to
+   * the right contact, for drawing; absent for local fits that describe no whole drop.
+   */
+  curve?(samples?: number): Array<[number, number]> | null;
+  /**
+   * Fits that measure each side on its own carry the symmetric fit of the whole profile, which is
+   * reported instead when the two sides agree within noise (`chooseSides`).
+   */
+  readonly whole?: ProfileFit;
+}
+
+export interface FitOptions {
+  /** A fit of the same drop (e.g. with a narrower margin) that may seed iterative fits. */
+  previous?: ProfileFit;
+  /**
+   * Fit these points exactly the way this fit of the photo was made (same window lengths, degree,
+   * side choices), for the model check on points generated from the Young–Laplace profile.
+   */
+  sameAs?: ProfileFit;
+  /** Young–Laplace only: fewer points and iterations (the reference for other methods' checks). */
+  quick?: boolean;
+  /** Young–Laplace only: the symmetric model alone (no asymmetric fits). */
+  symmetricOnly?: boolean;
+  settings?: AnalysisSettings;
 }
 
 export interface ProfileFitter {
   readonly method: FitMethod;
-  /** `previous` (e.g. a fit of the same drop with a shifted baseline) may seed iterative fits. */
-  fit(points: FramePoints, previous?: ProfileFit): ProfileFit;
+  fit(points: FramePoints, options?: FitOptions): ProfileFit;
 }
 
 export const DEG = 180 / Math.PI;
@@ -65,3 +94,19 @@ export function angleFromTangent(tu: number, tv: number, side: -1 | 1): number {
   const [au, av] = tv < 0 ? [-tu, -tv] : [tu, tv];
   return Math.atan2(av, side === -1 ? au : -au) * DEG;
 }
+
+/** The points at these indices (in order), as FramePoints. */
+export function subsetOf(points: FramePoints, indices: ArrayLike<number>): FramePoints {
+  const n = indices.length;
+  const u = new Float64Array(n);
+  const v = new Float64Array(n);
+  const side = new Int8Array(n);
+  for (let k = 0; k < n; k++) {
+    const i = indices[k];
+    u[k] = points.u[i];
+    v[k] = points.v[i];
+    side[k] = points.side[i];
+  }
+  return { u, v, side, axisU: points.axisU };
+}
+

@@ -9,7 +9,7 @@ import sharp from 'sharp';
 import type { GrayImage } from '../types';
 
 export class DecodeError extends Error {
-  readonly code = 'unreadable-image' as const;
+  readonly code = 'unreadable_image' as const;
 }
 
 export async function decodeImageFile(path: string): Promise<GrayImage> {

@@ -10,7 +10,7 @@ import { spawn, execFile } from 'node:child_process';
 import type { GrayImage } from '../../analysis/types';
 import type { SeriesInputFrame } from '../types';
 
-export type VideoErrorCode = 'ffmpeg-missing' | 'unreadable-video';
+export type VideoErrorCode = 'ffmpeg_missing' | 'unreadable_video';
 
 export class VideoError extends Error {
   constructor(
@@ -65,11 +65,11 @@ export function probeVideo(path: string): Promise<VideoInfo> {
   return new Promise((resolve, reject) => {
     execFile(ffprobePath(), args, { maxBuffer: 1 << 20 }, (error, stdout, stderr) => {
       if (error && (error as NodeJS.ErrnoException).code === 'ENOENT')
-        return reject(new VideoError('ffmpeg-missing', MISSING));
+        return reject(new VideoError('ffmpeg_missing', MISSING));
       if (error)
         return reject(
           new VideoError(
-            'unreadable-video',
+            'unreadable_video',
             `Not a readable video (${lastLine(stderr) || error.message}). Give an MP4, WebM or AVI file, or frame images with --fps.`,
           ),
         );
@@ -81,7 +81,7 @@ export function probeVideo(path: string): Promise<VideoInfo> {
         stream = undefined;
       }
       if (!stream || !stream.width || !stream.height)
-        return reject(new VideoError('unreadable-video', `${path} holds no video stream.`));
+        return reject(new VideoError('unreadable_video', `${path} holds no video stream.`));
       const pixelFormat = String(stream.pix_fmt ?? '');
       const bits = Number(stream.bits_per_raw_sample) || 0;
       const deep =
@@ -127,7 +127,7 @@ export async function* decodeVideoFrames(
   const fps = options.fps ?? info.fps;
   if (!fps)
     throw new VideoError(
-      'unreadable-video',
+      'unreadable_video',
       `${path} does not state its frame rate; give it with --fps.`,
     );
   const { width, height } = info;
@@ -196,15 +196,15 @@ export async function* decodeVideoFrames(
       code = await exited;
     } catch (error) {
       if ((error as NodeJS.ErrnoException).code === 'ENOENT')
-        throw new VideoError('ffmpeg-missing', MISSING);
+        throw new VideoError('ffmpeg_missing', MISSING);
       throw error;
     }
     if (code !== 0)
       throw new VideoError(
-        'unreadable-video',
+        'unreadable_video',
         `ffmpeg could not decode ${path} (${lastLine(stderr) || `exit status ${code}`}).`,
       );
-    if (index === 0) throw new VideoError('unreadable-video', `${path} holds no decodable frame.`);
+    if (index === 0) throw new VideoError('unreadable_video', `${path} holds no decodable frame.`);
     finished = true;
   } finally {
     if (!finished && child.exitCode === null) child.kill('SIGKILL');

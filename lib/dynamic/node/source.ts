@@ -9,7 +9,7 @@ import type { SeriesInputFrame } from '../types';
 import { decodeVideoFrames, probeVideo } from './ffmpeg';
 
 export type SeriesInputErrorCode =
-  'no-input' | 'missing-fps' | 'bad-fps' | 'mixed-input' | 'unreadable-file';
+  'no-input' | 'missing_fps' | 'bad-fps' | 'mixed-input' | 'unreadable_file';
 
 export class SeriesInputError extends Error {
   constructor(
@@ -42,7 +42,7 @@ export async function isStillImage(path: string): Promise<boolean> {
     }
   } catch (error) {
     throw new SeriesInputError(
-      'unreadable-file',
+      'unreadable_file',
       `Cannot read ${path}: ${(error as Error).message}`,
     );
   }
@@ -73,7 +73,7 @@ export async function openSeries(files: readonly string[], fps?: number): Promis
   if (stills.every(Boolean)) {
     if (fps === undefined)
       throw new SeriesInputError(
-        'missing-fps',
+        'missing_fps',
         'Frame images carry no time; give their frame rate with --fps (frames per second).',
       );
     return { kind: 'images', frames: imageFrames(files, fps), total: files.length, fps };
@@ -87,7 +87,7 @@ export async function openSeries(files: readonly string[], fps?: number): Promis
   const rate = fps ?? info.fps;
   if (!rate)
     throw new SeriesInputError(
-      'missing-fps',
+      'missing_fps',
       `${files[0]} does not state its frame rate; give it with --fps.`,
     );
   return {

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { photoBadge } from '@/components/measure/photo-strip';
 import { ResultsPanel } from '@/components/measure/results-panel';
 import type { WorkspacePhoto } from '@/components/measure/store';
+import { DEFAULT_SETTINGS } from '@/lib/analysis/settings';
 import type { AnalysisResult } from '@/lib/analysis/types';
 
 /** A drop analysed with a circle fit; the figures only need to be recognisable on screen. */
@@ -34,6 +35,9 @@ const result = (overrides: Partial<AnalysisResult> = {}): AnalysisResult => ({
   edgePoints: { left: [], right: [] },
   profile: null,
   warnings: [],
+  modelCheck: { estimatedBond: null, youngLaplaceDeg: null, modelBiasDeg: null },
+  provisional: false,
+  settings: DEFAULT_SETTINGS,
   timeMs: 40,
   ...overrides,
 });
@@ -57,8 +61,8 @@ describe('measure results panel', () => {
       <ResultsPanel
         result={result({
           warnings: [
-            { code: 'left-right-disagree', message: 'Left and right differ by 3.2°.' },
-            { code: 'needle-in-contact', message: 'The needle still touches the drop.' },
+            { code: 'left_right_disagree', message: 'Left and right differ by 3.2°.' },
+            { code: 'needle_in_contact', message: 'The needle still touches the drop.' },
           ],
         })}
         status="ready"
@@ -71,7 +75,7 @@ describe('measure results panel', () => {
       'Left and right differ by 3.2°.',
       'The needle still touches the drop.',
     ]);
-    expect(items[1].getAttribute('data-code')).toBe('needle-in-contact');
+    expect(items[1].getAttribute('data-code')).toBe('needle_in_contact');
     expect(screen.queryByText('No quality warnings.')).toBeNull();
   });
 
@@ -101,7 +105,7 @@ describe('photo badge', () => {
     expect(photoBadge(photo({ status: 'failed', result: null })).label).toBe('No result');
     expect(
       photoBadge(
-        photo({ result: result({ warnings: [{ code: 'low-contrast', message: 'Low.' }] }) }),
+        photo({ result: result({ warnings: [{ code: 'low_contrast', message: 'Low.' }] }) }),
       ).label,
     ).toBe('Check');
     expect(photoBadge(photo({})).label).toBe('Analysed');

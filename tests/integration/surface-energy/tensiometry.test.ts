@@ -5,7 +5,7 @@ import * as wilhelmyRoute from '@/app/api/tensiometry/wilhelmy/route';
 import * as waterRoute from '@/app/api/tensiometry/water-check/route';
 import * as listRoute from '@/app/api/tensiometry/route';
 import * as pendantRoute from '@/app/api/tensiometry/pendant-drop/route';
-import { integrateYoungLaplace } from '@/lib/analysis/young-laplace';
+import { integrateYoungLaplace } from '@/lib/analysis/young-laplace-profile';
 import { createLab, type Lab } from '../records/helpers';
 import { call } from './helpers';
 

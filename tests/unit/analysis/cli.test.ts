@@ -57,7 +57,7 @@ describe('analyze CLI', () => {
     expect(Math.abs((parsed[0].meanDeg as number) - 90)).toBeLessThan(2);
     expect(Math.abs((parsed[2].meanDeg as number) - 65)).toBeLessThan(1);
     const error = parsed[1].error as { code: string; message: string };
-    expect(error.code).toBe('unreadable-image');
+    expect(error.code).toBe('unreadable_image');
     expect(error.message.length).toBeGreaterThan(0);
     expect(Object.keys(parsed[1]).sort()).toEqual(['error', 'file']);
   }, 120_000);

@@ -13,7 +13,7 @@ import {
   fitYoungLaplace,
   type FramePoints,
 } from '@/lib/analysis/fits';
-import { sessileDropProfile } from '@/lib/analysis/young-laplace';
+import { sessileDropProfile } from '@/lib/analysis/young-laplace-profile';
 
 const DEG = 180 / Math.PI;
 

@@ -75,7 +75,7 @@ describe('drop pipeline on generated photos', () => {
         seed: 15,
       });
       const r = analyseDropWith(cv, image, { method: 'young-laplace' });
-      expect(r.warnings.map((w) => w.code)).toContain('baseline-not-found');
+      expect(r.warnings.map((w) => w.code)).toContain('baseline_not_found');
       expect(baselineGap(r.baseline, truth.baseline, image.width)).toBeLessThan(0.5);
       expect(Math.abs(r.meanDeg - contactAngleDeg)).toBeLessThan(0.5);
     }
@@ -89,7 +89,7 @@ describe('drop pipeline on generated photos', () => {
       seed: 5,
     });
     const r = analyseDropWith(cv, image, { method: 'young-laplace' });
-    expect(r.warnings.map((w) => w.code)).toContain('needle-in-contact');
+    expect(r.warnings.map((w) => w.code)).toContain('needle_in_contact');
     expect(Math.abs(r.meanDeg - 100)).toBeLessThan(0.5);
   });
 
@@ -101,7 +101,7 @@ describe('drop pipeline on generated photos', () => {
       seed: 6,
     });
     const r = analyseDropWith(cv, image, { method: 'young-laplace' });
-    expect(r.warnings.map((w) => w.code)).not.toContain('needle-in-contact');
+    expect(r.warnings.map((w) => w.code)).not.toContain('needle_in_contact');
     expect(Math.abs(r.meanDeg - 100)).toBeLessThan(0.5);
   });
 
@@ -160,7 +160,7 @@ describe('drop pipeline on generated photos', () => {
     const cut = renderDrop({ contactAngleDeg: 90, bond: 0.1, centerX: 60, seed: 11 });
     expect(
       analyseDropWith(cv, cut.image, { method: 'circle' }).warnings.map((w) => w.code),
-    ).toContain('drop-cut-by-border');
+    ).toContain('drop_cut_by_border');
     const dim = renderDrop({
       contactAngleDeg: 90,
       bond: 0.1,
@@ -172,16 +172,34 @@ describe('drop pipeline on generated photos', () => {
     });
     expect(
       analyseDropWith(cv, dim.image, { method: 'circle' }).warnings.map((w) => w.code),
-    ).toContain('low-contrast');
+    ).toContain('low_contrast');
   });
 
   it('warns when left and right disagree by more than 2°', () => {
-    // A baseline tilted against the substrate makes the two sides differ.
+    // A drop whose contact line is pinned at 86° on the left and 94° on the right (generator:
+    // two Young–Laplace halves of the same liquid meeting at the apex).
+    const { image, truth } = renderDrop({
+      contactAngleDeg: 86,
+      rightAngleDeg: 94,
+      bond: 0.1,
+      seed: 13,
+    });
+    const r = analyseDropWith(cv, image, { method: 'polynomial', baseline: truth.baseline });
+    expect(Math.abs(r.leftDeg - r.rightDeg)).toBeGreaterThan(2);
+    expect(r.warnings.map((w) => w.code)).toContain('left_right_disagree');
+  });
+
+  it('a baseline tilted against the substrate is named as the cause, not read as an asymmetric drop', () => {
+    // The sides of a (nearly) circular drop make equal angles with any chord, so a baseline rotated
+    // about the drop changes both angles alike; what is wrong is where it meets the drop.
     const { image, truth } = renderDrop({ contactAngleDeg: 90, bond: 0.1, seed: 13 });
     const skew = { x1: 0, y1: truth.baseline.y1 - 8, x2: 639, y2: truth.baseline.y2 + 8 };
     const r = analyseDropWith(cv, image, { method: 'polynomial', baseline: skew });
-    expect(Math.abs(r.leftDeg - r.rightDeg)).toBeGreaterThan(2);
-    expect(r.warnings.map((w) => w.code)).toContain('left-right-disagree');
+    const misses = r.warnings.filter((w) => w.code === 'baseline_off_contact');
+    expect(misses.map((w) => w.message)).toEqual([
+      expect.stringMatching(/passes 3\.\d px above the left contact point/),
+      expect.stringMatching(/passes 3\.\d px below the right contact point/),
+    ]);
   });
 
   it('throws a coded error for an image without a drop', () => {

@@ -98,6 +98,6 @@ describe('angle over time', () => {
     const result = analyseAngleOverTime(frames.slice(0, 2));
     expect(result.initial).toBeNull();
     expect(result.rate).toBeNull();
-    expect(result.warnings.map((w) => w.code)).toEqual(['no-initial-angle', 'empty-window']);
+    expect(result.warnings.map((w) => w.code)).toEqual(['no_initial_angle', 'empty_window']);
   });
 });

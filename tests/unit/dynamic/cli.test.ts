@@ -57,7 +57,7 @@ describe('analyze-series CLI', () => {
       expect(typeof f.meanDeg).toBe('number');
       expect(typeof f.volumePx3).toBe('number');
       expect(f.warnings).toEqual([
-        { code: 'needle-in-contact', message: expect.any(String) as string },
+        { code: 'needle_in_contact', message: expect.any(String) as string },
       ]);
     });
     const advancing = out.advancing as Record<string, number>;
@@ -98,11 +98,11 @@ describe('analyze-series CLI', () => {
     const text = path.join(dir, 'clip.mp4');
     writeFileSync(text, 'not a video');
     const cases: [string[], string][] = [
-      [['--json', ...frameFiles.slice(0, 3)], 'missing-fps'],
-      [['--json', '--method', 'tangent-2', '--fps', '3', frameFiles[0]], 'bad-arguments'],
-      [['--json', text], 'unreadable-video'],
-      [['--json', '--fps', '3', path.join(dir, 'missing.png')], 'unreadable-file'],
-      [['--json'], 'bad-arguments'],
+      [['--json', ...frameFiles.slice(0, 3)], 'missing_fps'],
+      [['--json', '--method', 'tangent-2', '--fps', '3', frameFiles[0]], 'bad_arguments'],
+      [['--json', text], 'unreadable_video'],
+      [['--json', '--fps', '3', path.join(dir, 'missing.png')], 'unreadable_file'],
+      [['--json'], 'bad_arguments'],
     ];
     for (const [args, code] of cases) {
       const result = run(args);

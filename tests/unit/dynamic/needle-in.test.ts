@@ -109,7 +109,7 @@ describe('needle-in series, Young–Laplace', () => {
     expect(summary.receding!.frameCount).toBeGreaterThanOrEqual(10);
     expect(summary.advancing!.sdDeg).toBeLessThan(0.2);
     // The needle stays in the drop on purpose: it is flagged on each frame, not as a series problem.
-    expect(frames.every((f) => f.warnings.some((w) => w.code === 'needle-in-contact'))).toBe(true);
+    expect(frames.every((f) => f.warnings.some((w) => w.code === 'needle_in_contact'))).toBe(true);
     expect(summary.warnings).toEqual([]);
   });
 
@@ -125,7 +125,7 @@ describe('needle-in series, Young–Laplace', () => {
     );
     expect(summary.receding).toBeNull();
     expect(summary.hysteresisDeg).toBeNull();
-    expect(summary.warnings.map((w) => w.code)).toContain('no-receding-phase');
+    expect(summary.warnings.map((w) => w.code)).toContain('no_receding_phase');
   });
 
   it('tracks a region around the drop and keeps the checked baseline after the first frame', () => {

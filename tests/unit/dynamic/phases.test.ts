@@ -120,8 +120,8 @@ describe('phase detection on noisy base-diameter curves', () => {
     expect(summary.advancing).toBeNull();
     expect(summary.receding).toBeNull();
     expect(summary.warnings.map((w) => w.code)).toEqual([
-      'no-advancing-phase',
-      'no-receding-phase',
+      'no_advancing_phase',
+      'no_receding_phase',
     ]);
   });
 
@@ -133,7 +133,7 @@ describe('phase detection on noisy base-diameter curves', () => {
     expect(found.segments.map((s) => s.kind)).toEqual(NEEDLE_IN_PHASES);
     expect(found.baseRatePxPerSec[5]).toBeNull();
     const summary = summariseDynamic(frames);
-    const failed = summary.warnings.find((w) => w.code === 'frames-failed');
+    const failed = summary.warnings.find((w) => w.code === 'frames_failed');
     expect(failed?.message).toMatch(/5 of 90 frames/);
     expect(failed?.message).toMatch(/5, 22, 39, 56, 73/);
   });
@@ -142,13 +142,13 @@ describe('phase detection on noisy base-diameter curves', () => {
     const base = Array.from({ length: 40 }, (_, i) => 200 + (i >= 10 ? i - 10 : 0));
     const volume = base.map((_, i) => 1e6 * (1 - 0.005 * i));
     const found = detectPhases(framesOf(base, volume));
-    expect(found.warnings.map((w) => w.code)).toEqual(['phase-volume-disagree']);
+    expect(found.warnings.map((w) => w.code)).toEqual(['phase_volume_disagree']);
   });
 
   it('says when a series is too short', () => {
     const found = detectPhases(framesOf([100, 101, 102]));
     expect(found.segments).toEqual([]);
-    expect(found.warnings.map((w) => w.code)).toEqual(['too-few-frames']);
+    expect(found.warnings.map((w) => w.code)).toEqual(['too_few_frames']);
   });
 
   it('window statistics: mean, per-side means, sample SD, times of the frames counted', () => {

@@ -102,7 +102,7 @@ describe('tilting plate', () => {
     );
     expect(result.rollOffTiltDeg).toBeNull();
     expect(result.atRollOff).toBeNull();
-    expect(result.warnings.map((w) => w.code)).toEqual(['no-roll-off']);
+    expect(result.warnings.map((w) => w.code)).toEqual(['no_roll_off']);
     expect(result.downhillOnsetDeg).not.toBeNull();
   });
 

@@ -100,11 +100,11 @@ describe('tracker', () => {
     expect(frames[1].meanDeg).toBeNull();
     expect(frames[1].baseDiameterPx).toBeNull();
     expect(frames[1].warnings).toHaveLength(1);
-    expect(['baseline-not-found', 'no-drop-found']).toContain(frames[1].warnings[0].code);
+    expect(['baseline_not_found', 'no_drop_found']).toContain(frames[1].warnings[0].code);
     expect(frames[1].tracking.retried).toBe(true);
     expect(frames[2].meanDeg).not.toBeNull();
     const notes = summariseDynamic(frames).warnings;
-    expect(notes.find((w) => w.code === 'frames-failed')?.message).toMatch(
+    expect(notes.find((w) => w.code === 'frames_failed')?.message).toMatch(
       /1 of 3 frames .*frames 1\)/,
     );
   });

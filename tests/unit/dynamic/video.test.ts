@@ -125,13 +125,13 @@ describe('video round trip', () => {
   it('says what is wrong with a file that is no video, or when ffmpeg is missing', async () => {
     const text = path.join(dir, 'notes.mp4');
     writeFileSync(text, 'not a video at all');
-    await expect(probeVideo(text)).rejects.toMatchObject({ code: 'unreadable-video' });
+    await expect(probeVideo(text)).rejects.toMatchObject({ code: 'unreadable_video' });
     await expect(probeVideo(text)).rejects.toBeInstanceOf(VideoError);
     const saved = process.env.FFPROBE_PATH;
     process.env.FFPROBE_PATH = path.join(dir, 'no-such-ffprobe');
     try {
       await expect(probeVideo(text)).rejects.toMatchObject({
-        code: 'ffmpeg-missing',
+        code: 'ffmpeg_missing',
         message: expect.stringMatching(/apt-get install ffmpeg/),
       });
     } finally {

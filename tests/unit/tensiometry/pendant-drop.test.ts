@@ -1,6 +1,6 @@
 import seedrandom from 'seedrandom';
 import { describe, expect, it } from 'vitest';
-import { integrateYoungLaplace } from '@/lib/analysis/young-laplace';
+import { integrateYoungLaplace } from '@/lib/analysis/young-laplace-profile';
 import {
   fitPendantDrop,
   fittedPendantOutline,

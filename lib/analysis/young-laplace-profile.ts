@@ -7,6 +7,12 @@
  * where β = Δρ g b² / γ is the Bond number. β = 0 gives the sphere x = sin φ, z = 1 − cos φ.
  * Integrated with classical fourth-order Runge–Kutta in arc length; volume π∫x² dz and area
  * 2π∫x ds are carried as extra state so they are as accurate as the profile.
+ *
+ * On a stage inclined by α against gravity the hydrostatic term gains a component along the stage:
+ * dφ/ds = 2 + β z + τ x − sin φ / x, with β = Δρ g b² cos α / γ and τ = ± Δρ g b² sin α / γ (+ on
+ * the downhill half, − uphill), each half integrated on its own from the common apex with the
+ * azimuthal curvature of an axisymmetric drop (the usual quasi-axisymmetric approximation; exact at
+ * α = 0, and smooth at the apex, where the extra term vanishes). `tilt` (τ) selects it.
  */
 
 export interface YoungLaplaceProfile {
@@ -29,38 +35,82 @@ export interface IntegrateOptions {
   maxZ?: number;
   /** Arc-length step; by default scaled with the capillary length for large β. */
   step?: number;
-}
-
-type State = [number, number, number, number, number];
-
-function derivative(bond: number, s: State): State {
-  const [x, z, phi] = s;
-  const sinPhi = Math.sin(phi);
-  // At the apex sin φ / x → dφ/ds = 1; x is never below the series start, but guard anyway.
-  const curvatureTerm = x > 1e-12 ? sinPhi / x : 1;
-  return [
-    Math.cos(phi),
-    sinPhi,
-    2 + bond * z - curvatureTerm,
-    Math.PI * x * x * sinPhi,
-    2 * Math.PI * x,
-  ];
-}
-
-function rk4(bond: number, s: State, h: number): State {
-  const k1 = derivative(bond, s);
-  const s2 = s.map((v, i) => v + (h / 2) * k1[i]) as State;
-  const k2 = derivative(bond, s2);
-  const s3 = s.map((v, i) => v + (h / 2) * k2[i]) as State;
-  const k3 = derivative(bond, s3);
-  const s4 = s.map((v, i) => v + h * k3[i]) as State;
-  const k4 = derivative(bond, s4);
-  return s.map((v, i) => v + (h / 6) * (k1[i] + 2 * k2[i] + 2 * k3[i] + k4[i])) as State;
+  /** τ, the hydrostatic term along an inclined stage (units of 1/b², signed by the half). */
+  tilt?: number;
 }
 
 /** Default arc-length step: fine enough for the capillary length 1/√β at large Bond numbers. */
 export function defaultStep(bond: number): number {
   return 0.004 / Math.max(1, Math.sqrt(Math.max(bond, 0)));
+}
+
+// One RK4 step of the five-component state, without allocating (the fits integrate thousands of
+// profiles per drag). `out` may be `state`.
+const k1 = new Float64Array(5);
+const k2 = new Float64Array(5);
+const k3 = new Float64Array(5);
+const k4 = new Float64Array(5);
+const mid = new Float64Array(5);
+
+function derivative(bond: number, tilt: number, s: Float64Array, out: Float64Array): void {
+  const x = s[0];
+  const phi = s[2];
+  const sinPhi = Math.sin(phi);
+  // At the apex sin φ / x → dφ/ds = 1; x is never below the series start, but guard anyway.
+  const curvatureTerm = x > 1e-12 ? sinPhi / x : 1;
+  out[0] = Math.cos(phi);
+  out[1] = sinPhi;
+  out[2] = 2 + bond * s[1] + tilt * x - curvatureTerm;
+  out[3] = Math.PI * x * x * sinPhi;
+  out[4] = 2 * Math.PI * x;
+}
+
+function rk4(bond: number, tilt: number, s: Float64Array, h: number, out: Float64Array): void {
+  derivative(bond, tilt, s, k1);
+  for (let i = 0; i < 5; i++) mid[i] = s[i] + (h / 2) * k1[i];
+  derivative(bond, tilt, mid, k2);
+  for (let i = 0; i < 5; i++) mid[i] = s[i] + (h / 2) * k2[i];
+  derivative(bond, tilt, mid, k3);
+  for (let i = 0; i < 5; i++) mid[i] = s[i] + h * k3[i];
+  derivative(bond, tilt, mid, k4);
+  for (let i = 0; i < 5; i++) out[i] = s[i] + (h / 6) * (k1[i] + 2 * k2[i] + 2 * k3[i] + k4[i]);
+}
+
+/** Growable columns of the profile. */
+class Columns {
+  n = 0;
+  x: Float64Array;
+  z: Float64Array;
+  phi: Float64Array;
+  volume: Float64Array;
+  area: Float64Array;
+  constructor(capacity: number) {
+    this.x = new Float64Array(capacity);
+    this.z = new Float64Array(capacity);
+    this.phi = new Float64Array(capacity);
+    this.volume = new Float64Array(capacity);
+    this.area = new Float64Array(capacity);
+  }
+  push(x: number, z: number, phi: number, volume: number, area: number): void {
+    if (this.n === this.x.length) {
+      const grow = (a: Float64Array) => {
+        const b = new Float64Array(a.length * 2);
+        b.set(a);
+        return b;
+      };
+      this.x = grow(this.x);
+      this.z = grow(this.z);
+      this.phi = grow(this.phi);
+      this.volume = grow(this.volume);
+      this.area = grow(this.area);
+    }
+    this.x[this.n] = x;
+    this.z[this.n] = z;
+    this.phi[this.n] = phi;
+    this.volume[this.n] = volume;
+    this.area[this.n] = area;
+    this.n++;
+  }
 }
 
 /**
@@ -74,32 +124,27 @@ export function integrateYoungLaplace(
   const maxPhi = Math.min(options.maxPhi ?? Math.PI, Math.PI);
   const maxZ = options.maxZ ?? Number.POSITIVE_INFINITY;
   const h = options.step ?? defaultStep(bond);
+  const tilt = options.tilt ?? 0;
   const capacity = 200_000;
-  const xs: number[] = [0];
-  const zs: number[] = [0];
-  const phis: number[] = [0];
-  const vols: number[] = [0];
-  const areas: number[] = [0];
+  const columns = new Columns(Math.min(capacity, Math.ceil(4 / h) + 8));
+  columns.push(0, 0, 0, 0, 0);
   // Series start near the apex: x ≈ s, z ≈ s²/2, φ ≈ s (curvature 1 at the apex in units of b).
   const s0 = Math.min(h, 1e-4);
-  let state: State = [s0, (s0 * s0) / 2, s0, (Math.PI * s0 ** 4) / 8, Math.PI * s0 * s0];
-  xs.push(state[0]);
-  zs.push(state[1]);
-  phis.push(state[2]);
-  vols.push(state[3]);
-  areas.push(state[4]);
+  const state = Float64Array.of(s0, (s0 * s0) / 2, s0, (Math.PI * s0 ** 4) / 8, Math.PI * s0 * s0);
+  const next = new Float64Array(5);
+  columns.push(state[0], state[1], state[2], state[3], state[4]);
   for (let i = 0; i < capacity; i++) {
-    const next = rk4(bond, state, h);
+    rk4(bond, tilt, state, h, next);
     if (next[2] >= maxPhi) {
       // Partial step landing on φ = maxPhi (secant iterations on the step length).
       let lo = 0;
       let hi = h;
       let phiLo = state[2];
       let phiHi = next[2];
-      let landed = next;
+      const landed = new Float64Array(next);
       for (let k = 0; k < 30; k++) {
         const t = lo + ((maxPhi - phiLo) / (phiHi - phiLo)) * (hi - lo);
-        landed = rk4(bond, state, t);
+        rk4(bond, tilt, state, t, landed);
         const err = landed[2] - maxPhi;
         if (Math.abs(err) < 1e-13) break;
         if (err > 0) {
@@ -110,35 +155,27 @@ export function integrateYoungLaplace(
           phiLo = landed[2];
         }
       }
-      state = landed;
-      xs.push(state[0]);
-      zs.push(state[1]);
-      phis.push(maxPhi);
-      vols.push(state[3]);
-      areas.push(state[4]);
+      columns.push(landed[0], landed[1], maxPhi, landed[3], landed[4]);
       break;
     }
-    state = next;
-    xs.push(state[0]);
-    zs.push(state[1]);
-    phis.push(state[2]);
-    vols.push(state[3]);
-    areas.push(state[4]);
+    state.set(next);
+    columns.push(state[0], state[1], state[2], state[3], state[4]);
     if (state[1] > maxZ) break;
   }
+  const n = columns.n;
   return {
     bond,
-    n: xs.length,
-    x: Float64Array.from(xs),
-    z: Float64Array.from(zs),
-    phi: Float64Array.from(phis),
-    volume: Float64Array.from(vols),
-    area: Float64Array.from(areas),
+    n,
+    x: columns.x.subarray(0, n),
+    z: columns.z.subarray(0, n),
+    phi: columns.phi.subarray(0, n),
+    volume: columns.volume.subarray(0, n),
+    area: columns.area.subarray(0, n),
   };
 }
 
 /** Index k with z[k] ≤ depth < z[k+1] (z increases along a sessile profile); −1 if above the apex. */
-export function findDepthIndex(profile: YoungLaplaceProfile, depth: number): number {
+export function findDepthIndex(profile: Pick<YoungLaplaceProfile, 'z' | 'n'>, depth: number): number {
   const { z, n } = profile;
   if (depth < z[0]) return -1;
   if (depth >= z[n - 1]) return n - 1;

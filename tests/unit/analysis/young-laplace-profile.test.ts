@@ -4,7 +4,7 @@ import {
   integrateYoungLaplace,
   profileAtDepth,
   sessileDropProfile,
-} from '@/lib/analysis/young-laplace';
+} from '@/lib/analysis/young-laplace-profile';
 
 describe('Young–Laplace profile (Bashforth & Adams 1883 equations)', () => {
   it('β = 0 is the sphere x = sin φ, z = 1 − cos φ (derivable: constant mean curvature 1/b)', () => {
