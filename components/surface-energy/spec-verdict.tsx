@@ -75,11 +75,6 @@ export function SpecVerdict({
           </p>
         );
       })}
-      <p className="mt-2 text-xs text-ink-600">
-        Results that release product for safety-relevant uses (medical, food contact, structural
-        bonding) must follow the lab’s validated procedure and applicable standards, with qualified
-        sign-off; this check supports that procedure and does not replace it.
-      </p>
     </section>
   );
 }

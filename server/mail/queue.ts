@@ -29,7 +29,7 @@ function createBoss(): Promise<PgBoss> {
   const boss = new PgBoss({
     connectionString: databaseUrl(),
     max: 3,
-    application_name: 'beadline-mail',
+    application_name: 'beadline-jobs',
     // A queued mail holds its link; delivered ones leave the queue's tables soon.
     archiveCompletedAfterSeconds: 300,
     deleteAfterHours: 1,
@@ -47,13 +47,20 @@ export async function getBoss(): Promise<PgBoss> {
   return globalForQueue.beadlineBoss;
 }
 
-/** Creates `name` once per process (another process may have created it first). */
-export async function ensureQueue(boss: PgBoss, name: string): Promise<void> {
+/**
+ * Creates `name` once per process (another process may have created it first). `options` for a
+ * queue other than mail's (its policy, retries, expiry).
+ */
+export async function ensureQueue(
+  boss: PgBoss,
+  name: string,
+  options: Partial<Omit<PgBoss.Queue, 'name'>> = {},
+): Promise<void> {
   const known = (globalForQueue.beadlineQueues ??= new Set());
   if (known.has(name)) return;
   if (!(await boss.getQueue(name))) {
     try {
-      await boss.createQueue(name, { name, ...RETRY, expireInSeconds: 120 });
+      await boss.createQueue(name, { name, ...RETRY, expireInSeconds: 120, ...options });
     } catch (error) {
       if (!(await boss.getQueue(name))) throw error;
     }
