@@ -8,13 +8,7 @@ import * as exportRoute from '@/app/api/compare/drops.csv/route';
 import { CSV_HEADER } from '@/lib/compare';
 import { apiRequest } from '../support/request';
 import { createLab, ensureLibrary, unique, type Lab } from '../records/helpers';
-import {
-  insertBatch,
-  insertCoating,
-  insertDrop,
-  insertSample,
-  insertWaterSpec,
-} from '../support/seed';
+import * as seed from '../support/seed';
 
 type Status = 'draft' | 'submitted' | 'approved' | 'rejected';
 
@@ -29,10 +23,10 @@ let lotNew: string;
 let otherBatch: string;
 const dropIds: Record<string, string> = {};
 
-const addCoating = (orgId: string, code: string) => insertCoating(orgId, code);
-const addBatch = insertBatch;
+const addCoating = (orgId: string, code: string) => seed.insertCoating(orgId, code);
+const addBatch = seed.insertBatch;
 const addSample = (orgId: string, batchId: string, label: string) =>
-  insertSample(orgId, batchId, label, new Date('2026-03-01T08:00:00Z'));
+  seed.insertSample(orgId, batchId, label, new Date('2026-03-01T08:00:00Z'));
 
 /** A drop with one analysis per [meanDeg, status] given (left/right 1° either side), revision 1, 2, … */
 const addDrop = (
@@ -41,7 +35,7 @@ const addDrop = (
   revisions: [number, Status][],
   measuredAt: string,
 ) =>
-  insertDrop(orgId, sampleId, {
+  seed.insertDrop(orgId, sampleId, {
     measuredAt: new Date(measuredAt),
     revisions: revisions.map(([meanDeg, reviewStatus]) => ({
       meanDeg,
@@ -57,7 +51,7 @@ beforeAll(async () => {
   other = await createLab();
   coatingCode = unique('CMP');
   coatingId = await addCoating(lab.id, coatingCode);
-  await insertWaterSpec(lab.id, coatingId, 100);
+  await seed.insertWaterSpec(lab.id, coatingId, 100);
   lotOld = unique('B');
   lotNew = unique('B');
   batchOld = await addBatch(lab.id, coatingId, lotOld, '2026-03-01');

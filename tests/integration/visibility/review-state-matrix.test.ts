@@ -20,13 +20,7 @@ import { loadBatchPage } from '@/server/records/detail-pages';
 import { loadSurfaceEnergyPage } from '@/server/surface-energy/read';
 import { createMember, createOrganization } from '../support/fixtures';
 import { apiRequest } from '../support/request';
-import {
-  insertBatch,
-  insertCoating,
-  insertDrop,
-  insertSample,
-  insertWaterSpec,
-} from '../support/seed';
+import * as seed from '../support/seed';
 import { ensureLibrary } from '../records/helpers';
 import { mailJobsTo } from '../team/support';
 
@@ -63,16 +57,16 @@ async function labIn(state: State): Promise<Fixture> {
   for (const role of ROLES) members[role] = await createMember(lab.id, role);
   const coatingCode = `VM-${newId().slice(0, 6)}`;
   const lotCode = `L-${state}`;
-  const coatingId = await insertCoating(lab.id, coatingCode);
-  const batchId = await insertBatch(lab.id, coatingId, lotCode);
-  const sampleId = await insertSample(lab.id, batchId, 'S1');
+  const coatingId = await seed.insertCoating(lab.id, coatingCode);
+  const batchId = await seed.insertBatch(lab.id, coatingId, lotCode);
+  const sampleId = await seed.insertSample(lab.id, batchId, 'S1');
   const stored = state === 'revoked' ? 'draft' : state;
   for (const [probeLiquidId, means] of [
     [WATER, [96, 97, 98]],
     [DIIODOMETHANE, [51, 52, 53]],
   ] as const) {
     for (const meanDeg of means) {
-      await insertDrop(lab.id, sampleId, {
+      await seed.insertDrop(lab.id, sampleId, {
         probeLiquidId,
         revisions: [{ meanDeg, reviewStatus: stored }],
       });
@@ -273,7 +267,7 @@ describe('e-mails', () => {
   it('an out-of-spec alert (computed from every latest result) goes only to watchers who may see them all', async () => {
     const f = fixtures.get('draft')!;
     const coatingId = await coatingOf(f);
-    await insertWaterSpec(f.lab.id, coatingId, 110);
+    await seed.insertWaterSpec(f.lab.id, coatingId, 110);
     for (const role of ['reviewer', 'analyst'] as const) {
       await getDb()
         .insert(coatingWatchers)
