@@ -337,13 +337,14 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
     };
     table(
       [
+        // A lot code is one word: its column holds 16 characters whole (e.g. DIM-LOT-2026-077).
         { title: 'Liquid', width: 58 },
-        { title: 'Operator', width: 70 },
+        { title: 'Operator', width: 62 },
         { title: 'Measured (UTC)', width: 90 },
         { title: 'Conditions', width: 86 },
-        { title: 'Drop (µL)', width: 40, align: 'right' },
-        { title: 'Liquid lot', width: 60 },
-        { title: 'Instrument', width: 79 },
+        { title: 'Drop (µL)', width: 34, align: 'right' },
+        { title: 'Liquid lot', width: 90 },
+        { title: 'Instrument', width: 63 },
       ],
       data.sessions.map((s) => [
         s.liquidName,

@@ -26,6 +26,9 @@ const MAIN_PAGES = [
   '/tensiometry',
   '/reviews',
   '/team',
+  '/team/api',
+  '/api-reference',
+  '/measure',
   '/audit',
 ];
 
@@ -38,13 +41,19 @@ beforeAll(async () => {
   const context = await browser.newContext({ bypassCSP: true });
   page = await context.newPage();
   await signIn(page, 'admin@kestrel.example', DEMO_PASSWORD);
-  // A batch page and a review page too, found from their lists.
+  // A coating, a batch (with its import page) and a review page too, found from their lists.
+  await page.goto(`${BASE_URL}/coatings`);
+  const coating = await page
+    .getByRole('link', { name: 'HT-200', exact: true })
+    .first()
+    .getAttribute('href');
   await page.goto(`${BASE_URL}/batches`);
   const batch = await page.getByRole('link', { name: 'B-0412' }).first().getAttribute('href');
   await page.goto(`${BASE_URL}/reviews`);
   const review = await page.locator('a[href^="/reviews/"]').first().getAttribute('href');
-  pages = [...MAIN_PAGES, ...(batch ? [batch] : []), ...(review ? [review] : [])];
-  expect(pages.length).toBeGreaterThan(MAIN_PAGES.length);
+  const found = [coating, batch, batch && `${batch}/import`, review];
+  expect(found.every(Boolean), JSON.stringify(found)).toBe(true);
+  pages = [...MAIN_PAGES, ...(found as string[])];
 });
 
 afterAll(async () => {

@@ -14,7 +14,15 @@ import type { OrgContext } from '@/lib/auth/context';
 import { closeMailQueue } from '@/server/mail/queue';
 import { renderCertificate, certificateRequestOf } from '@/server/reports/batch-report';
 import { buildCertificate, requestCertificate } from '@/server/reports/certificate';
-import { createLab, ensureLibrary, unique, type Lab } from '../records/helpers';
+import {
+  api,
+  bodies,
+  createLab,
+  ensureLibrary,
+  resources,
+  unique,
+  type Lab,
+} from '../records/helpers';
 import {
   insertBatch,
   insertCoating,
@@ -202,5 +210,28 @@ describe('certificate of analysis (PDF/A-2b, tagged)', () => {
     expect(fresh.status).toBe('ready');
     if (fresh.status === 'ready')
       expect((await readPdf(fresh.pdf)).text).toContain('Line stopped once at 10:40.');
+  });
+});
+
+describe('liquid lot from the measure workspace', () => {
+  it('a lot sent with the session conditions (POST /api/measurement-sessions) is printed on the certificate', async () => {
+    const db = getDb();
+    const [batch] = await db.select().from(batches).where(eq(batches.id, batchId));
+    const other = await insertBatch(lab.id, batch.coatingId, unique('B'));
+    const sample = await insertSample(lab.id, other, 'P1');
+    // The body the workspace sends on its first save (components/measure/use-save-drops.ts).
+    const created = await api.create(resources.measurementSessions, {
+      sessionId: lab.members.analyst.sessionId,
+      body: { ...bodies.measurementSession(), liquidLot: 'DIM-LOT-2026-077' },
+    });
+    expect(created.status, JSON.stringify(created.body)).toBe(201);
+    expect(created.body.measurementSession.liquidLot).toBe('DIM-LOT-2026-077');
+    await insertDrop(lab.id, sample, {
+      sessionId: created.body.measurementSession.id,
+      revisions: [{ meanDeg: 103 }],
+    });
+    const { text } = await readPdf((await renderCertificate(certificateRequestOf(ctx), other)).pdf);
+    // Whole, not broken across lines inside the code.
+    expect(text).toContain('DIM-LOT-2026-077');
   });
 });
