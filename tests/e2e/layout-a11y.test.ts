@@ -28,7 +28,6 @@ const MAIN_PAGES = [
   '/team',
   '/team/api',
   '/api-reference',
-  '/measure',
   '/audit',
 ];
 
