@@ -4,6 +4,6 @@
  * request thread ran before, so results are the same to the last bit; OpenCV loads once per
  * thread, on its first analysis.
  */
-import { runComputeTask } from '../lib/compute/tasks';
+import { runComputeTask } from '../lib/compute/node/tasks';
 
 export default runComputeTask;

@@ -8,7 +8,7 @@ import {
   type ComputeReply,
   type ComputeTask,
   type ComputeValue,
-} from '@/lib/compute/tasks';
+} from '@/lib/compute/node/tasks';
 
 /*
  * The CPU-heavy work of a request (pendant-drop fits, the re-analysis of a drop photo on save)
@@ -67,8 +67,27 @@ const busy = (message: string) =>
   new AppError('busy', message, { retryAfterSeconds: RETRY_AFTER_SECONDS });
 
 /**
+ * Task kinds that may take minutes (a series of hundreds of frames): at most one of each kind is
+ * in the pool at a time, the others wait in line here, so a long series never holds every thread
+ * and the short fits of other users keep flowing between them.
+ */
+const ONE_AT_A_TIME: ReadonlySet<ComputeTask['kind']> = new Set(['reanalyse-series']);
+const lanes = new Map<ComputeTask['kind'], Promise<unknown>>();
+
+function inLane<R>(kind: ComputeTask['kind'], run: () => Promise<R>): Promise<R> {
+  if (!ONE_AT_A_TIME.has(kind)) return run();
+  const next = (lanes.get(kind) ?? Promise.resolve()).then(run);
+  lanes.set(
+    kind,
+    next.catch(() => undefined),
+  );
+  return next;
+}
+
+/**
  * Runs a task of lib/compute in the pool for `userId`. The core's input errors are rethrown as the
- * core threw them (TensiometryInputError, AnalysisError); too many at once is 429 `busy`.
+ * core threw them (TensiometryInputError, AnalysisError, SeriesSourceFailure); too many at once is
+ * 429 `busy`. A task waiting in its kind's line (ONE_AT_A_TIME) counts towards the user's limit.
  */
 export async function runCompute<T extends ComputeTask>(
   userId: string,
@@ -86,7 +105,7 @@ export async function runCompute<T extends ComputeTask>(
   }
   inFlight.set(userId, mine + 1);
   try {
-    const reply = (await pool.run(task)) as ComputeReply<T>;
+    const reply = (await inLane(task.kind, () => pool.run(task))) as ComputeReply<T>;
     if (!reply.ok) throw computeError(reply.error);
     return reply.value;
   } finally {

@@ -55,7 +55,10 @@ async function reanalyse(actor: Actor, input: SaveDynamicInput): Promise<Reanaly
         throw error;
       }
     }
-    return analyseInWorker({ ...common, source: { type: 'frames', images, fps: source.fps } });
+    return analyseInWorker(actor, {
+      ...common,
+      source: { type: 'frames', images, fps: source.fps },
+    });
   }
   const video = await getVideo(actor.organizationId, source.videoId);
   if (!video)
@@ -69,7 +72,7 @@ async function reanalyse(actor: Actor, input: SaveDynamicInput): Promise<Reanaly
       'The stored video is larger than 512 MB; shorten it and upload it again.',
     );
   return withTempFile(bytes, (file) =>
-    analyseInWorker({
+    analyseInWorker(actor, {
       ...common,
       source: { type: 'video', path: file, ...(source.fps ? { fps: source.fps } : {}) },
     }),

@@ -1,7 +1,8 @@
 /**
  * Node-only: a stored series analysed from its source — a video file (decoded by ffmpeg) or frame
- * images in order with a frame rate — into the measurement of its kind. The server runs this in a
- * worker thread (lib/dynamic/node/reanalyse-worker.ts) before it saves a dynamic measurement.
+ * images in order with a frame rate — into the measurement of its kind. The server runs this in its
+ * server's compute pool (lib/compute/node/tasks.ts, kind `reanalyse-series`) before it saves a dynamic
+ * measurement.
  */
 import { loadOpenCv, type FitMethod } from '../../analysis';
 import { decodeImageBytes } from '../../analysis/node/decode';

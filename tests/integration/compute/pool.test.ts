@@ -7,6 +7,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { renderDrop } from '@/fixtures/generator/render';
 import { analyseDrop } from '@/lib/analysis';
 import { AppError } from '@/lib/app-error';
+import { SeriesSourceFailure } from '@/lib/compute/node/tasks';
 import { TensiometryInputError } from '@/lib/tensiometry';
 import { fitPendantDrop } from '@/lib/tensiometry/pendant-drop';
 import {
@@ -15,6 +16,7 @@ import {
   closeComputePool,
   runCompute,
 } from '@/server/compute/pool';
+import { analyseInWorker } from '@/server/dynamic/analyse-in-worker';
 import { pendantEdgeBody } from '../../support/pendant-photo';
 
 afterAll(async () => {
@@ -65,5 +67,42 @@ describe('compute pool', () => {
     await expect(
       runCompute('user-b', { kind: 'pendant-fit', input: pendantEdgeBody(200) }),
     ).resolves.toMatchObject({ pointCount: 200 });
+  });
+
+  it('runs a series re-analysis in the pool: a frame that is no image comes back as the decode failure, and waiting series count towards the limit', async () => {
+    const notAnImage = new TextEncoder().encode('these bytes are not a picture');
+    const series = () =>
+      runCompute('user-d', {
+        kind: 'reanalyse-series',
+        request: {
+          source: { type: 'frames', images: [notAnImage], fps: 10 },
+          kind: 'grow-and-withdraw',
+          method: 'polynomial',
+        },
+      });
+    // Series run one at a time; the others wait in line, and each waiting one holds a slot.
+    const four = Array.from({ length: PER_USER_LIMIT }, () => series().catch((e) => e));
+    const fifth = await series().catch((e) => e);
+    expect(fifth).toBeInstanceOf(AppError);
+    expect((fifth as AppError).code).toBe('busy');
+    for (const refusal of await Promise.all(four)) {
+      expect(refusal).toBeInstanceOf(SeriesSourceFailure);
+      expect((refusal as SeriesSourceFailure).failureName).toBe('DecodeError');
+      expect((refusal as SeriesSourceFailure).message).toMatch(/Not a readable image/);
+    }
+  });
+
+  it('a save of such a series is told the frame is unreadable and what to do (a clear error, not a crash)', async () => {
+    const refusal = await analyseInWorker(
+      { organizationId: 'org-e', userId: 'user-e' },
+      {
+        source: { type: 'frames', images: [new TextEncoder().encode('no picture')], fps: 10 },
+        kind: 'grow-and-withdraw',
+        method: 'polynomial',
+      },
+    ).catch((e) => e);
+    expect(refusal).toBeInstanceOf(AppError);
+    expect((refusal as AppError).code).toBe('unreadable_photo');
+    expect((refusal as AppError).message).toMatch(/Upload the frames as PNG, JPEG, TIFF or BMP/);
   });
 });

@@ -133,6 +133,7 @@ describe('deciding', () => {
   it('a signed approval cannot be contradicted: a later decision is refused and the results stay approved', async () => {
     const batchId = await batchWithSixResults();
     const { body } = await submit(analyst.sessionId, batchId);
+    const mailsBefore = (await mailJobsTo(analyst.email)).length;
     const approved = await decide(reviewer.sessionId, body.reviewId, approve);
     expect(approved.status).toBe(200);
     expect(approved.body.status).toBe('approved');
@@ -143,6 +144,11 @@ describe('deciding', () => {
       expect(later.body.error.message).toMatch(/revok/);
     }
     expect(await statusesUnder(batchId)).toEqual(Array(6).fill('approved'));
+    // One outcome mail to the submitter (the approval); the refused decisions send none.
+    const outcome = (await mailJobsTo(analyst.email)).slice(mailsBefore);
+    expect(outcome).toHaveLength(1);
+    expect(JSON.stringify(outcome[0].data)).toMatch(/approved/i);
+    expect(JSON.stringify(outcome[0].data)).not.toMatch(/rejected/i);
   });
 
   it('a decision checks the analyses are still as reviewed: a second review over approved results cannot reject them', async () => {

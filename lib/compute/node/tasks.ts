@@ -5,14 +5,22 @@
  * computation cannot use comes back as `{ ok: false, error }` with the core's own error kind and
  * code, so the caller can throw the same error the core would have thrown in its own thread.
  */
-import { analyseDrop } from '../analysis/analyse';
+import { analyseDrop } from '../../analysis/analyse';
 import {
   AnalysisError,
   type AnalyseOptions,
   type AnalysisResult,
   type GrayImage,
-} from '../analysis/types';
-import { TensiometryInputError } from '../tensiometry/errors';
+} from '../../analysis/types';
+import { DecodeError } from '../../analysis/node/decode';
+import { VideoError } from '../../dynamic/node/ffmpeg';
+import {
+  reanalyseSeries,
+  SeriesSourceError,
+  type ReanalyseReply,
+  type ReanalyseRequest,
+} from '../../dynamic/node/reanalyse';
+import { TensiometryInputError } from '../../tensiometry/errors';
 import {
   fitPendantDrop,
   fittedPendantOutline,
@@ -21,7 +29,7 @@ import {
   type PendantDropInput,
   type PendantDropResult,
   type PendantEdgeExtraction,
-} from '../tensiometry/pendant-drop';
+} from '../../tensiometry/pendant-drop';
 
 export type ComputeTask =
   /** A pendant-drop fit of a traced outline. */
@@ -34,7 +42,9 @@ export type ComputeTask =
       densityDifferenceKgPerM3: number;
     }
   /** A sessile drop photo analysed by lib/analysis (the server's re-analysis on save). */
-  | { kind: 'analyse-drop'; image: GrayImage; options: AnalyseOptions };
+  | { kind: 'analyse-drop'; image: GrayImage; options: AnalyseOptions }
+  /** A stored series (video or frames) decoded and analysed frame by frame before it is saved. */
+  | { kind: 'reanalyse-series'; request: ReanalyseRequest };
 
 export type PendantPhotoFit = {
   extraction: PendantEdgeExtraction;
@@ -46,9 +56,37 @@ export type ComputeValue<T extends ComputeTask> = T extends { kind: 'pendant-fit
   ? PendantDropResult
   : T extends { kind: 'pendant-photo' }
     ? PendantPhotoFit
-    : AnalysisResult;
+    : T extends { kind: 'reanalyse-series' }
+      ? ReanalyseReply
+      : AnalysisResult;
 
-export type ComputeFailure = { kind: 'tensiometry' | 'analysis'; code: string; message: string };
+/**
+ * A series could not be read (VideoError, DecodeError, SeriesSourceError, RangeError from the
+ * core): its name, code and message cross the thread boundary and are rebuilt as this error.
+ */
+export class SeriesSourceFailure extends Error {
+  constructor(
+    readonly failureName: string,
+    readonly code: string | null,
+    message: string,
+  ) {
+    super(message);
+    this.name = 'SeriesSourceFailure';
+  }
+}
+
+/** The core's errors for a series it cannot read, by the name the caller maps them with. */
+function seriesInputErrorName(error: unknown): string | null {
+  if (error instanceof VideoError) return 'VideoError';
+  if (error instanceof DecodeError) return 'DecodeError';
+  if (error instanceof SeriesSourceError) return 'SeriesSourceError';
+  if (error instanceof RangeError) return 'RangeError';
+  return null;
+}
+
+export type ComputeFailure =
+  | { kind: 'tensiometry' | 'analysis'; code: string; message: string }
+  | { kind: 'series'; name: string; code: string | null; message: string };
 
 export type ComputeReply<T extends ComputeTask = ComputeTask> =
   { ok: true; value: ComputeValue<T> } | { ok: false; error: ComputeFailure };
@@ -69,6 +107,8 @@ async function compute(task: ComputeTask): Promise<ComputeValue<ComputeTask>> {
     }
     case 'analyse-drop':
       return analyseDrop(task.image, task.options);
+    case 'reanalyse-series':
+      return reanalyseSeries(task.request);
   }
 }
 
@@ -86,12 +126,29 @@ export async function runComputeTask<T extends ComputeTask>(task: T): Promise<Co
     if (error instanceof AnalysisError) {
       return { ok: false, error: { kind: 'analysis', code: error.code, message: error.message } };
     }
+    const seriesError = task.kind === 'reanalyse-series' ? seriesInputErrorName(error) : null;
+    if (seriesError) {
+      const { code, message } = error as { code?: unknown; message: string };
+      return {
+        ok: false,
+        error: {
+          kind: 'series',
+          name: seriesError,
+          code: typeof code === 'string' ? code : null,
+          message,
+        },
+      };
+    }
     throw error;
   }
 }
 
 /** The error the core threw in the worker, rebuilt in the caller's thread. */
-export function computeError(failure: ComputeFailure): TensiometryInputError | AnalysisError {
+export function computeError(
+  failure: ComputeFailure,
+): TensiometryInputError | AnalysisError | SeriesSourceFailure {
+  if (failure.kind === 'series')
+    return new SeriesSourceFailure(failure.name, failure.code, failure.message);
   return failure.kind === 'tensiometry'
     ? new TensiometryInputError(failure.code, failure.message)
     : new AnalysisError(failure.code as AnalysisError['code'], failure.message);
