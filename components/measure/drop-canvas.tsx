@@ -151,10 +151,14 @@ export function DropCanvas(props: Props) {
   };
 
   const dragTo =
-    (handle: 'start' | 'end', final = false) => (event: Konva.KonvaEventObject<DragEvent>) => {
+    (handle: 'start' | 'end', final = false) =>
+    (event: Konva.KonvaEventObject<DragEvent>) => {
       if (!baseline) return;
       const { x, y } = event.target.position();
-      follow(handle === 'start' ? { ...baseline, x1: x, y1: y } : { ...baseline, x2: x, y2: y }, final);
+      follow(
+        handle === 'start' ? { ...baseline, x1: x, y1: y } : { ...baseline, x2: x, y2: y },
+        final,
+      );
     };
 
   return (
@@ -173,7 +177,9 @@ export function DropCanvas(props: Props) {
         // The shown result: its baseline, full-precision angles and whether it is a draft (tests).
         data-result-baseline={
           result
-            ? [result.baseline.x1, result.baseline.y1, result.baseline.x2, result.baseline.y2].join(',')
+            ? [result.baseline.x1, result.baseline.y1, result.baseline.x2, result.baseline.y2].join(
+                ',',
+              )
             : undefined
         }
         data-result-method={result?.method}

@@ -2,7 +2,6 @@
 
 import { useState } from 'react';
 import { useMutation, type MutationResult } from '@/components/data/use-mutation';
-import type { FitMethod } from '@/lib/analysis/types';
 import { measurementSessionReplies } from '@/lib/contracts/measurement-sessions';
 import { useWorkspace, type WorkspacePhoto } from './store';
 import { scaleOf, type SessionDetails } from './types';
@@ -14,22 +13,29 @@ const must = <T>(result: MutationResult<T>): T => {
   return result.data;
 };
 
+/** What stops a photo from being saved, in words; null when it can be. */
+export function saveProblem(photo: WorkspacePhoto, reason: string): string | null {
+  if (photo.status !== 'ready') return `${photo.name} has no result to save.`;
+  if (!photo.sampleId) return `Choose the sample ${photo.name} was placed on, then save.`;
+  if (!photo.probeLiquidId) return `Choose the probe liquid of ${photo.name}, then save.`;
+  if (photo.savedRevision !== null && !reason.trim())
+    return `${photo.name} is saved already: say why it is analysed again.`;
+  return null;
+}
+
 /**
- * Saving analysed photos to a sample: the session is created on the first save with its
- * details, then each photo's drop is saved (the server re-analyses the stored photo with the
- * same method and baseline). One photo, or every analysed photo not saved yet.
+ * Saving analysed photos, each to its own sample and probe liquid: the session is created on the
+ * first save with its details (a reopened drop keeps its own session unless the details
+ * changed), then each photo's drop is saved (the server re-analyses the stored photo with the
+ * same method and baseline). A re-save carries the reason the user gave.
  */
 export function useSaveDrops({
-  sampleId,
   session,
   onSessionCreated,
-  method,
   onSaved,
 }: {
-  sampleId: string;
   session: SessionDetails;
   onSessionCreated: (sessionId: string) => void;
-  method: FitMethod;
   /** After a save, e.g. to reload the selected photo's revisions. */
   onSaved: () => Promise<unknown>;
 }) {
@@ -40,15 +46,17 @@ export function useSaveDrops({
   const [progress, setProgress] = useState<{ done: number; total: number } | null>(null);
   const scale = scaleOf(session);
 
-  async function ensureSession(): Promise<string> {
+  async function ensureSession(liquidIds: string[]): Promise<string> {
     if (session.sessionId) return session.sessionId;
+    const liquids = [...new Set(liquidIds)];
     const created = must(
       await send.run('/api/measurement-sessions', {
         method: 'POST',
         json: {
           operatorName: session.operatorName,
           measuredAt: new Date().toISOString(),
-          probeLiquidId: session.probeLiquidId || undefined,
+          // One liquid for the sitting when all its drops share it.
+          probeLiquidId: liquids.length === 1 ? liquids[0] : undefined,
           temperatureC: session.temperatureC ? Number(session.temperatureC) : undefined,
           humidityPct: session.humidityPct ? Number(session.humidityPct) : undefined,
           dropVolumeUl: session.dropVolumeUl ? Number(session.dropVolumeUl) : undefined,
@@ -63,34 +71,38 @@ export function useSaveDrops({
     return id;
   }
 
-  async function savePhoto(photo: WorkspacePhoto, sessionId: string): Promise<number> {
+  async function savePhoto(photo: WorkspacePhoto, sessionId: string, reason: string) {
     const saved = must(
       await send.run(`/api/photos/${photo.id}/drop`, {
         method: 'POST',
         json: {
-          sampleId,
-          probeLiquidId: session.probeLiquidId,
+          sampleId: photo.sampleId,
+          probeLiquidId: photo.probeLiquidId,
           sessionId,
-          method,
+          method: photo.method,
           baseline: photo.baseline,
           scalePxPerMm: scale,
+          ...(photo.savedRevision !== null ? { reason: reason.trim() } : {}),
         },
       }),
-    ) as { revision: number };
-    markSaved(photo.id, saved.revision);
+    ) as { revision: number; dropId: string };
+    markSaved(photo.id, saved.revision, saved.dropId);
     return saved.revision;
   }
 
-  function problemBeforeSave(): string | null {
-    if (!sampleId) return 'Choose the sample these drops were placed on, then save.';
-    if (!session.probeLiquidId) return 'Choose the probe liquid, then save.';
-    return null;
-  }
-
   /** Runs `save` with the checks, the busy state and the message around it. */
-  async function guarded(save: () => Promise<SaveMessage>) {
-    const problem = problemBeforeSave();
-    if (problem) return setMessage({ kind: 'error', text: problem });
+  async function guarded(
+    photos: WorkspacePhoto[],
+    reason: string,
+    save: () => Promise<SaveMessage>,
+  ) {
+    const problem = photos.length
+      ? photos.map((p) => saveProblem(p, reason)).find(Boolean)
+      : 'Tick the photos to save.';
+    if (problem) {
+      setMessage({ kind: 'error', text: problem });
+      return;
+    }
     setSaving(true);
     setMessage(null);
     try {
@@ -106,35 +118,34 @@ export function useSaveDrops({
     }
   }
 
-  const saveOne = (photo: WorkspacePhoto) =>
-    guarded(async () => {
-      const revision = await savePhoto(photo, await ensureSession());
+  const saveOne = (photo: WorkspacePhoto, reason = '') =>
+    guarded([photo], reason, async () => {
+      const revision = await savePhoto(photo, await ensureSession([photo.probeLiquidId]), reason);
       await onSaved();
       return { kind: 'ok', text: `Saved as revision ${revision}.` };
     });
 
-  const saveAll = (photos: WorkspacePhoto[]) =>
-    guarded(async () => {
-      const toSave = photos.filter((p) => p.status === 'ready' && p.dirty);
-      setProgress({ done: 0, total: toSave.length });
-      const sessionId = await ensureSession();
+  const saveMany = (photos: WorkspacePhoto[], reason = '') =>
+    guarded(photos, reason, async () => {
+      setProgress({ done: 0, total: photos.length });
+      const sessionId = await ensureSession(photos.map((p) => p.probeLiquidId));
       const failures: string[] = [];
-      for (const [i, photo] of toSave.entries()) {
+      for (const [i, photo] of photos.entries()) {
         try {
-          await savePhoto(photo, sessionId);
+          await savePhoto(photo, sessionId, reason);
         } catch (error) {
           failures.push(`${photo.name}: ${error instanceof Error ? error.message : 'not saved'}`);
         }
-        setProgress({ done: i + 1, total: toSave.length });
+        setProgress({ done: i + 1, total: photos.length });
       }
       await onSaved();
       return failures.length
         ? {
             kind: 'error',
-            text: `Saved ${toSave.length - failures.length} of ${toSave.length}. Not saved: ${failures.join('; ')}`,
+            text: `Saved ${photos.length - failures.length} of ${photos.length}. Not saved: ${failures.join('; ')}`,
           }
-        : { kind: 'ok', text: `Saved ${toSave.length} drop${toSave.length === 1 ? '' : 's'}.` };
+        : { kind: 'ok', text: `Saved ${photos.length} drop${photos.length === 1 ? '' : 's'}.` };
     });
 
-  return { saveOne, saveAll, saving, progress, message };
+  return { saveOne, saveMany, saving, progress, message };
 }

@@ -1,7 +1,15 @@
 import 'server-only';
-import { and, asc, desc, eq, isNull, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { getDb } from '../client';
-import { analyses, batches, coatings, drops, probeLiquids, samples } from '../schema';
+import {
+  analyses,
+  batches,
+  coatings,
+  drops,
+  measurementSessions,
+  probeLiquids,
+  samples,
+} from '../schema';
 import type { Baseline, FitMethod } from '@/lib/analysis/types';
 import type {
   AnalysisRevision,
@@ -21,7 +29,12 @@ export async function lockPhotoDrops(tx: Executor, photoId: string): Promise<voi
 /** The live drop saved from a photo, if any. */
 export async function findLiveDropOfPhoto(tx: Executor, photoId: string) {
   const [row] = await tx
-    .select({ id: drops.id, sampleId: drops.sampleId, probeLiquidId: drops.probeLiquidId })
+    .select({
+      id: drops.id,
+      sampleId: drops.sampleId,
+      probeLiquidId: drops.probeLiquidId,
+      sessionId: drops.sessionId,
+    })
     .from(drops)
     .where(and(eq(drops.photoId, photoId), isNull(drops.archivedAt)));
   return row ?? null;
@@ -65,6 +78,8 @@ export function engineAnalysisRow(input: {
   baseline: Baseline | null;
   options: StoredAnalysisOptions;
   result: KeptAnalysisResult;
+  reason?: string | null;
+  sessionId?: string | null;
   createdByUserId: string;
   createdAt?: Date;
 }): NewAnalysis {
@@ -165,4 +180,55 @@ export async function listProbeLiquidChoices(organizationId: string) {
     .from(probeLiquids)
     .where(and(probeLiquidVisibleTo(organizationId), isNull(probeLiquids.archivedAt)))
     .orderBy(asc(probeLiquids.name));
+}
+
+/**
+ * For each of these photos saved to a live drop: the drop's sample, liquid and session and its
+ * latest revision's number, method and baseline (what the workspace shows as saved).
+ */
+export async function listSavedStateOfPhotos(organizationId: string, photoIds: string[]) {
+  if (photoIds.length === 0) return [];
+  return getDb()
+    .selectDistinctOn([drops.photoId], {
+      photoId: sql<string>`${drops.photoId}`,
+      dropId: drops.id,
+      sampleId: drops.sampleId,
+      probeLiquidId: drops.probeLiquidId,
+      sessionId: drops.sessionId,
+      revision: analyses.revision,
+      method: analyses.method,
+      baseline: analyses.baseline,
+    })
+    .from(drops)
+    .innerJoin(analyses, eq(analyses.dropId, drops.id))
+    .where(
+      and(
+        eq(drops.organizationId, organizationId),
+        inArray(drops.photoId, photoIds),
+        isNull(drops.archivedAt),
+      ),
+    )
+    .orderBy(drops.photoId, desc(analyses.revision));
+}
+
+/** A measurement session's conditions, or null. */
+export async function getSessionConditions(organizationId: string, sessionId: string) {
+  const [row] = await getDb()
+    .select({
+      id: measurementSessions.id,
+      operatorName: measurementSessions.operatorName,
+      probeLiquidId: measurementSessions.probeLiquidId,
+      temperatureC: measurementSessions.temperatureC,
+      humidityPct: measurementSessions.humidityPct,
+      dropVolumeUl: measurementSessions.dropVolumeUl,
+      scalePxPerMm: measurementSessions.scalePxPerMm,
+    })
+    .from(measurementSessions)
+    .where(
+      and(
+        eq(measurementSessions.organizationId, organizationId),
+        eq(measurementSessions.id, sessionId),
+      ),
+    );
+  return row ?? null;
 }

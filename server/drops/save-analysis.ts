@@ -102,6 +102,19 @@ export async function saveDropAnalysis(
       });
     const placement = { sampleId: input.sampleId, probeLiquidId: input.probeLiquidId };
     const existing = await findLiveDropOfPhoto(tx, photoId);
+    const reason = input.reason?.trim() || null;
+    if (existing && !reason) {
+      throw new AppError(
+        'invalid_input',
+        'This drop is saved already: say why it is analysed again.',
+        {
+          fields: {
+            reason:
+              'Say why this drop is analysed again (e.g. baseline moved to the contact points).',
+          },
+        },
+      );
+    }
     const dropId = existing?.id ?? newId();
     const newDrop = existing
       ? []
@@ -118,12 +131,18 @@ export async function saveDropAnalysis(
         ];
     if (
       existing &&
-      (existing.sampleId !== input.sampleId || existing.probeLiquidId !== input.probeLiquidId)
+      (existing.sampleId !== input.sampleId ||
+        existing.probeLiquidId !== input.probeLiquidId ||
+        existing.sessionId !== sessionId)
     ) {
       await moveDrop(tx, dropId, { ...placement, sessionId });
       await audit('drop.update', 'drop', dropId, {
-        before: { sampleId: existing.sampleId, probeLiquidId: existing.probeLiquidId },
-        after: placement,
+        before: {
+          sampleId: existing.sampleId,
+          probeLiquidId: existing.probeLiquidId,
+          sessionId: existing.sessionId,
+        },
+        after: { ...placement, sessionId },
       });
     }
     const revision = existing ? await nextRevision(tx, dropId) : 1;
@@ -142,6 +161,8 @@ export async function saveDropAnalysis(
           settings: result.settings,
         },
         result,
+        reason,
+        sessionId,
         createdByUserId: actor.userId,
       }),
     ]);
@@ -154,6 +175,7 @@ export async function saveDropAnalysis(
         baseline: input.baseline,
         leftDeg: result.leftDeg,
         rightDeg: result.rightDeg,
+        ...(reason ? { reason } : {}),
       },
     });
     return { dropId, analysisId, revision };

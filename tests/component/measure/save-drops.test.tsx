@@ -10,7 +10,7 @@ const LIQUIDS = [
   { id: 'liquid-water', name: 'Water', hazardNote: null },
 ];
 
-const analysed = (id: string, name: string): WorkspacePhoto => ({
+const analysed = (id: string, name: string, sampleId = 'sample-1'): WorkspacePhoto => ({
   id,
   name,
   width: 640,
@@ -18,19 +18,41 @@ const analysed = (id: string, name: string): WorkspacePhoto => ({
   status: 'ready',
   error: null,
   result: null,
+  method: 'circle',
   baseline: null,
+  sampleId,
+  probeLiquidId: 'liquid-water',
+  dropId: null,
   savedRevision: null,
   dirty: true,
 });
 
-function setup(sampleId: string) {
+const SESSION_REPLY = {
+  measurementSession: {
+    id: 's1',
+    organizationId: 'org-kestrel',
+    version: 1,
+    archivedAt: null,
+    createdAt: '2026-03-02T09:00:00.000Z',
+    updatedAt: '2026-03-02T09:00:00.000Z',
+    operatorName: 'Analyst',
+    measuredAt: '2026-03-02T09:00:00.000Z',
+    probeLiquidId: 'liquid-water',
+    temperatureC: null,
+    humidityPct: null,
+    dropVolumeUl: null,
+    scalePxPerMm: null,
+    instrumentNotes: '',
+    createdByUserId: 'user-analyst',
+  },
+};
+
+function setup() {
   let reloads = 0;
   const created: string[] = [];
   const hook = renderHook(() =>
     useSaveDrops({
-      sampleId,
       session: initialSession(LIQUIDS, 'Ana Analyst'),
-      method: 'circle',
       onSessionCreated: (id) => created.push(id),
       onSaved: async () => {
         reloads += 1;
@@ -45,7 +67,7 @@ beforeEach(() => {
     photos: [
       analysed('p1', 'a.png'),
       analysed('p2', 'b.png'),
-      { ...analysed('p3', 'c.png'), dirty: false },
+      { ...analysed('p3', 'c.png'), dirty: false, savedRevision: 1, dropId: 'd3' },
     ],
   });
 });
@@ -57,13 +79,34 @@ describe('saving drops', () => {
 
   it('asks for a sample before sending anything', async () => {
     const calls = stubFetch(() => ({ body: {} }));
-    const { hook } = setup('');
-    await act(() => hook.result.current.saveAll(useWorkspace.getState().photos));
+    const { hook } = setup();
+    await act(() =>
+      hook.result.current.saveMany([analysed('p1', 'a.png'), analysed('p2', 'b.png', '')]),
+    );
     expect(hook.result.current.message).toEqual({
       kind: 'error',
-      text: 'Choose the sample these drops were placed on, then save.',
+      text: 'Choose the sample b.png was placed on, then save.',
     });
     expect(calls).toHaveLength(0);
+  });
+
+  it('asks why a saved drop is analysed again, and sends the reason with it', async () => {
+    const calls = stubFetch(({ url }) =>
+      url === '/api/measurement-sessions'
+        ? { status: 201, body: SESSION_REPLY }
+        : { status: 201, body: { revision: 2, dropId: 'd3' } },
+    );
+    const { hook } = setup();
+    const p3 = useWorkspace.getState().photos[2];
+    await act(() => hook.result.current.saveOne(p3));
+    expect(hook.result.current.message).toEqual({
+      kind: 'error',
+      text: 'c.png is saved already: say why it is analysed again.',
+    });
+    expect(calls).toHaveLength(0);
+    await act(() => hook.result.current.saveOne(p3, '  baseline on the contact points '));
+    expect(calls[1].body).toMatchObject({ reason: 'baseline on the contact points' });
+    expect(useWorkspace.getState().photos[2].savedRevision).toBe(2);
   });
 
   it('creates the session once, saves every unsaved photo and names the ones that failed', async () => {
@@ -71,25 +114,7 @@ describe('saving drops', () => {
       if (url === '/api/measurement-sessions')
         return {
           status: 201,
-          body: {
-            measurementSession: {
-              id: 's1',
-              organizationId: 'org-kestrel',
-              version: 1,
-              archivedAt: null,
-              createdAt: '2026-03-02T09:00:00.000Z',
-              updatedAt: '2026-03-02T09:00:00.000Z',
-              operatorName: 'Analyst',
-              measuredAt: '2026-03-02T09:00:00.000Z',
-              probeLiquidId: 'liquid-water',
-              temperatureC: null,
-              humidityPct: null,
-              dropVolumeUl: null,
-              scalePxPerMm: null,
-              instrumentNotes: '',
-              createdByUserId: 'user-analyst',
-            },
-          },
+          body: SESSION_REPLY,
         };
       if (url === '/api/photos/p1/drop') return { status: 201, body: { revision: 1 } };
       return {
@@ -100,8 +125,8 @@ describe('saving drops', () => {
         ),
       };
     });
-    const { hook, created, reloads } = setup('sample-1');
-    await act(() => hook.result.current.saveAll(useWorkspace.getState().photos));
+    const { hook, created, reloads } = setup();
+    await act(() => hook.result.current.saveMany(useWorkspace.getState().photos.slice(0, 2)));
     await waitFor(() => expect(hook.result.current.saving).toBe(false));
     expect(calls.map((c) => c.url)).toEqual([
       '/api/measurement-sessions',
@@ -127,7 +152,7 @@ describe('saving drops', () => {
 
   it('says nothing was lost when the server cannot be reached', async () => {
     stubFetch(() => 'offline');
-    const { hook } = setup('sample-1');
+    const { hook } = setup();
     await act(() => hook.result.current.saveOne(useWorkspace.getState().photos[0]));
     expect(hook.result.current.message?.kind).toBe('error');
     expect(hook.result.current.message?.text).toMatch(/could not be reached.*nothing was lost/);

@@ -63,8 +63,9 @@ afterAll(async () => {
   await closeDb();
 });
 
+// Every save after the first is a re-analysis, which says why.
 const save = (body: Record<string, unknown>) =>
-  POST(apiRequest(`/api/photos/${photoId}/drop`, { method: 'POST', sessionId: analyst.sessionId, body }), {
+  POST(apiRequest(`/api/photos/${photoId}/drop`, { method: 'POST', sessionId: analyst.sessionId, body: { reason: 'reproduce', ...body } }), {
     params: Promise.resolve({ id: photoId }),
   });
 

@@ -5,11 +5,11 @@ import { closeDb, getDb } from '@/db/client';
 import { ensureProbeLiquidLibrary } from '@/db/probe-liquid-library';
 import { newId } from '@/db/queries/ids';
 import { recordUploadedPhoto } from '@/server/photos/record-upload';
-import { auditEvents, batches, coatings, samples } from '@/db/schema';
+import { analyses, auditEvents, batches, coatings, samples } from '@/db/schema';
 import { GET, POST } from '@/app/api/photos/[id]/drop/route';
 import { analyseDrop } from '@/lib/analysis';
 import { decodeImageBytes } from '@/lib/analysis/node/decode';
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import { apiRequest } from '../support/request';
 import { createMember, createOrganization } from '../support/fixtures';
 
@@ -83,9 +83,23 @@ describe('saving a drop analysis', () => {
     expect(saved.result.baseline).toEqual(baseline);
   });
 
-  it('every later save is a new revision; earlier ones are kept', async () => {
-    const second = await save(analyst.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'young-laplace', baseline: null });
+  it('a later save says why (400 naming `reason` without one) and keeps the reason with its revision', async () => {
+    const unexplained = await save(analyst.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'young-laplace', baseline: null });
+    expect(unexplained.status).toBe(400);
+    expect(Object.keys((await unexplained.json()).error.fields)).toEqual(['reason']);
+    const second = await save(analyst.sessionId, {
+      sampleId,
+      probeLiquidId: 'liquid-water',
+      method: 'young-laplace',
+      baseline: null,
+      reason: 'Young–Laplace for a flattened drop',
+    });
     expect((await second.json()).revision).toBe(2);
+    const [row] = await getDb().select().from(analyses).where(and(eq(analyses.dropId, (await (await GET(apiRequest(`/api/photos/${photoId}/drop`, { sessionId: analyst.sessionId }), { params: Promise.resolve({ id: photoId }) })).json()).drop.id), eq(analyses.revision, 2)));
+    expect(row.reason).toBe('Young–Laplace for a flattened drop');
+  });
+
+  it('every later save is a new revision; earlier ones are kept', async () => {
     const listed = await GET(apiRequest(`/api/photos/${photoId}/drop`, { sessionId: analyst.sessionId }), {
       params: Promise.resolve({ id: photoId }),
     });
