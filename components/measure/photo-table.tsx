@@ -74,7 +74,7 @@ export function PhotoTable({
       <table className="w-full text-xs" aria-label="Photos">
         <thead className="sticky top-0 bg-ink-50 text-left text-ink-700">
           <tr>
-            <th className="px-2 py-1">
+            <th className="px-1.5 py-1">
               <input
                 type="checkbox"
                 aria-label="Select all photos shown"
@@ -82,17 +82,17 @@ export function PhotoTable({
                 onChange={(e) => onToggleAll(e.target.checked)}
               />
             </th>
-            <th className="px-2 py-1">File</th>
-            <th className="px-2 py-1">Sample</th>
-            <th className="px-2 py-1">Liquid</th>
-            <th className="px-2 py-1">Method</th>
-            <th className="px-2 py-1 text-right">Left</th>
-            <th className="px-2 py-1 text-right">Right</th>
-            <th className="px-2 py-1 text-right">Mean</th>
-            <th className="px-2 py-1 text-right">±</th>
-            <th className="px-2 py-1">Warnings</th>
-            <th className="px-2 py-1">State</th>
-            <th className="px-2 py-1">
+            <th className="px-1.5 py-1">File</th>
+            <th className="px-1.5 py-1">Sample</th>
+            <th className="px-1.5 py-1">Liquid</th>
+            <th className="px-1.5 py-1">Method</th>
+            <th className="px-1.5 py-1 text-right">Left</th>
+            <th className="px-1.5 py-1 text-right">Right</th>
+            <th className="px-1.5 py-1 text-right">Mean</th>
+            <th className="px-1.5 py-1 text-right">±</th>
+            <th className="px-1.5 py-1">Warnings</th>
+            <th className="px-1.5 py-1">State</th>
+            <th className="px-1.5 py-1">
               <span className="sr-only">Remove</span>
             </th>
           </tr>
@@ -110,7 +110,7 @@ export function PhotoTable({
                 aria-current={current ? 'true' : undefined}
                 className={`border-t border-ink-100 ${current ? 'bg-lagoon-50' : ''}`}
               >
-                <td className="px-2 py-1">
+                <td className="px-1.5 py-1">
                   <input
                     type="checkbox"
                     aria-label={`Select ${photo.name}`}
@@ -118,7 +118,7 @@ export function PhotoTable({
                     onChange={() => onToggle(photo.id)}
                   />
                 </td>
-                <td className="max-w-[12rem] px-2 py-1">
+                <td className="max-w-[11rem] px-1.5 py-1">
                   <button
                     type="button"
                     className="flex max-w-full items-center gap-2 text-left font-medium text-lagoon-800 underline-offset-2 hover:underline"
@@ -130,33 +130,33 @@ export function PhotoTable({
                     <img
                       src={`/api/photos/${photo.id}/thumbnail`}
                       alt=""
-                      className="h-6 w-8 shrink-0 rounded-sm object-cover"
+                      className="h-5 w-7 shrink-0 rounded-sm object-cover"
                     />
                     <span className="truncate">{photo.name}</span>
                   </button>
                 </td>
-                <td className="whitespace-nowrap px-2 py-1">
+                <td className="whitespace-nowrap px-1.5 py-1">
                   {sampleName(samples, photo.sampleId)}
                 </td>
-                <td className="whitespace-nowrap px-2 py-1">
+                <td className="whitespace-nowrap px-1.5 py-1">
                   {liquidName(liquids, photo.probeLiquidId)}
                 </td>
-                <td className="whitespace-nowrap px-2 py-1">
+                <td className="whitespace-nowrap px-1.5 py-1">
                   {METHOD_SHORT[photo.method] ?? photo.method}
                 </td>
-                <td className="px-2 py-1 text-right font-mono" data-cell="left">
+                <td className="px-1.5 py-1 text-right font-mono" data-cell="left">
                   {deg(r?.leftDeg)}
                 </td>
-                <td className="px-2 py-1 text-right font-mono" data-cell="right">
+                <td className="px-1.5 py-1 text-right font-mono" data-cell="right">
                   {deg(r?.rightDeg)}
                 </td>
-                <td className="px-2 py-1 text-right font-mono" data-cell="mean">
+                <td className="px-1.5 py-1 text-right font-mono" data-cell="mean">
                   {deg(r?.meanDeg)}
                 </td>
-                <td className="px-2 py-1 text-right font-mono">
+                <td className="px-1.5 py-1 text-right font-mono">
                   {r ? deg((r.leftUncertaintyDeg + r.rightUncertaintyDeg) / 2) : '—'}
                 </td>
-                <td className="px-2 py-1" title={warnings.map((w) => w.message).join('\n')}>
+                <td className="px-1.5 py-1" title={warnings.map((w) => w.message).join('\n')}>
                   {photo.status === 'failed' ? (
                     <span className="text-coral-700">{photo.error}</span>
                   ) : warnings.length ? (
@@ -169,7 +169,7 @@ export function PhotoTable({
                     '—'
                   )}
                 </td>
-                <td className="whitespace-nowrap px-2 py-1">
+                <td className="whitespace-nowrap px-1.5 py-1">
                   <span
                     className={`rounded px-1.5 py-0.5 font-medium text-white ${badge.tone}`}
                     data-testid="photo-state"
@@ -177,7 +177,7 @@ export function PhotoTable({
                     {badge.label}
                   </span>
                 </td>
-                <td className="px-2 py-1">
+                <td className="px-1.5 py-1">
                   {photo.savedRevision === null ? (
                     <button
                       type="button"

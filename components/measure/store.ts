@@ -105,12 +105,19 @@ export const useWorkspace = create<WorkspaceState>((set) => ({
           savedRevision: saved?.revision ?? null,
           dirty: !saved,
         }));
+      if (options.upload) {
+        // An upload of a photo already listed (the same file again) ticks and shows it too.
+        const ids = incoming.map((p) => p.id);
+        return {
+          photos: [...state.photos, ...added],
+          selectedId: ids[ids.length - 1] ?? state.selectedId,
+          checked: [...state.checked, ...ids.filter((id) => !state.checked.includes(id))],
+        };
+      }
       if (added.length === 0) return {};
-      const last = added[added.length - 1].id;
       return {
         photos: [...state.photos, ...added],
-        selectedId: options.upload ? last : (state.selectedId ?? added[0].id),
-        checked: options.upload ? [...state.checked, ...added.map((p) => p.id)] : state.checked,
+        selectedId: state.selectedId ?? added[0].id,
       };
     }),
   select: (id) => set({ selectedId: id, selectedHandle: null }),

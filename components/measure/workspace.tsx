@@ -144,7 +144,7 @@ export function MeasureWorkspace(props: {
                 {removing.message}
               </p>
             ) : null}
-            <div className="grid gap-4 xl:grid-cols-[minmax(0,1.1fr)_minmax(0,1fr)]">
+            <div className="grid gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
               <PhotoTable
                 photos={shown}
                 samples={props.samples}

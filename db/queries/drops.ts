@@ -7,8 +7,10 @@ import {
   coatings,
   drops,
   measurementSessions,
+  photos,
   probeLiquids,
   samples,
+  users,
 } from '../schema';
 import type { Baseline, FitMethod } from '@/lib/analysis/types';
 import type {
@@ -231,4 +233,72 @@ export async function getSessionConditions(organizationId: string, sessionId: st
       ),
     );
   return row ?? null;
+}
+
+/** A drop of the organization with where it sits and its photo, or null. */
+export async function getDropDetail(organizationId: string, dropId: string) {
+  const [row] = await getDb()
+    .select({
+      id: drops.id,
+      source: drops.source,
+      measuredAt: drops.measuredAt,
+      archivedAt: drops.archivedAt,
+      sampleLabel: samples.label,
+      batchId: batches.id,
+      lotCode: batches.lotCode,
+      coatingCode: coatings.code,
+      coatingName: coatings.name,
+      liquidName: probeLiquids.name,
+      photoId: photos.id,
+      photoName: photos.originalName,
+      photoWidth: photos.width,
+      photoHeight: photos.height,
+    })
+    .from(drops)
+    .innerJoin(samples, eq(samples.id, drops.sampleId))
+    .innerJoin(batches, eq(batches.id, samples.batchId))
+    .innerJoin(coatings, eq(coatings.id, batches.coatingId))
+    .innerJoin(probeLiquids, eq(probeLiquids.id, drops.probeLiquidId))
+    .leftJoin(photos, eq(photos.id, drops.photoId))
+    .where(and(eq(drops.organizationId, organizationId), eq(drops.id, dropId)));
+  return row ?? null;
+}
+
+/**
+ * A drop's revisions, newest first, each with who made it, why, and the conditions of its
+ * session (the revision's own, else the drop's for revisions saved before sessions were kept
+ * per revision).
+ */
+export async function listDropRevisions(dropId: string) {
+  const session = sql`coalesce(${analyses.sessionId}, ${drops.sessionId})`;
+  return getDb()
+    .select({
+      id: analyses.id,
+      revision: analyses.revision,
+      createdAt: analyses.createdAt,
+      createdBy: users.name,
+      method: analyses.method,
+      baseline: analyses.baseline,
+      options: analyses.options,
+      reason: analyses.reason,
+      reviewStatus: analyses.reviewStatus,
+      leftDeg: analyses.leftDeg,
+      rightDeg: analyses.rightDeg,
+      meanDeg: analyses.meanDeg,
+      leftUncertaintyDeg: analyses.leftUncertaintyDeg,
+      rightUncertaintyDeg: analyses.rightUncertaintyDeg,
+      softwareVersion: analyses.softwareVersion,
+      warnings: sql<{ code: string; message: string }[] | null>`${analyses.result} -> 'warnings'`,
+      operatorName: measurementSessions.operatorName,
+      temperatureC: measurementSessions.temperatureC,
+      humidityPct: measurementSessions.humidityPct,
+      dropVolumeUl: measurementSessions.dropVolumeUl,
+      scalePxPerMm: measurementSessions.scalePxPerMm,
+    })
+    .from(analyses)
+    .innerJoin(drops, eq(drops.id, analyses.dropId))
+    .leftJoin(users, eq(users.id, analyses.createdByUserId))
+    .leftJoin(measurementSessions, sql`${measurementSessions.id} = ${session}`)
+    .where(eq(analyses.dropId, dropId))
+    .orderBy(desc(analyses.revision));
 }

@@ -140,11 +140,12 @@ async function dragAndMeasure(page: Page, moves: number) {
     }).observe(element, { attributes: true });
   });
   const box = await canvas(page).boundingBox();
-  const baseline = (await canvas(page).getAttribute('data-baseline'))!.split(',').map(Number);
+  // The right handle, where the canvas draws it (at the contact point, inside the frame).
+  const handles = (await canvas(page).getAttribute('data-handles'))!.split(',').map(Number);
   const scale = Number(await canvas(page).getAttribute('data-scale'));
   if (!box) throw new Error('canvas not visible');
-  const grabX = box.x + Math.min(baseline[2] * scale, box.width) - 3;
-  const grabY = box.y + baseline[3] * scale;
+  const grabX = box.x + handles[2] * scale;
+  const grabY = box.y + handles[3] * scale;
   await page.mouse.move(grabX, grabY);
   await page.mouse.down();
   for (let i = 1; i <= moves; i++) {

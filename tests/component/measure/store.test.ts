@@ -19,11 +19,16 @@ describe('the workspace table', () => {
     const { addPhotos } = useWorkspace.getState();
     addPhotos([photo('a')]);
     addPhotos([photo('b'), photo('c')], { upload: true });
-    addPhotos([photo('b')], { upload: true });
-    const state = useWorkspace.getState();
+    let state = useWorkspace.getState();
     expect(state.photos.map((p) => p.id)).toEqual(['a', 'b', 'c']);
     expect(state.selectedId).toBe('c');
     expect(state.checked).toEqual(['b', 'c']);
+    // The same file again (the server answers with the photo it has): ticked and shown, not added.
+    addPhotos([photo('a')], { upload: true });
+    state = useWorkspace.getState();
+    expect(state.photos.map((p) => p.id)).toEqual(['a', 'b', 'c']);
+    expect(state.selectedId).toBe('a');
+    expect(state.checked).toEqual(['b', 'c', 'a']);
     expect(state.photos[1]).toMatchObject({ sampleId: 's-default', probeLiquidId: 'water' });
   });
 
