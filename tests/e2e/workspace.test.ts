@@ -133,7 +133,7 @@ describe('a morning of photos in the workspace table', () => {
       expect(await row.textContent()).toContain('new drop');
     }
     await dialog.getByRole('button', { name: 'Save 10 drops' }).click();
-    await page.getByText('Saved 10 drops.').waitFor({ timeout: 240_000 });
+    await page.getByText('Saved 10 drops.').waitFor({ timeout: 480_000 });
     expect(await statesOf(page)).toEqual(Array(10).fill('Saved r1'));
 
     // The server kept each on the sample it was given.
@@ -157,7 +157,7 @@ describe('a morning of photos in the workspace table', () => {
     expect(await statesOf(page)).toEqual(Array(10).fill('Saved r1'));
     expect(await rowOf(page, names[6]).count()).toBe(0);
     await context.close();
-  }, 600_000);
+  }, 900_000);
 
   it('opens a saved drop from its batch page, re-saves it with a reason, conditions kept', async () => {
     const context = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
