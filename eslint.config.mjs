@@ -30,6 +30,7 @@ const CORE = [
   'lib/contracts/**',
   'lib/measure/**',
   'lib/dynamic/**',
+  'lib/compute/**',
 ];
 
 /** Node-only pieces of the core (decoding files, running ffmpeg) live in a node/ folder. */

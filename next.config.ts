@@ -3,7 +3,17 @@ import { API_CONTENT_SECURITY_POLICY, SECURITY_HEADERS } from './lib/auth/securi
 
 const nextConfig: NextConfig = {
   // Native or Node-only packages stay outside the server bundle.
-  serverExternalPackages: ['sharp', '@node-rs/argon2', 'postgres', 'opencv-wasm', 'pg-boss', 'pg', 'nodemailer'],
+  // piscina starts worker threads from its own files (server/compute/pool.ts).
+  serverExternalPackages: [
+    'sharp',
+    '@node-rs/argon2',
+    'postgres',
+    'opencv-wasm',
+    'pg-boss',
+    'pg',
+    'nodemailer',
+    'piscina',
+  ],
   poweredByHeader: false,
   // nosniff, no framing, a referrer policy on every answer; pages get their Content-Security-
   // Policy with a nonce from proxy.ts, API answers one that forbids framing.

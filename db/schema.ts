@@ -20,6 +20,11 @@ import { sql } from 'drizzle-orm';
 import type { FitMethod } from '../lib/analysis/types';
 import type { ProcessParameters } from '../lib/contracts/batches';
 import type { StoredAnalysisOptions, StoredAnalysisResult } from '../lib/contracts/drops';
+import type {
+  StoredDynamicOptions,
+  StoredDynamicResult,
+  StoredSeries,
+} from '../lib/contracts/dynamic';
 import type { Signature } from '../lib/contracts/reviews';
 import type { SurfaceEnergyInputs } from '../lib/contracts/surface-energy';
 import type { TensiometryInputs, TensiometryOutputs } from '../lib/contracts/tensiometry';
@@ -275,6 +280,15 @@ export const specs = pgTable(
     maxSurfaceEnergyMnM: doublePrecision('max_surface_energy_mn_m'),
     /** Results count only within this many days of treatment (e.g. plasma-treated film). */
     maxDaysSinceTreatment: doublePrecision('max_days_since_treatment'),
+    /** Limits on dynamic wetting (series of frames): advancing, receding, hysteresis, roll-off (°). */
+    minAdvancingDeg: doublePrecision('min_advancing_deg'),
+    maxAdvancingDeg: doublePrecision('max_advancing_deg'),
+    minRecedingDeg: doublePrecision('min_receding_deg'),
+    maxRecedingDeg: doublePrecision('max_receding_deg'),
+    minHysteresisDeg: doublePrecision('min_hysteresis_deg'),
+    maxHysteresisDeg: doublePrecision('max_hysteresis_deg'),
+    minRollOffDeg: doublePrecision('min_roll_off_deg'),
+    maxRollOffDeg: doublePrecision('max_roll_off_deg'),
     note: text('note').notNull().default(''),
     ...recordTail(),
   },
@@ -344,18 +358,27 @@ export const measurementSessions = pgTable(
 );
 
 /** An uploaded drop photo, as checked on the server. */
-export const photoPurposeEnum = pgEnum('photo_purpose', ['sessile-drop', 'pendant-drop']);
+export const photoPurposeEnum = pgEnum('photo_purpose', [
+  'sessile-drop',
+  'pendant-drop',
+  'series-frame',
+]);
+
+/** The columns of a file stored through the upload service, in the order of its table. */
+const storedFileColumns = () => ({
+  id: text('id').primaryKey(),
+  organizationId: orgRef(),
+  uploadedByUserId: userRef('uploaded_by_user_id'),
+  fileKey: text('file_key').notNull(),
+  url: text('url').notNull(),
+  originalName: text('original_name').notNull(),
+  sizeBytes: integer('size_bytes').notNull(),
+});
 
 export const photos = pgTable(
   'photos',
   {
-    id: text('id').primaryKey(),
-    organizationId: orgRef(),
-    uploadedByUserId: userRef('uploaded_by_user_id'),
-    fileKey: text('file_key').notNull(),
-    url: text('url').notNull(),
-    originalName: text('original_name').notNull(),
-    sizeBytes: integer('size_bytes').notNull(),
+    ...storedFileColumns(),
     format: text('format').notNull(),
     width: integer('width').notNull(),
     height: integer('height').notNull(),
@@ -439,6 +462,111 @@ export const analyses = pgTable(
 );
 
 // ---------------------------------------------------------------------------------------------
+// Dynamic wetting: a series of frames of one drop (a video through the upload service, or frame
+// photos with a rate), analysed by the server before it is saved; revisions as for drops.
+// ---------------------------------------------------------------------------------------------
+
+/** A video uploaded through the upload service, as ffprobe read it on the server. */
+export const videos = pgTable(
+  'videos',
+  {
+    ...storedFileColumns(),
+    codec: text('codec').notNull(),
+    width: integer('width').notNull(),
+    height: integer('height').notNull(),
+    fps: doublePrecision('fps'),
+    frameCount: integer('frame_count'),
+    sha256: text('sha256').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index('videos_org_time_idx').on(t.organizationId, t.createdAt),
+    uniqueIndex('videos_file_key_unique').on(t.fileKey),
+  ],
+);
+
+export const dynamicKindEnum = pgEnum('dynamic_kind', [
+  'grow-and-withdraw',
+  'growing',
+  'shrinking',
+  'tilt',
+  'over-time',
+]);
+
+/** One series of one drop of one probe liquid on one sample. */
+export const dynamicMeasurements = pgTable(
+  'dynamic_measurements',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    sampleId: text('sample_id')
+      .notNull()
+      .references(() => samples.id),
+    probeLiquidId: text('probe_liquid_id')
+      .notNull()
+      .references(() => probeLiquids.id),
+    sessionId: text('session_id').references(() => measurementSessions.id),
+    kind: dynamicKindEnum('kind').notNull(),
+    sourceType: text('source_type').$type<'video' | 'frames'>().notNull(),
+    /** The stored video (no action on delete: a kept result is only checkable with its source). */
+    videoId: text('video_id').references(() => videos.id),
+    /** The frame photos in order, for a series of frames. */
+    framePhotoIds: jsonb('frame_photo_ids').$type<string[] | null>(),
+    fps: doublePrecision('fps').notNull(),
+    measuredAt: timestamp('measured_at', { withTimezone: true }).notNull().defaultNow(),
+    archivedAt: archivedAt(),
+    createdByUserId: userRef('created_by_user_id'),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index('dynamic_measurements_sample_idx').on(t.sampleId),
+    index('dynamic_measurements_org_time_idx').on(t.organizationId, t.measuredAt),
+    index('dynamic_measurements_video_idx').on(t.videoId),
+    check(
+      'dynamic_measurements_one_source',
+      sql`(${t.videoId} is null) <> (${t.framePhotoIds} is null)`,
+    ),
+  ],
+);
+
+/** A computed result for a series; every re-analysis is a new revision, none is overwritten. */
+export const dynamicAnalyses = pgTable(
+  'dynamic_analyses',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    measurementId: text('measurement_id')
+      .notNull()
+      .references(() => dynamicMeasurements.id, { onDelete: 'cascade' }),
+    revision: integer('revision').notNull(),
+    method: analysisMethodEnum('method').notNull(),
+    options: jsonb('options').$type<StoredDynamicOptions>().notNull(),
+    /** Phases, windows, advancing/receding statistics, roll-off, angle over time, warnings. */
+    result: jsonb('result').$type<StoredDynamicResult>().notNull(),
+    /** Every frame's angles, base diameter, volume, tilt and warnings. */
+    series: jsonb('series').$type<StoredSeries>().notNull(),
+    advancingDeg: doublePrecision('advancing_deg'),
+    advancingSdDeg: doublePrecision('advancing_sd_deg'),
+    advancingFrames: integer('advancing_frames'),
+    recedingDeg: doublePrecision('receding_deg'),
+    recedingSdDeg: doublePrecision('receding_sd_deg'),
+    recedingFrames: integer('receding_frames'),
+    hysteresisDeg: doublePrecision('hysteresis_deg'),
+    rollOffDeg: doublePrecision('roll_off_deg'),
+    frameCount: integer('frame_count').notNull(),
+    flaggedFrameCount: integer('flagged_frame_count').notNull(),
+    softwareVersion: text('software_version').notNull(),
+    reviewStatus: reviewStatusEnum('review_status').notNull().default('draft'),
+    createdByUserId: userRef('created_by_user_id'),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('dynamic_analyses_measurement_revision_unique').on(t.measurementId, t.revision),
+    index('dynamic_analyses_org_idx').on(t.organizationId),
+  ],
+);
+
+// ---------------------------------------------------------------------------------------------
 // Account tokens sent by e-mail. Only the SHA-256 of each single-use token is stored; the token
 // itself is only ever in the mail.
 // ---------------------------------------------------------------------------------------------
@@ -510,6 +638,7 @@ export const reviewOutcomeEnum = pgEnum('review_outcome', [
   'approved',
   'rejected',
   'withdrawn',
+  'revoked',
 ]);
 
 export const reviews = pgTable(
@@ -534,10 +663,38 @@ export const reviews = pgTable(
     decisionComment: text('decision_comment').notNull().default(''),
     /** Who signed, when, how, and a digest of exactly what was signed. */
     signature: jsonb('signature').$type<Signature | null>(),
+    /** An approval withdrawn later: only by an explicit revocation with its reason. */
+    revokedByUserId: userRef('revoked_by_user_id'),
+    revokedAt: timestamp('revoked_at', { withTimezone: true }),
+    revokeReason: text('revoke_reason').notNull().default(''),
   },
   (t) => [
     index('reviews_org_status_idx').on(t.organizationId, t.status, t.submittedAt),
     index('reviews_batch_idx').on(t.batchId),
+  ],
+);
+
+/**
+ * The analysis revisions of each review, one row each. `open` is true while the review waits
+ * for its decision; the partial unique index keeps an analysis in at most one open review, so
+ * two simultaneous submissions can never both take the same results.
+ */
+export const reviewItems = pgTable(
+  'review_items',
+  {
+    reviewId: text('review_id')
+      .notNull()
+      .references(() => reviews.id, { onDelete: 'cascade' }),
+    analysisId: text('analysis_id')
+      .notNull()
+      .references(() => analyses.id, { onDelete: 'cascade' }),
+    open: boolean('open').notNull().default(true),
+  },
+  (t) => [
+    primaryKey({ columns: [t.reviewId, t.analysisId] }),
+    uniqueIndex('review_items_open_analysis_unique')
+      .on(t.analysisId)
+      .where(sql`${t.open}`),
   ],
 );
 
@@ -631,3 +788,59 @@ export const batchVerdicts = pgTable('batch_verdicts', {
   outcome: text('outcome').$type<'pass' | 'fail' | 'not-enough-data' | 'no-spec'>().notNull(),
   updatedAt: updatedAt(),
 });
+
+// ---------------------------------------------------------------------------------------------
+// The versioned API (/api/v1): tokens for instruments and LIMS, and idempotent replies.
+// ---------------------------------------------------------------------------------------------
+
+/** What an API token may do: read records and results, measure (create and post photos), or both. */
+export const apiTokenScopeEnum = pgEnum('api_token_scope', ['read', 'measure', 'read-measure']);
+
+/**
+ * A bearer token of an organization, made by an admin. Only its SHA-256 is kept (as the mailed
+ * tokens, lib/auth/tokens.ts); the token is shown once. Accepted by /api/v1 only.
+ */
+export const apiTokens = pgTable(
+  'api_tokens',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    name: text('name').notNull(),
+    scope: apiTokenScopeEnum('scope').notNull(),
+    /** The first characters of the token, to tell tokens apart in the list. */
+    prefix: text('prefix').notNull(),
+    tokenHash: text('token_hash').notNull(),
+    createdByUserId: text('created_by_user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    lastUsedAt: timestamp('last_used_at', { withTimezone: true }),
+    lastUsedAddress: text('last_used_address'),
+    revokedAt: timestamp('revoked_at', { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('api_tokens_token_hash_unique').on(t.tokenHash),
+    index('api_tokens_org_idx').on(t.organizationId),
+  ],
+);
+
+/**
+ * The reply to a request sent with an Idempotency-Key: the same token and key answer the same
+ * reply again instead of doing the work twice. `status` null while the first request runs.
+ */
+export const apiIdempotencyKeys = pgTable(
+  'api_idempotency_keys',
+  {
+    tokenId: text('token_id')
+      .notNull()
+      .references(() => apiTokens.id, { onDelete: 'cascade' }),
+    key: text('key').notNull(),
+    /** SHA-256 of method, path and body: the same key with another request is refused. */
+    requestHash: text('request_hash').notNull(),
+    status: integer('status'),
+    body: jsonb('body'),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.tokenId, t.key] })],
+);

@@ -10,16 +10,23 @@ export class AppError extends Error {
   readonly fields?: Record<string, string>;
   /** Merged into the body next to `error`, e.g. `{ current }` with stale_version. */
   readonly extra?: Record<string, unknown>;
+  /** When to try again (a 429): the route wrapper sends it as Retry-After. */
+  readonly retryAfterSeconds?: number;
 
   constructor(
     readonly code: ErrorCode,
     message: string,
-    options: { fields?: Record<string, string>; extra?: Record<string, unknown> } = {},
+    options: {
+      fields?: Record<string, string>;
+      extra?: Record<string, unknown>;
+      retryAfterSeconds?: number;
+    } = {},
   ) {
     super(message);
     this.name = 'AppError';
     this.fields = options.fields;
     this.extra = options.extra;
+    this.retryAfterSeconds = options.retryAfterSeconds;
   }
 
   toBody(): ErrorBody & Record<string, unknown> {

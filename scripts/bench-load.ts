@@ -15,37 +15,16 @@
  * server. The load generator shares the machine's cores with the server, as in issue 12.
  */
 import autocannon from 'autocannon';
-import { DEMO_PASSWORD, DEMO_USERS } from '../db/demo';
-import { postSignInForm } from './sign-in-form';
+import { benchOrigin, ms, percentile, signInDemo } from './bench-target';
 
-const DEFAULT_PORT = process.env.PORT ?? '3000';
-const baseUrl = new URL(
-  process.env.BENCH_URL ?? process.env.APP_URL ?? `http://127.0.0.1:${DEFAULT_PORT}`,
-);
+const origin = benchOrigin();
 const seconds = Number(process.env.BENCH_SECONDS ?? 30);
 const connections = Number(process.env.BENCH_CONNECTIONS ?? 50);
 const COATING = process.env.BENCH_COATING ?? 'HT-200';
 
-const LOOPBACK = new Set(['127.0.0.1', 'localhost', '[::1]', '::1']);
-if (!LOOPBACK.has(baseUrl.hostname)) {
-  console.error(`bench:load runs against a loopback address only, not ${baseUrl.host}.`);
-  process.exit(2);
-}
 if (!(seconds > 0 && seconds <= 300) || !(connections > 0 && connections <= 500)) {
   console.error('BENCH_SECONDS must be 1–300 and BENCH_CONNECTIONS 1–500.');
   process.exit(2);
-}
-
-const origin = baseUrl.origin;
-
-async function signIn(email: string): Promise<string> {
-  const answer = await postSignInForm(origin, { email, password: DEMO_PASSWORD });
-  if (!answer.cookie) {
-    throw new Error(
-      `Signing in as ${email} failed (status ${answer.status}). Is the demo seeded (npm start does it)?`,
-    );
-  }
-  return answer.cookie;
 }
 
 type Target = { name: string; path: string; cookie: string };
@@ -60,12 +39,6 @@ type Row = {
   errors: number;
 };
 
-function percentile(sorted: number[], p: number): number {
-  if (sorted.length === 0) return NaN;
-  const index = Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1);
-  return sorted[Math.max(0, index)]!;
-}
-
 async function warmUp(target: Target): Promise<void> {
   for (let i = 0; i < 3; i++) {
     const response = await fetch(`${origin}${target.path}`, {
@@ -74,7 +47,9 @@ async function warmUp(target: Target): Promise<void> {
     });
     await response.arrayBuffer();
     if (response.status !== 200) {
-      throw new Error(`${target.name}: GET ${target.path} answered ${response.status} before the run.`);
+      throw new Error(
+        `${target.name}: GET ${target.path} answered ${response.status} before the run.`,
+      );
     }
   }
 }
@@ -107,13 +82,9 @@ async function measure(target: Target): Promise<Row> {
   };
 }
 
-function demoEmail(role: (typeof DEMO_USERS)[number]['role']): string {
-  return DEMO_USERS.find((user) => user.role === role)!.email;
-}
-
 async function main(): Promise<void> {
-  const admin = await signIn(demoEmail('admin'));
-  const viewer = await signIn(demoEmail('viewer'));
+  const admin = await signInDemo(origin, 'admin');
+  const viewer = await signInDemo(origin, 'viewer');
   const list = await fetch(`${origin}/api/batches?pageSize=50`, { headers: { cookie: admin } });
   const batches = (await list.json()) as { items?: { id: string }[] };
   const batchId = batches.items?.[0]?.id;
@@ -122,7 +93,11 @@ async function main(): Promise<void> {
   const targets: Target[] = [
     { name: 'GET /api/batches?pageSize=50', path: '/api/batches?pageSize=50', cookie: admin },
     { name: 'GET /api/batches/{id}', path: `/api/batches/${batchId}`, cookie: admin },
-    { name: `GET /api/compare/drops.csv`, path: `/api/compare/drops.csv?coating=${COATING}`, cookie: admin },
+    {
+      name: `GET /api/compare/drops.csv`,
+      path: `/api/compare/drops.csv?coating=${COATING}`,
+      cookie: admin,
+    },
     { name: `page /compare`, path: `/compare?coating=${COATING}`, cookie: admin },
     { name: 'page /batches (viewer)', path: '/batches', cookie: viewer },
     { name: 'page /dashboard', path: '/dashboard', cookie: admin },
@@ -136,7 +111,6 @@ async function main(): Promise<void> {
     const row = rows.at(-1)!;
     console.log(`  measured ${row.route}`);
   }
-  const ms = (v: number) => (Number.isFinite(v) ? `${Math.round(v)} ms` : '—');
   const header = ['route', 'requests', 'req/s', 'p50', 'p95', 'p99', 'errors'];
   const table = rows.map((r) => [
     r.route,
@@ -152,7 +126,9 @@ async function main(): Promise<void> {
     `| ${cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]!) : c.padStart(widths[i]!))).join(' | ')} |`;
   console.log('');
   console.log(line(header));
-  console.log(`|${widths.map((w, i) => (i === 0 ? '-'.repeat(w + 2) : `${'-'.repeat(w + 1)}:`)).join('|')}|`);
+  console.log(
+    `|${widths.map((w, i) => (i === 0 ? '-'.repeat(w + 2) : `${'-'.repeat(w + 1)}:`)).join('|')}|`,
+  );
   for (const row of table) console.log(line(row));
 }
 

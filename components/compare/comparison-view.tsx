@@ -393,6 +393,17 @@ export function ComparisonView({ comparison }: { comparison: Comparison }) {
           referenceLot={comparison.referenceBatch?.lotCode ?? null}
         />
       ))}
+      {comparison.dynamic.map((q) => (
+        // A dynamic quantity reads like a liquid of its own: each series counts as one drop.
+        <LiquidSection
+          key={`${q.liquid.id}-${q.quantity}`}
+          liquid={{
+            ...q,
+            liquid: { ...q.liquid, id: `${q.liquid.id}-${q.quantity}`, name: q.title },
+          }}
+          referenceLot={comparison.referenceBatch?.lotCode ?? null}
+        />
+      ))}
       {comparison.surfaceEnergy ? <SurfaceEnergySection se={comparison.surfaceEnergy} /> : null}
     </div>
   );

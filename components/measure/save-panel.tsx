@@ -5,7 +5,7 @@ import { SelectField, TextAreaField } from '@/components/ui/fields';
 import { SampleSelect } from './sample-select';
 import type { WorkspacePhoto } from './store';
 import type { LiquidChoice, SampleChoice } from './types';
-import type { SaveMessage } from './use-save-drops';
+import type { SaveMessage, StaleSave } from './use-save-drops';
 
 /**
  * The shown photo's sample and probe liquid and its save button (with the reason when its drop
@@ -20,6 +20,8 @@ export function SavePanel({
   progress,
   message,
   onSaveOne,
+  stale = [],
+  onReload,
 }: {
   photo: WorkspacePhoto | null;
   samples: SampleChoice[];
@@ -29,6 +31,9 @@ export function SavePanel({
   progress: { done: number; total: number } | null;
   message: SaveMessage | null;
   onSaveOne(reason: string): void;
+  /** Saves refused because the drop was saved since it was loaded. */
+  stale?: StaleSave[];
+  onReload?: (entry: StaleSave) => void;
 }) {
   const [reason, setReason] = useState('');
   const resave = photo?.savedRevision !== null && photo?.savedRevision !== undefined;
@@ -94,6 +99,22 @@ export function SavePanel({
           {message.text}
         </p>
       ) : null}
+      {stale.map((entry) => (
+        <div
+          key={entry.photoId}
+          role="alert"
+          data-testid="stale-save"
+          className="space-y-2 rounded-md border border-amber-100 bg-amber-50 px-3 py-2 text-sm text-amber-900"
+        >
+          <p>
+            {entry.photoName} was saved as revision {entry.current} by another tab or person since
+            you loaded it. Your analysis was not saved.
+          </p>
+          <button type="button" className="btn-quiet" onClick={() => onReload?.(entry)}>
+            Reload revision {entry.current}
+          </button>
+        </div>
+      ))}
     </section>
   );
 }

@@ -68,6 +68,8 @@ type WorkspaceState = {
   setResult(id: string, result: AnalysisResult): void;
   setBaseline(id: string, baseline: Baseline | null): void;
   markSaved(id: string, revision: number, dropId?: string): void;
+  /** After a stale save: the next save is based on `revision`; the user's work stays. */
+  rebase(id: string, revision: number): void;
   removePhotos(ids: string[]): void;
 };
 
@@ -177,6 +179,8 @@ export const useWorkspace = create<WorkspaceState>((set) => ({
         dirty: false,
       })),
     })),
+  rebase: (id, revision) =>
+    set((state) => ({ photos: mapPhotos(state.photos, [id], () => ({ savedRevision: revision })) })),
   removePhotos: (ids) =>
     set((state) => {
       const photos = state.photos.filter((p) => !ids.includes(p.id));

@@ -1,12 +1,23 @@
 'use client';
 
 import { useState } from 'react';
+import { ApiError } from '@/components/data/api-error';
 import { useMutation, type MutationResult } from '@/components/data/use-mutation';
 import { measurementSessionReplies } from '@/lib/contracts/measurement-sessions';
 import { useWorkspace, type WorkspacePhoto } from './store';
 import { scaleOf, type SessionDetails } from './types';
 
 export type SaveMessage = { kind: 'ok' | 'error'; text: string };
+
+/** A save refused because the drop was saved since it was loaded: the revision it has now. */
+export type StaleSave = { photoId: string; photoName: string; current: number };
+
+/** The latest revision a 409 stale_revision names, or null for any other error. */
+function staleRevisionOf(error: unknown): number | null {
+  if (!(error instanceof ApiError) || error.code !== 'stale_revision') return null;
+  const current = error.extra.current as { revision?: unknown } | undefined;
+  return typeof current?.revision === 'number' ? current.revision : null;
+}
 
 const must = <T>(result: MutationResult<T>): T => {
   if (!result.ok) throw result.error;
@@ -40,6 +51,9 @@ export function useSaveDrops({
   onSaved: () => Promise<unknown>;
 }) {
   const markSaved = useWorkspace((state) => state.markSaved);
+  const rebase = useWorkspace((state) => state.rebase);
+  const select = useWorkspace((state) => state.select);
+  const [stale, setStale] = useState<StaleSave[]>([]);
   const send = useMutation();
   const [message, setMessage] = useState<SaveMessage | null>(null);
   const [saving, setSaving] = useState(false);
@@ -83,11 +97,35 @@ export function useSaveDrops({
           baseline: photo.baseline,
           scalePxPerMm: scale,
           ...(photo.savedRevision !== null ? { reason: reason.trim() } : {}),
+          expectedRevision: photo.savedRevision ?? 0,
         },
       }),
     ) as { revision: number; dropId: string };
+    setStale((list) => list.filter((s) => s.photoId !== photo.id));
     markSaved(photo.id, saved.revision, saved.dropId);
     return saved.revision;
+  }
+
+  /** Notes a stale save so the workspace can offer to reload that drop's current revision. */
+  function noteStale(photo: WorkspacePhoto, error: unknown) {
+    const current = staleRevisionOf(error);
+    if (current === null) return;
+    setStale((list) => [
+      ...list.filter((s) => s.photoId !== photo.id),
+      { photoId: photo.id, photoName: photo.name, current },
+    ]);
+  }
+
+  /** Takes the drop's current revision as the base of the next save and shows it. */
+  async function reloadCurrent(entry: StaleSave) {
+    rebase(entry.photoId, entry.current);
+    select(entry.photoId);
+    setStale((list) => list.filter((s) => s.photoId !== entry.photoId));
+    setMessage({
+      kind: 'ok',
+      text: `Revision ${entry.current} of ${entry.photoName} is loaded in Saved revisions. Saving again makes your analysis revision ${entry.current + 1}.`,
+    });
+    await onSaved();
   }
 
   /** Runs `save` with the checks, the busy state and the message around it. */
@@ -120,7 +158,14 @@ export function useSaveDrops({
 
   const saveOne = (photo: WorkspacePhoto, reason = '') =>
     guarded([photo], reason, async () => {
-      const revision = await savePhoto(photo, await ensureSession([photo.probeLiquidId]), reason);
+      const sessionId = await ensureSession([photo.probeLiquidId]);
+      let revision: number;
+      try {
+        revision = await savePhoto(photo, sessionId, reason);
+      } catch (error) {
+        noteStale(photo, error);
+        throw error;
+      }
       await onSaved();
       return { kind: 'ok', text: `Saved as revision ${revision}.` };
     });
@@ -134,6 +179,7 @@ export function useSaveDrops({
         try {
           await savePhoto(photo, sessionId, reason);
         } catch (error) {
+          noteStale(photo, error);
           failures.push(`${photo.name}: ${error instanceof Error ? error.message : 'not saved'}`);
         }
         setProgress({ done: i + 1, total: photos.length });
@@ -147,5 +193,5 @@ export function useSaveDrops({
         : { kind: 'ok', text: `Saved ${photos.length} drop${photos.length === 1 ? '' : 's'}.` };
     });
 
-  return { saveOne, saveMany, saving, progress, message };
+  return { saveOne, saveMany, saving, progress, message, stale, reloadCurrent };
 }

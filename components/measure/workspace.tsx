@@ -230,6 +230,8 @@ export function MeasureWorkspace(props: {
           progress={saving.progress}
           message={saving.message}
           onSaveOne={(reason) => selected && void saving.saveOne(selected, reason)}
+          stale={saving.stale}
+          onReload={(entry) => void saving.reloadCurrent(entry)}
         />
         {liquid?.hazardNote ? (
           <p

@@ -5,6 +5,7 @@ import { DataTable } from '@/components/ui/data-table';
 import { EmptyState } from '@/components/ui/empty-state';
 import { NumberField, SelectField, TextAreaField, type Choice } from '@/components/ui/fields';
 import {
+  DYNAMIC_LIMITS,
   specCreateSchema,
   specReplies,
   specUpdateSchema,
@@ -122,6 +123,15 @@ export function SpecsPanel({
   );
 }
 
+/** "Min advancing angle (°)", … for each dynamic-wetting limit. */
+const DYNAMIC_LABELS: Record<string, string> = Object.fromEntries(
+  DYNAMIC_LIMITS.flatMap(([name, min, max]) => [
+    [min, `Min ${name} (°)`],
+    [max, `Max ${name} (°)`],
+  ]),
+);
+const DYNAMIC_KEYS = Object.keys(DYNAMIC_LABELS);
+
 const LABELS = {
   probeLiquidId: 'Probe liquid',
   scope: 'Applies to',
@@ -129,6 +139,7 @@ const LABELS = {
   maxDeg: 'Max angle (°)',
   minSurfaceEnergyMnM: 'Min surface energy (mN/m)',
   maxSurfaceEnergyMnM: 'Max surface energy (mN/m)',
+  ...DYNAMIC_LABELS,
   maxDaysSinceTreatment: 'Within days of treatment',
   note: 'Note',
 };
@@ -169,6 +180,7 @@ export function SpecForm({
       maxDeg: '',
       minSurfaceEnergyMnM: '',
       maxSurfaceEnergyMnM: '',
+      ...Object.fromEntries(DYNAMIC_KEYS.map((k) => [k, ''])),
       maxDaysSinceTreatment: '',
       note: '',
     },
@@ -180,6 +192,9 @@ export function SpecForm({
       maxDeg: text(saved.maxDeg),
       minSurfaceEnergyMnM: text(saved.minSurfaceEnergyMnM),
       maxSurfaceEnergyMnM: text(saved.maxSurfaceEnergyMnM),
+      ...Object.fromEntries(
+        DYNAMIC_KEYS.map((k) => [k, text(saved[k as keyof Spec] as number | null)]),
+      ),
       maxDaysSinceTreatment: text(saved.maxDaysSinceTreatment),
       note: saved.note,
     }),
@@ -208,6 +223,14 @@ export function SpecForm({
           hint="Optional"
           {...field('maxSurfaceEnergyMnM')}
         />
+        {DYNAMIC_KEYS.map((key) => (
+          <NumberField
+            key={key}
+            label={DYNAMIC_LABELS[key]}
+            hint="Optional: dynamic wetting"
+            {...field(key)}
+          />
+        ))}
         <NumberField
           label="Within days of treatment"
           hint="Optional: results count only this long after treatment"

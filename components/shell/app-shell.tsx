@@ -22,6 +22,7 @@ export function AppShell({ ctx, children }: { ctx: OrgContext; children: React.R
     { href: '/reviews', label: 'Reviews' },
     ...(can(ctx.organization.role, 'team:manage') ? [{ href: '/team', label: 'Team' }] : []),
     ...(can(ctx.organization.role, 'audit:read') ? [{ href: '/audit', label: 'Audit log' }] : []),
+    { href: '/api-reference', label: 'API reference' },
   ];
   return (
     <div className="min-h-screen md:flex">

@@ -41,10 +41,10 @@ export async function isWatching(userId: string, coatingId: string): Promise<boo
   return rows.length > 0;
 }
 
-/** Watchers of a coating who are still members of its organization. */
+/** Watchers of a coating who are still members of its organization, with their role there. */
 export async function watchersOf(db: Executor, organizationId: string, coatingId: string) {
   return db
-    .select({ email: users.email, name: users.name })
+    .select({ email: users.email, name: users.name, role: memberships.role })
     .from(coatingWatchers)
     .innerJoin(users, eq(users.id, coatingWatchers.userId))
     .innerJoin(

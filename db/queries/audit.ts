@@ -15,6 +15,30 @@ export type AuditInput = {
 
 type Executor = Pick<Database, 'insert'>;
 
+/**
+ * recordAudit bound to one transaction and one actor: `audit(action, entityType, entityId,
+ * { before?, after? })`.
+ */
+export function auditAs(
+  tx: Executor,
+  actor: { userId: string | null; organizationId: string | null },
+) {
+  return (
+    action: string,
+    entityType: string,
+    entityId: string,
+    change: Pick<AuditInput, 'before' | 'after'>,
+  ) =>
+    recordAudit(tx, {
+      actorUserId: actor.userId,
+      organizationId: actor.organizationId,
+      action,
+      entityType,
+      entityId,
+      ...change,
+    });
+}
+
 /** Writes one audit row; call it with the transaction that makes the change. */
 export async function recordAudit(tx: Executor, input: AuditInput): Promise<void> {
   await tx.insert(auditEvents).values({
@@ -78,7 +102,11 @@ export async function auditFilterOptions(organizationId: string) {
   const db = getDb();
   const inOrg = eq(auditEvents.organizationId, organizationId);
   const [actions, entityTypes, actors] = await Promise.all([
-    db.selectDistinct({ value: auditEvents.action }).from(auditEvents).where(inOrg).orderBy(auditEvents.action),
+    db
+      .selectDistinct({ value: auditEvents.action })
+      .from(auditEvents)
+      .where(inOrg)
+      .orderBy(auditEvents.action),
     db
       .selectDistinct({ value: auditEvents.entityType })
       .from(auditEvents)

@@ -3,11 +3,25 @@ import { and, asc, desc, eq, inArray, isNull, or, sql } from 'drizzle-orm';
 import type {
   ComparisonBatchInput,
   ComparisonDropInput,
+  ComparisonDynamicInput,
   ComparisonLiquidInput,
   ComparisonSpecInput,
 } from '@/lib/contracts/compare';
 import { getDb } from '../client';
 import { batches, coatings, probeLiquids, specs } from '../schema';
+import { andVisibleStatus, type ResultVisibility } from './visibility';
+
+/** A spec's dynamic-wetting limits, selected wherever a spec is judged or written out. */
+export const dynamicLimitColumns = {
+  minAdvancingDeg: specs.minAdvancingDeg,
+  maxAdvancingDeg: specs.maxAdvancingDeg,
+  minRecedingDeg: specs.minRecedingDeg,
+  maxRecedingDeg: specs.maxRecedingDeg,
+  minHysteresisDeg: specs.minHysteresisDeg,
+  maxHysteresisDeg: specs.maxHysteresisDeg,
+  minRollOffDeg: specs.minRollOffDeg,
+  maxRollOffDeg: specs.maxRollOffDeg,
+};
 
 /** Batches compared when none are chosen: the coating's newest ones. */
 export const DEFAULT_BATCH_COUNT = 12;
@@ -36,6 +50,7 @@ export interface ComparisonData {
   specs: ComparisonSpecInput[];
   liquids: ComparisonLiquidInput[];
   drops: ComparisonDropRow[];
+  dynamic: ComparisonDynamicInput[];
 }
 
 /** Live coatings of the organization, by code. */
@@ -86,31 +101,62 @@ type DropSqlRow = {
 
 const iso = (v: Date | string) => (v instanceof Date ? v : new Date(v)).toISOString();
 
+/** The columns every compared result carries: where it was measured and when. */
+type SampleSqlRow = {
+  batch_id: string;
+  sample_id: string;
+  sample_label: string;
+  probe_liquid_id: string;
+  measured_at: Date | string;
+  treated_at: Date | string | null;
+};
+
+function sampleFields(r: SampleSqlRow) {
+  return {
+    batchId: r.batch_id,
+    sampleId: r.sample_id,
+    sampleLabel: r.sample_label,
+    probeLiquidId: r.probe_liquid_id,
+    measuredAt: iso(r.measured_at),
+    treatedAt: r.treated_at === null ? null : iso(r.treated_at),
+  };
+}
+
+/** The live batches (of the organization, among `batchIds`) and their live samples. */
+function liveBatchesAndSamples(organizationId: string, batchIds: readonly string[]) {
+  const ids = sql.join(
+    batchIds.map((id) => sql`${id}`),
+    sql`, `,
+  );
+  return {
+    from: sql`from batches b
+    join samples s on s.batch_id = b.id and s.organization_id = b.organization_id
+                  and s.archived_at is null`,
+    where: sql`where b.organization_id = ${organizationId}
+      and b.id in (${ids})
+      and b.archived_at is null`,
+  };
+}
+
 /**
- * Every live drop of the given batches with its latest analysis (highest revision). With
- * `approvedOnly` a drop counts only when that latest revision is approved — a newer draft
- * replaces an approved result until it is approved in turn. One query; the lateral subquery
+ * Every live drop of the given batches with its latest analysis (highest revision), as
+ * `visibility` allows (db/queries/visibility.ts). One query; the lateral subquery
  * walks analyses_drop_revision_unique (drop_id, revision) backwards, drops come through
  * drops_sample_idx and samples through samples_batch_label_unique.
  */
 export async function comparisonDrops(
   organizationId: string,
   batchIds: readonly string[],
-  options: { approvedOnly: boolean },
+  options: { visibility: ResultVisibility },
 ): Promise<ComparisonDropRow[]> {
   if (batchIds.length === 0) return [];
-  const ids = sql.join(
-    batchIds.map((id) => sql`${id}`),
-    sql`, `,
-  );
+  const live = liveBatchesAndSamples(organizationId, batchIds);
   const rows = await getDb().execute<DropSqlRow>(sql`
     select d.id as drop_id, a.id as analysis_id, a.revision, a.review_status,
            b.id as batch_id, b.lot_code, b.produced_on::text as produced_on,
            s.id as sample_id, s.label as sample_label, s.treated_at,
            d.measured_at, d.probe_liquid_id, a.left_deg, a.right_deg, a.mean_deg
-    from batches b
-    join samples s on s.batch_id = b.id and s.organization_id = b.organization_id
-                  and s.archived_at is null
+    ${live.from}
     join drops d on d.sample_id = s.id and d.organization_id = b.organization_id
                 and d.archived_at is null
     join lateral (
@@ -120,10 +166,8 @@ export async function comparisonDrops(
       order by x.revision desc
       limit 1
     ) a on true
-    where b.organization_id = ${organizationId}
-      and b.id in (${ids})
-      and b.archived_at is null
-      ${options.approvedOnly ? sql`and a.review_status = 'approved'` : sql``}
+    ${live.where}
+      ${andVisibleStatus(options.visibility, sql`a.review_status`)}
     order by b.produced_on, b.lot_code, s.label, d.measured_at, d.id
   `);
   return rows.map((r) => ({
@@ -131,17 +175,61 @@ export async function comparisonDrops(
     analysisId: r.analysis_id,
     revision: Number(r.revision),
     reviewStatus: r.review_status,
-    batchId: r.batch_id,
+    ...sampleFields(r),
     lotCode: r.lot_code,
     producedOn: r.produced_on,
-    sampleId: r.sample_id,
-    sampleLabel: r.sample_label,
-    probeLiquidId: r.probe_liquid_id,
-    measuredAt: iso(r.measured_at),
-    treatedAt: r.treated_at === null ? null : iso(r.treated_at),
     leftDeg: Number(r.left_deg),
     rightDeg: Number(r.right_deg),
     meanDeg: Number(r.mean_deg),
+  }));
+}
+
+type DynamicSqlRow = SampleSqlRow & {
+  measurement_id: string;
+  advancing_deg: number | null;
+  receding_deg: number | null;
+  hysteresis_deg: number | null;
+  roll_off_deg: number | null;
+};
+
+const numberOrNull = (v: number | string | null) => (v === null ? null : Number(v));
+
+/**
+ * Every live dynamic measurement of the given batches with the values of its latest analysis
+ * revision, as `visibility` allows (the same rule as for drops).
+ */
+export async function comparisonDynamic(
+  organizationId: string,
+  batchIds: readonly string[],
+  options: { visibility: ResultVisibility },
+): Promise<ComparisonDynamicInput[]> {
+  if (batchIds.length === 0) return [];
+  const live = liveBatchesAndSamples(organizationId, batchIds);
+  const rows = await getDb().execute<DynamicSqlRow>(sql`
+    select m.id as measurement_id, b.id as batch_id, s.id as sample_id, s.label as sample_label,
+           m.probe_liquid_id, m.measured_at, s.treated_at,
+           a.advancing_deg, a.receding_deg, a.hysteresis_deg, a.roll_off_deg
+    ${live.from}
+    join dynamic_measurements m on m.sample_id = s.id and m.organization_id = b.organization_id
+                               and m.archived_at is null
+    join lateral (
+      select x.advancing_deg, x.receding_deg, x.hysteresis_deg, x.roll_off_deg, x.review_status
+      from dynamic_analyses x
+      where x.measurement_id = m.id
+      order by x.revision desc
+      limit 1
+    ) a on true
+    ${live.where}
+      ${andVisibleStatus(options.visibility, sql`a.review_status`)}
+    order by b.produced_on, b.lot_code, s.label, m.measured_at, m.id
+  `);
+  return rows.map((r) => ({
+    measurementId: r.measurement_id,
+    ...sampleFields(r),
+    advancingDeg: numberOrNull(r.advancing_deg),
+    recedingDeg: numberOrNull(r.receding_deg),
+    hysteresisDeg: numberOrNull(r.hysteresis_deg),
+    rollOffDeg: numberOrNull(r.roll_off_deg),
   }));
 }
 
@@ -154,7 +242,7 @@ export async function comparisonDrops(
 export async function loadComparison(
   organizationId: string,
   coatingId: string,
-  options: { batches?: readonly string[]; approvedOnly: boolean },
+  options: { batches?: readonly string[]; visibility: ResultVisibility },
 ): Promise<Omit<ComparisonData, 'coating'>> {
   const db = getDb();
   const [allBatches, specRows] = await Promise.all([
@@ -179,6 +267,7 @@ export async function loadComparison(
         maxDaysSinceTreatment: specs.maxDaysSinceTreatment,
         minSurfaceEnergyMnM: specs.minSurfaceEnergyMnM,
         maxSurfaceEnergyMnM: specs.maxSurfaceEnergyMnM,
+        ...dynamicLimitColumns,
         note: specs.note,
       })
       .from(specs)
@@ -196,13 +285,17 @@ export async function loadComparison(
     wanted.size > 0
       ? allBatches.filter((b) => wanted.has(b.id) || wanted.has(b.lotCode))
       : allBatches.slice(0, DEFAULT_BATCH_COUNT);
-  const drops = await comparisonDrops(
-    organizationId,
-    chosen.map((b) => b.id),
-    { approvedOnly: options.approvedOnly },
-  );
+  const chosenIds = chosen.map((b) => b.id);
+  const [drops, dynamic] = await Promise.all([
+    comparisonDrops(organizationId, chosenIds, { visibility: options.visibility }),
+    comparisonDynamic(organizationId, chosenIds, { visibility: options.visibility }),
+  ]);
   const liquidIds = [
-    ...new Set([...drops.map((d) => d.probeLiquidId), ...specRows.map((s) => s.probeLiquidId)]),
+    ...new Set([
+      ...drops.map((d) => d.probeLiquidId),
+      ...dynamic.map((d) => d.probeLiquidId),
+      ...specRows.map((s) => s.probeLiquidId),
+    ]),
   ];
   const liquids =
     liquidIds.length === 0
@@ -225,5 +318,5 @@ export async function loadComparison(
               ),
             ),
           );
-  return { allBatches, batches: chosen, specs: specRows, liquids, drops };
+  return { allBatches, batches: chosen, specs: specRows, liquids, drops, dynamic };
 }

@@ -2,6 +2,7 @@ import 'server-only';
 import { sql } from 'drizzle-orm';
 import type { RecentDrop } from '@/lib/contracts/dashboard';
 import { getDb } from '../client';
+import { andVisibleStatus, type ResultVisibility } from './visibility';
 
 type RecentRow = {
   drop_id: string;
@@ -16,12 +17,12 @@ type RecentRow = {
 };
 
 /**
- * The newest drops of the organization with their latest analysis (approved ones only when
- * `approvedOnly`). Walks drops_org_time_idx backwards.
+ * The newest drops of the organization with their latest analysis, as `visibility`
+ * allows. Walks drops_org_time_idx backwards.
  */
 export async function recentDrops(
   organizationId: string,
-  options: { approvedOnly: boolean; limit?: number },
+  options: { visibility: ResultVisibility; limit?: number },
 ): Promise<RecentDrop[]> {
   const rows = await getDb().execute<RecentRow>(sql`
     select d.id as drop_id, s.label as sample_label, b.lot_code, c.code as coating_code,
@@ -38,7 +39,7 @@ export async function recentDrops(
     left join users u on u.id = d.created_by_user_id
     where d.organization_id = ${organizationId}
       and d.archived_at is null
-      ${options.approvedOnly ? sql`and a.review_status = 'approved'` : sql``}
+      ${andVisibleStatus(options.visibility, sql`a.review_status`)}
     order by d.measured_at desc, d.id desc
     limit ${options.limit ?? 10}
   `);

@@ -22,6 +22,7 @@ import type {
 import { SOFTWARE_VERSION } from '@/lib/measure/version';
 import { probeLiquidVisibleTo } from './records';
 import type { Executor } from './transaction';
+import { visibleStatus, type ResultVisibility } from './visibility';
 
 /** Serialises saves of one photo, so two tabs cannot both create revision n. */
 export async function lockPhotoDrops(tx: Executor, photoId: string): Promise<void> {
@@ -134,27 +135,111 @@ export async function getDropOfPhoto(
       ),
     );
   if (!drop) return null;
-  const revisions: AnalysisRevision[] = await db
-    .select({
-      id: analyses.id,
-      revision: analyses.revision,
-      method: analyses.method,
-      baseline: analyses.baseline,
-      leftDeg: analyses.leftDeg,
-      rightDeg: analyses.rightDeg,
-      meanDeg: analyses.meanDeg,
-      leftUncertaintyDeg: analyses.leftUncertaintyDeg,
-      rightUncertaintyDeg: analyses.rightUncertaintyDeg,
-      softwareVersion: analyses.softwareVersion,
-      reviewStatus: analyses.reviewStatus,
-      createdAt: analyses.createdAt,
-      createdByUserId: analyses.createdByUserId,
-      result: analyses.result,
-    })
-    .from(analyses)
-    .where(eq(analyses.dropId, drop.id))
-    .orderBy(desc(analyses.revision));
+  const revisions = await revisionsOfDrop(drop.id);
   return { ...drop, revisions };
+}
+
+const revisionColumns = {
+  id: analyses.id,
+  revision: analyses.revision,
+  method: analyses.method,
+  baseline: analyses.baseline,
+  leftDeg: analyses.leftDeg,
+  rightDeg: analyses.rightDeg,
+  meanDeg: analyses.meanDeg,
+  leftUncertaintyDeg: analyses.leftUncertaintyDeg,
+  rightUncertaintyDeg: analyses.rightUncertaintyDeg,
+  softwareVersion: analyses.softwareVersion,
+  reviewStatus: analyses.reviewStatus,
+  createdAt: analyses.createdAt,
+  createdByUserId: analyses.createdByUserId,
+};
+
+/** Every analysis revision of a drop, newest first. */
+export async function revisionsOfDrop(dropId: string): Promise<AnalysisRevision[]> {
+  return getDb()
+    .select({ ...revisionColumns, result: analyses.result })
+    .from(analyses)
+    .where(eq(analyses.dropId, dropId))
+    .orderBy(desc(analyses.revision));
+}
+
+export type DropFilters = {
+  dropId?: string;
+  sampleId?: string;
+  batchId?: string;
+  probeLiquidId?: string;
+  sessionId?: string;
+};
+
+/**
+ * Live drops of an organization with their sample, batch and coating and their latest analysis
+ * revision (without its full result), newest first; `limit` rows from `offset`.
+ */
+export async function listDropsWithLatest(
+  organizationId: string,
+  filters: DropFilters,
+  position: { offset: number; limit: number },
+) {
+  const db = getDb();
+  const latest = db
+    .selectDistinctOn([analyses.dropId], { dropId: analyses.dropId, ...revisionColumns })
+    .from(analyses)
+    .where(eq(analyses.organizationId, organizationId))
+    .orderBy(analyses.dropId, desc(analyses.revision))
+    .as('latest');
+  const rows = await db
+    .select({
+      id: drops.id,
+      sampleId: drops.sampleId,
+      probeLiquidId: drops.probeLiquidId,
+      sessionId: drops.sessionId,
+      photoId: drops.photoId,
+      source: drops.source,
+      sampleLabel: samples.label,
+      batchId: batches.id,
+      lotCode: batches.lotCode,
+      coatingCode: coatings.code,
+      createdAt: drops.createdAt,
+      latest: {
+        id: latest.id,
+        revision: latest.revision,
+        method: latest.method,
+        baseline: latest.baseline,
+        leftDeg: latest.leftDeg,
+        rightDeg: latest.rightDeg,
+        meanDeg: latest.meanDeg,
+        leftUncertaintyDeg: latest.leftUncertaintyDeg,
+        rightUncertaintyDeg: latest.rightUncertaintyDeg,
+        softwareVersion: latest.softwareVersion,
+        reviewStatus: latest.reviewStatus,
+        createdAt: latest.createdAt,
+        createdByUserId: latest.createdByUserId,
+      },
+    })
+    .from(drops)
+    .innerJoin(samples, eq(samples.id, drops.sampleId))
+    .innerJoin(batches, eq(batches.id, samples.batchId))
+    .innerJoin(coatings, eq(coatings.id, batches.coatingId))
+    .leftJoin(latest, eq(latest.dropId, drops.id))
+    .where(
+      and(
+        eq(drops.organizationId, organizationId),
+        isNull(drops.archivedAt),
+        filters.dropId ? eq(drops.id, filters.dropId) : undefined,
+        filters.sampleId ? eq(drops.sampleId, filters.sampleId) : undefined,
+        filters.batchId ? eq(samples.batchId, filters.batchId) : undefined,
+        filters.probeLiquidId ? eq(drops.probeLiquidId, filters.probeLiquidId) : undefined,
+        filters.sessionId ? eq(drops.sessionId, filters.sessionId) : undefined,
+      ),
+    )
+    .orderBy(desc(drops.createdAt), asc(drops.id))
+    .limit(position.limit)
+    .offset(position.offset);
+  return rows.map(({ latest: revision, ...drop }) => ({
+    ...drop,
+    latestAnalysis: revision?.id ? revision : null,
+  }));
 }
 
 /** Samples to save drops to, with their batch and coating, for the workspace's picker. */
@@ -267,9 +352,10 @@ export async function getDropDetail(organizationId: string, dropId: string) {
 /**
  * A drop's revisions, newest first, each with who made it, why, and the conditions of its
  * session (the revision's own, else the drop's for revisions saved before sessions were kept
- * per revision).
+ * per revision). With `approved` visibility: only approved revisions, and none unless the
+ * drop's latest revision is approved (db/queries/visibility.ts).
  */
-export async function listDropRevisions(dropId: string) {
+export async function listDropRevisions(dropId: string, visibility: ResultVisibility) {
   const session = sql`coalesce(${analyses.sessionId}, ${drops.sessionId})`;
   return getDb()
     .select({
@@ -299,6 +385,16 @@ export async function listDropRevisions(dropId: string) {
     .innerJoin(drops, eq(drops.id, analyses.dropId))
     .leftJoin(users, eq(users.id, analyses.createdByUserId))
     .leftJoin(measurementSessions, sql`${measurementSessions.id} = ${session}`)
-    .where(eq(analyses.dropId, dropId))
+    .where(
+      and(
+        eq(analyses.dropId, dropId),
+        visibleStatus(visibility, analyses.reviewStatus),
+        visibility === 'all'
+          ? undefined
+          : sql`(select latest.review_status from analyses latest
+                 where latest.drop_id = ${analyses.dropId}
+                 order by latest.revision desc limit 1) = 'approved'`,
+      ),
+    )
     .orderBy(desc(analyses.revision));
 }

@@ -1,11 +1,35 @@
 import 'server-only';
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import type { Member, MembershipSummary } from '@/lib/contracts/team';
 import { memberships, organizations, sessions, users, type Role } from '../schema';
 import { slugify } from './ids';
 import { database, type Executor } from './transaction';
 
 export type { MembershipSummary };
+
+/**
+ * A session with its user and the user's memberships (as listMembershipsOfUser orders them), in
+ * one round trip: what every signed-in request needs first (lib/auth/lucia.ts). Null when there
+ * is no such session.
+ */
+export async function findSessionWithMemberships(sessionId: string) {
+  const [row] = await database()
+    .select({
+      session: sessions,
+      user: users,
+      memberships: sql<MembershipSummary[]>`coalesce((
+        select json_agg(json_build_object(
+                 'organizationId', m.organization_id,
+                 'organizationName', o.name,
+                 'role', m.role) order by o.name)
+        from ${memberships} m join ${organizations} o on o.id = m.organization_id
+        where m.user_id = ${users.id}), '[]'::json)`,
+    })
+    .from(sessions)
+    .innerJoin(users, eq(users.id, sessions.userId))
+    .where(eq(sessions.id, sessionId));
+  return row ?? null;
+}
 
 export async function listMembershipsOfUser(userId: string): Promise<MembershipSummary[]> {
   return database()

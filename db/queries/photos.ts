@@ -19,7 +19,7 @@ export type NewPhoto = {
   thumbnailPng: Buffer;
   workingPng: Buffer | null;
   /** Sessile drop (the default) or hanging drop. */
-  purpose?: 'sessile-drop' | 'pendant-drop';
+  purpose?: 'sessile-drop' | 'pendant-drop' | 'series-frame';
 };
 
 export async function insertPhoto(db: Executor, row: NewPhoto & { id: string }): Promise<void> {
@@ -118,7 +118,7 @@ export async function findUnsavedTwin(
     organizationId: string;
     userId: string;
     sha256: string;
-    purpose: 'sessile-drop' | 'pendant-drop';
+    purpose: NonNullable<NewPhoto['purpose']>;
   },
 ): Promise<{ id: string; removedAt: Date | null } | null> {
   const [row] = await db

@@ -1,5 +1,17 @@
 import 'server-only';
-import { and, asc, count, desc, eq, ilike, isNull, or, sql, type SQL } from 'drizzle-orm';
+import {
+  and,
+  asc,
+  count,
+  desc,
+  eq,
+  getTableColumns,
+  ilike,
+  isNull,
+  or,
+  sql,
+  type SQL,
+} from 'drizzle-orm';
 import type { PgColumn, PgSelect, PgTable } from 'drizzle-orm/pg-core';
 import type { Page } from '@/lib/contracts/common';
 import { getDb } from '../client';
@@ -59,9 +71,14 @@ function joinAll(query: PgSelect, joins: Join[]): PgSelect {
   return out;
 }
 
+/** The key of the window total in listPage's rows (no table has such a column). */
+const TOTAL = '__listTotal';
+
 /**
  * One page of a list and the total of matching rows: the same joins and filters for both, sorted
- * by `sort` (then by id, so pages never overlap). `columns` are the selected fields.
+ * by `sort` (then by id, so pages never overlap). `columns` are the selected fields. One round
+ * trip: the total comes with each row (`count(*) over ()`); only a page past the end, which has
+ * no rows to carry it, asks for the count on its own.
  */
 export async function listPage<Item>(spec: {
   from: RecordTable;
@@ -74,25 +91,28 @@ export async function listPage<Item>(spec: {
   const db = getDb();
   const where = and(...spec.where);
   const order = spec.query.dir === 'asc' ? asc : desc;
-  const items = joinAll(
-    (spec.columns ? db.select(spec.columns) : db.select()).from(spec.from).$dynamic(),
+  const columns = spec.columns ?? getTableColumns(spec.from);
+  const rows = (await joinAll(
+    db
+      .select({ ...columns, [TOTAL]: sql<number>`count(*) over ()`.mapWith(Number) })
+      .from(spec.from)
+      .$dynamic(),
     spec.joins ?? [],
-  );
-  const total = joinAll(db.select({ total: count() }).from(spec.from).$dynamic(), spec.joins ?? []);
-  const [rows, counted] = await Promise.all([
-    items
-      .where(where)
-      .orderBy(order(spec.sort), asc(spec.from.id))
-      .limit(spec.query.pageSize)
-      .offset((spec.query.page - 1) * spec.query.pageSize),
-    total.where(where),
-  ]);
-  return {
-    items: rows as Item[],
-    total: (counted as { total: number }[])[0]?.total ?? 0,
-    page: spec.query.page,
-    pageSize: spec.query.pageSize,
-  };
+  )
+    .where(where)
+    .orderBy(order(spec.sort), asc(spec.from.id))
+    .limit(spec.query.pageSize)
+    .offset((spec.query.page - 1) * spec.query.pageSize)) as Record<string, unknown>[];
+  let total = Number(rows[0]?.[TOTAL] ?? 0);
+  if (rows.length === 0 && spec.query.page > 1) {
+    const [counted] = await joinAll(
+      db.select({ total: count() }).from(spec.from).$dynamic(),
+      spec.joins ?? [],
+    ).where(where);
+    total = (counted as { total: number } | undefined)?.total ?? 0;
+  }
+  const items = rows.map(({ [TOTAL]: _total, ...item }) => item as Item);
+  return { items, total, page: spec.query.page, pageSize: spec.query.pageSize };
 }
 
 /** One record by id within `scope` (the organization's rows, or what it may see); locked on request. */

@@ -1,4 +1,5 @@
 import 'server-only';
+import { dynamicLimitColumns } from './comparison';
 import { and, desc, eq, isNull, sql } from 'drizzle-orm';
 import { analyses, drops, probeLiquids, reviews, samples, specs, users } from '../schema';
 import { database } from './transaction';
@@ -18,6 +19,7 @@ export async function listSpecsOfCoating(coatingId: string) {
       minSurfaceEnergyMnM: specs.minSurfaceEnergyMnM,
       maxSurfaceEnergyMnM: specs.maxSurfaceEnergyMnM,
       maxDaysSinceTreatment: specs.maxDaysSinceTreatment,
+      ...dynamicLimitColumns,
     })
     .from(specs)
     .innerJoin(probeLiquids, eq(probeLiquids.id, specs.probeLiquidId))

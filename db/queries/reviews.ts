@@ -9,6 +9,7 @@ import {
   coatings,
   drops,
   probeLiquids,
+  reviewItems,
   reviews,
   samples,
   users,
@@ -20,8 +21,9 @@ export async function latestAnalysesUnder(
   organizationId: string,
   batchId: string,
   sampleId: string | null,
+  db: Executor = getDb(),
 ) {
-  const latest = getDb()
+  const latest = db
     .select({
       dropId: analyses.dropId,
       latestRevision: sql<number>`max(${analyses.revision})`.as('latest_revision'),
@@ -29,7 +31,7 @@ export async function latestAnalysesUnder(
     .from(analyses)
     .groupBy(analyses.dropId)
     .as('latest');
-  return getDb()
+  return db
     .select({
       analysisId: analyses.id,
       dropId: drops.id,
@@ -62,19 +64,90 @@ export async function latestAnalysesUnder(
     .orderBy(samples.label, probeLiquids.name, drops.measuredAt);
 }
 
-/** A new review of the given analysis revisions. */
-export async function insertReview(tx: Executor, row: typeof reviews.$inferInsert): Promise<void> {
-  await tx.insert(reviews).values(row);
+/**
+ * Locks a batch row until the transaction ends, so submissions of its results run one after
+ * the other: the second reads what the first committed.
+ */
+export async function lockBatchForSubmission(tx: Executor, batchId: string): Promise<void> {
+  await tx.select({ id: batches.id }).from(batches).where(eq(batches.id, batchId)).for('update');
 }
 
-/** Sets the review status of analysis revisions. */
+/**
+ * A new review of the given analysis revisions with one open item each. The partial unique
+ * index on open items refuses an analysis that is already in an open review (a 23505 the
+ * service turns into a conflict).
+ */
+export async function insertReview(
+  tx: Executor,
+  row: typeof reviews.$inferInsert & { analysisIds: string[] },
+): Promise<void> {
+  await tx.insert(reviews).values(row);
+  if (row.analysisIds.length === 0) return;
+  await tx
+    .insert(reviewItems)
+    .values(row.analysisIds.map((analysisId) => ({ reviewId: row.id, analysisId })));
+}
+
+/** The review's status, its row locked until the transaction ends; null when there is none. */
+export async function lockReview(tx: Executor, reviewId: string) {
+  const [row] = await tx
+    .select({ status: reviews.status })
+    .from(reviews)
+    .where(eq(reviews.id, reviewId))
+    .for('update');
+  return row ?? null;
+}
+
+/**
+ * The review status of analysis revisions, their rows locked until the transaction ends, and
+ * whether each is still its drop's latest revision.
+ */
+export async function lockAnalysesOfReview(tx: Executor, analysisIds: string[]) {
+  if (analysisIds.length === 0) return [];
+  return tx
+    .select({
+      id: analyses.id,
+      reviewStatus: analyses.reviewStatus,
+      latest: sql<boolean>`"analyses"."revision" = (select max(a2.revision) from analyses a2 where a2.drop_id = "analyses"."drop_id")`,
+    })
+    .from(analyses)
+    .where(inArray(analyses.id, analysisIds))
+    .for('update');
+}
+
+/** A decided review no longer holds its analyses: they may be submitted again (if rejected). */
+export async function closeReviewItems(tx: Executor, reviewId: string): Promise<void> {
+  await tx.update(reviewItems).set({ open: false }).where(eq(reviewItems.reviewId, reviewId));
+}
+
+/** Withdraws an approval; false when the review is not (or no longer) approved. */
+export async function revokeIfApproved(
+  tx: Executor,
+  reviewId: string,
+  revocation: { revokedByUserId: string; revokedAt: Date; revokeReason: string },
+): Promise<boolean> {
+  const updated = await tx
+    .update(reviews)
+    .set({ status: 'revoked', ...revocation })
+    .where(and(eq(reviews.id, reviewId), eq(reviews.status, 'approved')))
+    .returning({ id: reviews.id });
+  return updated.length > 0;
+}
+
+/** Sets the review status of analysis revisions (only those now in `from`, when given). */
 export async function setAnalysesReviewStatus(
   tx: Executor,
   analysisIds: string[],
   status: AnalysisReviewStatus,
+  from?: AnalysisReviewStatus,
 ): Promise<void> {
   if (analysisIds.length === 0) return;
-  await tx.update(analyses).set({ reviewStatus: status }).where(inArray(analyses.id, analysisIds));
+  await tx
+    .update(analyses)
+    .set({ reviewStatus: status })
+    .where(
+      and(inArray(analyses.id, analysisIds), from ? eq(analyses.reviewStatus, from) : undefined),
+    );
 }
 
 /** Records the decision when the review is still submitted; false when someone decided first. */
@@ -114,6 +187,7 @@ export async function findSampleOfBatch(organizationId: string, batchId: string,
 
 const submitter = alias(users, 'submitter');
 const decider = alias(users, 'decider');
+const revoker = alias(users, 'revoker');
 
 /** A review with its batch, coating, sample and the people who submitted and decided it. */
 function reviewsWithNames(where: SQL | undefined) {
@@ -131,6 +205,8 @@ function reviewsWithNames(where: SQL | undefined) {
       decidedAt: reviews.decidedAt,
       decisionComment: reviews.decisionComment,
       signature: reviews.signature,
+      revokedAt: reviews.revokedAt,
+      revokeReason: reviews.revokeReason,
       lotCode: batches.lotCode,
       coatingCode: coatings.code,
       coatingName: coatings.name,
@@ -138,6 +214,7 @@ function reviewsWithNames(where: SQL | undefined) {
       submittedBy: submitter.name,
       submittedByEmail: submitter.email,
       decidedBy: decider.name,
+      revokedBy: revoker.name,
     })
     .from(reviews)
     .innerJoin(batches, eq(batches.id, reviews.batchId))
@@ -145,11 +222,19 @@ function reviewsWithNames(where: SQL | undefined) {
     .leftJoin(samples, eq(samples.id, reviews.sampleId))
     .leftJoin(submitter, eq(submitter.id, reviews.submittedByUserId))
     .leftJoin(decider, eq(decider.id, reviews.decidedByUserId))
+    .leftJoin(revoker, eq(revoker.id, reviews.revokedByUserId))
     .where(where);
 }
 
-/** The organization's newest 100 reviews; `submitted` for the queue, `decided` for the history. */
-export async function listReviews(organizationId: string, status?: 'submitted' | 'decided') {
+/**
+ * The organization's reviews, newest first (100 from the start unless `position` says);
+ * `submitted` for the queue, `decided` for the history.
+ */
+export async function listReviews(
+  organizationId: string,
+  status?: 'submitted' | 'decided',
+  position: { offset: number; limit: number } = { offset: 0, limit: 100 },
+) {
   return reviewsWithNames(
     and(
       eq(reviews.organizationId, organizationId),
@@ -160,8 +245,9 @@ export async function listReviews(organizationId: string, status?: 'submitted' |
           : undefined,
     ),
   )
-    .orderBy(desc(reviews.submittedAt))
-    .limit(100);
+    .orderBy(desc(reviews.submittedAt), desc(reviews.id))
+    .limit(position.limit)
+    .offset(position.offset);
 }
 
 /** A review of the organization; null when there is none here. */

@@ -1,5 +1,5 @@
 import 'server-only';
-import { and, asc, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNotNull, isNull, sql } from 'drizzle-orm';
 import type { Page } from '@/lib/contracts/common';
 import type {
   BatchDrop,
@@ -11,6 +11,7 @@ import { getDb } from '../client';
 import { builtInProbeLiquidId } from '../probe-liquid-library';
 import { analyses, drops, probeLiquids, samples } from '../schema';
 import { listSamples } from './samples';
+import { visibleStatus, type ResultVisibility } from './visibility';
 
 /*
  * Read models of the record tables that add results to a list (drop counts, mean angles), shared
@@ -19,9 +20,13 @@ import { listSamples } from './samples';
 
 const WATER = builtInProbeLiquidId('water');
 
-/** Each drop's latest analysis revision (the organization's), as a subquery to join. */
-function latestAnalyses(organizationId: string) {
-  return getDb()
+/**
+ * Each drop's latest analysis revision (the organization's), as a subquery to join; with
+ * `approved` visibility only those that are approved (db/queries/visibility.ts), so a drop
+ * whose latest revision is not approved has no result.
+ */
+function latestAnalyses(organizationId: string, visibility: ResultVisibility) {
+  const latest = getDb()
     .selectDistinctOn([analyses.dropId], {
       dropId: analyses.dropId,
       method: analyses.method,
@@ -29,21 +34,38 @@ function latestAnalyses(organizationId: string) {
       rightDeg: analyses.rightDeg,
       meanDeg: analyses.meanDeg,
       revision: analyses.revision,
+      reviewStatus: analyses.reviewStatus,
     })
     .from(analyses)
     .where(eq(analyses.organizationId, organizationId))
     .orderBy(analyses.dropId, sql`${analyses.revision} desc`)
+    .as('every_latest');
+  return getDb()
+    .select({
+      dropId: latest.dropId,
+      method: latest.method,
+      leftDeg: latest.leftDeg,
+      rightDeg: latest.rightDeg,
+      meanDeg: latest.meanDeg,
+      revision: latest.revision,
+    })
+    .from(latest)
+    .where(visibleStatus(visibility, latest.reviewStatus))
     .as('latest');
 }
 
-/** Drop counts and mean water contact angle of the given samples (latest revision per drop). */
+/**
+ * Drop counts and mean water contact angle of the given samples (latest revision per drop); with
+ * `approved` visibility only the drops whose latest revision is approved count.
+ */
 export async function sampleResults(
   organizationId: string,
   sampleIds: string[],
+  visibility: ResultVisibility,
 ): Promise<Map<string, SampleResults>> {
   const out = new Map<string, SampleResults>();
   if (sampleIds.length === 0) return out;
-  const latest = latestAnalyses(organizationId);
+  const latest = latestAnalyses(organizationId, visibility);
   const rows = await getDb()
     .select({
       sampleId: drops.sampleId,
@@ -60,6 +82,7 @@ export async function sampleResults(
         eq(drops.organizationId, organizationId),
         inArray(drops.sampleId, sampleIds),
         isNull(drops.archivedAt),
+        visibility === 'all' ? undefined : isNotNull(latest.dropId),
       ),
     )
     .groupBy(drops.sampleId);
@@ -73,15 +96,17 @@ export async function sampleResults(
   return out;
 }
 
-/** listSamples with each sample's drop counts and mean water angle. */
+/** listSamples with each sample's drop counts and mean water angle, as `visibility` allows. */
 export async function listSamplesWithResults(
   organizationId: string,
   query: SampleListQuery,
+  visibility: ResultVisibility,
 ): Promise<Page<SampleWithResults>> {
   const page = await listSamples(organizationId, query);
   const results = await sampleResults(
     organizationId,
     page.items.map((item) => item.id),
+    visibility,
   );
   return {
     ...page,
@@ -92,13 +117,17 @@ export async function listSamplesWithResults(
   };
 }
 
-/** The drops of a batch with their latest analysis, newest measurement first. */
+/**
+ * The drops of a batch with their latest analysis, newest measurement first; with `approved`
+ * visibility only the drops whose latest revision is approved.
+ */
 export async function listBatchDrops(
   organizationId: string,
   batchId: string,
+  visibility: ResultVisibility,
   limit = 200,
 ): Promise<BatchDrop[]> {
-  const latest = latestAnalyses(organizationId);
+  const latest = latestAnalyses(organizationId, visibility);
   return getDb()
     .select({
       dropId: drops.id,
@@ -122,6 +151,7 @@ export async function listBatchDrops(
         eq(drops.organizationId, organizationId),
         eq(samples.batchId, batchId),
         isNull(drops.archivedAt),
+        visibility === 'all' ? undefined : isNotNull(latest.dropId),
       ),
     )
     .orderBy(desc(drops.measuredAt), asc(drops.id))

@@ -18,6 +18,7 @@ import {
   surfaceEnergyResults,
   users,
 } from '../schema';
+import { visibleSavedInputs, visibleStatus, type ResultVisibility } from './visibility';
 import { findBatchWithCoating } from './batches';
 import type { Executor } from './transaction';
 
@@ -92,13 +93,12 @@ export async function findSurfaceEnergySubject(
 
 /**
  * Every live drop of a sample (or of every live sample of a batch) by its latest analysis (max
- * revision), with its probe liquid; without `readAll` (viewers) only drops whose latest analysis
- * is approved.
+ * revision), with its probe liquid, as `visibility` allows.
  */
 export async function listLatestDropAngles(
   organizationId: string,
   subject: SurfaceEnergySubject,
-  options: { readAll: boolean },
+  options: { visibility: ResultVisibility },
 ) {
   const db = getDb();
   const latest = db
@@ -135,7 +135,7 @@ export async function listLatestDropAngles(
         eq(drops.organizationId, organizationId),
         isNull(drops.archivedAt),
         subjectFilter,
-        options.readAll ? undefined : eq(analyses.reviewStatus, 'approved'),
+        visibleStatus(options.visibility, analyses.reviewStatus),
       ),
     )
     .orderBy(probeLiquids.name, analyses.id);
@@ -150,10 +150,14 @@ export async function insertSurfaceEnergyResult(
   return { ...result, createdByName: null };
 }
 
-/** Saved results of a sample or batch, newest first. */
+/**
+ * Saved results of a sample or batch, newest first; with `approved` visibility only those whose
+ * every analysis is approved now.
+ */
 export async function listSurfaceEnergyResults(
   organizationId: string,
   subject: SurfaceEnergySubject,
+  visibility: ResultVisibility,
   limit = 50,
 ): Promise<SavedSurfaceEnergyResult[]> {
   const rows = await getDb()
@@ -166,6 +170,7 @@ export async function listSurfaceEnergyResults(
         'sampleId' in subject
           ? eq(surfaceEnergyResults.sampleId, subject.sampleId)
           : eq(surfaceEnergyResults.batchId, subject.batchId),
+        visibleSavedInputs(visibility, surfaceEnergyResults.inputs),
       ),
     )
     .orderBy(desc(surfaceEnergyResults.createdAt), desc(surfaceEnergyResults.id))

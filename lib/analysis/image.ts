@@ -12,6 +12,19 @@ export interface PixelImage {
   scale: number;
 }
 
+/**
+ * Most pixels one analysis takes: 40 MP, the upload limit (lib/uploads/inspect-image.ts), well
+ * above any goniometer camera, and low enough that one analysis cannot hold the server for long.
+ */
+export const MAX_ANALYSIS_PIXELS = 40_000_000;
+
+export function tooManyPixelsMessage(width: number, height: number): string {
+  return (
+    `The image has ${width} × ${height} pixels (${((width * height) / 1e6).toFixed(1)} MP); ` +
+    `the analysis takes at most ${MAX_ANALYSIS_PIXELS / 1e6} MP. Crop the photo to the drop and try again.`
+  );
+}
+
 export function validateImage(image: GrayImage): void {
   const { width, height, data } = image;
   if (!Number.isInteger(width) || !Number.isInteger(height) || width < 16 || height < 16) {
@@ -19,6 +32,9 @@ export function validateImage(image: GrayImage): void {
       'bad_input',
       `Image size ${width}×${height} is too small; use at least 320×240 pixels.`,
     );
+  }
+  if (width * height > MAX_ANALYSIS_PIXELS) {
+    throw new AnalysisError('bad_input', tooManyPixelsMessage(width, height));
   }
   if (data.length !== width * height) {
     throw new AnalysisError(

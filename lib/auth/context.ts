@@ -1,7 +1,7 @@
 import 'server-only';
 import { cookies } from 'next/headers';
 import { cache } from 'react';
-import { listMembershipsOfUser, type MembershipSummary } from '@/db/queries/organizations';
+import type { MembershipSummary } from '@/db/queries/organizations';
 import { getLucia, pastAbsoluteLifetime, SESSION_COOKIE_NAME } from './lucia';
 import type { Role } from './permissions';
 
@@ -44,7 +44,8 @@ export const getAuthContext = cache(async (): Promise<AuthContext | null> => {
     // Server components cannot set cookies; the next action or route handler will.
   }
   if (!session || !user) return null;
-  const memberships = await listMembershipsOfUser(user.id);
+  // Read with the session in one query (lib/auth/lucia.ts).
+  const { memberships } = session;
   const active =
     memberships.find((m) => m.organizationId === session.activeOrganizationId) ?? memberships[0];
   return {

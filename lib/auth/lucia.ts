@@ -1,7 +1,8 @@
 import 'server-only';
 import { DrizzlePostgreSQLAdapter } from '@lucia-auth/adapter-drizzle';
-import { Lucia, TimeSpan } from 'lucia';
+import { Lucia, TimeSpan, type DatabaseSession, type DatabaseUser } from 'lucia';
 import { getDb } from '@/db/client';
+import { findSessionWithMemberships, type MembershipSummary } from '@/db/queries/organizations';
 import { sessions, users } from '@/db/schema';
 import { appUrl } from '@/lib/config';
 
@@ -14,8 +15,27 @@ export const SESSION_LIFETIME = new TimeSpan(7, 'd');
 /** However much it is used, a session ends this long after sign-in (lib/auth/context.ts). */
 export const SESSION_ABSOLUTE_LIFETIME = new TimeSpan(30, 'd');
 
+/**
+ * The Drizzle adapter, reading the session, its user and the user's memberships in one query
+ * (every signed-in request needs all three; lib/auth/context.ts).
+ */
+class SessionAdapter extends DrizzlePostgreSQLAdapter {
+  override async getSessionAndUser(
+    sessionId: string,
+  ): Promise<[DatabaseSession | null, DatabaseUser | null]> {
+    const row = await findSessionWithMemberships(sessionId);
+    if (!row) return [null, null];
+    const { id, userId, expiresAt, ...session } = row.session;
+    const { id: user, ...userAttributes } = row.user;
+    return [
+      { id, userId, expiresAt, attributes: { ...session, memberships: row.memberships } },
+      { id: user, attributes: userAttributes },
+    ];
+  }
+}
+
 function createLucia() {
-  const adapter = new DrizzlePostgreSQLAdapter(getDb(), sessions, users);
+  const adapter = new SessionAdapter(getDb(), sessions, users);
   return new Lucia(adapter, {
     sessionExpiresIn: SESSION_LIFETIME,
     sessionCookie: {
@@ -30,6 +50,7 @@ function createLucia() {
       activeOrganizationId: attributes.activeOrganizationId,
       // The adapter passes the row's columns; a date column may arrive as text.
       createdAt: attributes.createdAt ? new Date(attributes.createdAt) : null,
+      memberships: attributes.memberships ?? [],
     }),
     getUserAttributes: (attributes) => ({ email: attributes.email, name: attributes.name }),
   });
@@ -50,7 +71,12 @@ export function getLucia() {
 declare module 'lucia' {
   interface Register {
     Lucia: ReturnType<typeof createLucia>;
-    DatabaseSessionAttributes: { activeOrganizationId: string | null; createdAt?: Date | string };
+    DatabaseSessionAttributes: {
+      activeOrganizationId: string | null;
+      createdAt?: Date | string;
+      /** Read with the session (SessionAdapter), never written. */
+      memberships?: MembershipSummary[];
+    };
     DatabaseUserAttributes: { email: string; name: string };
   }
 }

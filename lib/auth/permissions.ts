@@ -41,3 +41,26 @@ export const ROLE_LABELS: Record<Role, { name: string; summary: string }> = {
   reviewer: { name: 'Reviewer', summary: 'QA or senior engineer: approves, rejects, signs' },
   viewer: { name: 'Viewer', summary: 'Customer or manager: reads approved results' },
 };
+
+/**
+ * API tokens (/api/v1 only) carry a scope instead of a role: reading records and every result,
+ * measuring (creating samples and sessions, posting photos), or both — never review or admin.
+ */
+export const API_TOKEN_SCOPES = ['read', 'measure', 'read-measure'] as const;
+export type ApiTokenScope = (typeof API_TOKEN_SCOPES)[number];
+
+export const API_TOKEN_SCOPE_ACTIONS = {
+  read: ['organization:read', 'results:read-all'],
+  measure: ['records:write'],
+  'read-measure': ['organization:read', 'results:read-all', 'records:write'],
+} as const satisfies Record<ApiTokenScope, readonly Action[]>;
+
+export function tokenCan(scope: ApiTokenScope, action: Action): boolean {
+  return (API_TOKEN_SCOPE_ACTIONS[scope] as readonly Action[]).includes(action);
+}
+
+export const API_TOKEN_SCOPE_LABELS: Record<ApiTokenScope, string> = {
+  read: 'Read records and results',
+  measure: 'Measure: create samples and sessions, post photos',
+  'read-measure': 'Read and measure',
+};

@@ -17,6 +17,7 @@ import type {
   Comparison,
   ComparisonBatchInput,
   ComparisonInput,
+  ComparisonLiquidInput,
   ComparisonSpecInput,
   DropPoint,
   LiquidComparison,
@@ -25,12 +26,15 @@ import type {
   TrendChart,
 } from './types';
 import { overall } from './outcome';
+import { compareDynamic } from './dynamic';
 import { compareSurfaceEnergy } from './surface-energy';
 
 const DAY_MS = 86_400_000;
 export const WATER_LIQUID_ID = 'liquid-water';
-export const OUTLIER_RULE = "Tukey's fences (k = 1.5): a drop outside [Q1 − 1.5·IQR, Q3 + 1.5·IQR] of its batch is flagged, never removed";
-export const ANGLE_BASIS = 'Each drop counts with its mean angle, (left + right) / 2, of its latest analysis.';
+export const OUTLIER_RULE =
+  "Tukey's fences (k = 1.5): a drop outside [Q1 − 1.5·IQR, Q3 + 1.5·IQR] of its batch is flagged, never removed";
+export const ANGLE_BASIS =
+  'Each drop counts with its mean angle, (left + right) / 2, of its latest analysis.';
 
 /** p-value in words: three decimals, or "p < 0.001". */
 export function formatP(p: number): string {
@@ -118,7 +122,8 @@ function batchCapability(
       capabilityNote: null,
     };
   } catch (error) {
-    if (error instanceof StatsInputError) return { capability: null, capabilityNote: error.message };
+    if (error instanceof StatsInputError)
+      return { capability: null, capabilityNote: error.message };
     throw error;
   }
 }
@@ -138,10 +143,7 @@ function markOutliers(drops: DropPoint[]): BatchLiquidResult['outliers'] {
 /**
  * "B-0413 is 6.2° lower than B-0412 (Welch t-test, p = 0.003)", or why no test was possible.
  */
-export function welchSentence(
-  a: BatchLiquidResult,
-  b: BatchLiquidResult,
-): BatchTest {
+export function welchSentence(a: BatchLiquidResult, b: BatchLiquidResult): BatchTest {
   const base = { batchId: a.batch.id, otherBatchId: b.batch.id };
   const va = a.drops.map((d) => d.meanDeg);
   const vb = b.drops.map((d) => d.meanDeg);
@@ -227,9 +229,21 @@ function specLines(specs: readonly ComparisonSpecInput[]): SpecLine[] {
     const who = s.scope === 'each-drop' ? 'each drop' : 'mean';
     const window = s.maxDaysSinceTreatment !== null ? `, ≤ ${s.maxDaysSinceTreatment} d` : '';
     if (s.minDeg !== null)
-      lines.push({ specId: s.id, value: s.minDeg, kind: 'min', scope: s.scope, label: `${who} ≥ ${s.minDeg}°${window}` });
+      lines.push({
+        specId: s.id,
+        value: s.minDeg,
+        kind: 'min',
+        scope: s.scope,
+        label: `${who} ≥ ${s.minDeg}°${window}`,
+      });
     if (s.maxDeg !== null)
-      lines.push({ specId: s.id, value: s.maxDeg, kind: 'max', scope: s.scope, label: `${who} ≤ ${s.maxDeg}°${window}` });
+      lines.push({
+        specId: s.id,
+        value: s.maxDeg,
+        kind: 'max',
+        scope: s.scope,
+        label: `${who} ≤ ${s.maxDeg}°${window}`,
+      });
   }
   return lines;
 }
@@ -272,12 +286,14 @@ export function buildComparison(input: ComparisonInput): Comparison {
     });
   }
 
-  const liquidResults = liquids.map((liquid): LiquidComparison => {
-    const specs = input.specs.filter(
-      (s) => s.probeLiquidId === liquid.id && (s.minDeg !== null || s.maxDeg !== null),
-    );
+  const compare = (
+    liquid: ComparisonLiquidInput,
+    specs: ComparisonSpecInput[],
+    dropsOf: (batchId: string) => DropPoint[],
+    withWettingClass: boolean,
+  ): LiquidComparison => {
     const results = batches.map((batch): BatchLiquidResult => {
-      const drops = groups.get(key(batch.id, liquid.id)) ?? [];
+      const drops = dropsOf(batch.id);
       for (const d of drops) d.outsideAgeWindow = specs.some((s) => !countsFor(s, d));
       const outliers = markOutliers(drops);
       const values = drops.map((d) => d.meanDeg);
@@ -287,8 +303,7 @@ export function buildComparison(input: ComparisonInput): Comparison {
         batch,
         drops,
         description,
-        wettingClass:
-          liquid.id === waterId && description ? classifyWetting(description.mean) : null,
+        wettingClass: withWettingClass && description ? classifyWetting(description.mean) : null,
         verdict: { outcome: overall(verdicts), specs: verdicts },
         ...batchCapability(specs, drops),
         outliers,
@@ -312,7 +327,18 @@ export function buildComparison(input: ComparisonInput): Comparison {
       anova: anovaSummary(measured),
       ...trendChart(measured),
     };
-  });
+  };
+
+  const liquidResults = liquids.map((liquid) =>
+    compare(
+      liquid,
+      input.specs.filter(
+        (s) => s.probeLiquidId === liquid.id && (s.minDeg !== null || s.maxDeg !== null),
+      ),
+      (batchId) => groups.get(key(batchId, liquid.id)) ?? [],
+      liquid.id === waterId,
+    ),
+  );
 
   const dropsOfBatch = (batchId: string) =>
     liquids.flatMap((l) => groups.get(key(batchId, l.id)) ?? []);
@@ -320,6 +346,9 @@ export function buildComparison(input: ComparisonInput): Comparison {
     batches,
     referenceBatch,
     liquids: liquidResults,
+    dynamic: compareDynamic(input, batchIds, (liquid, specs, dropsOf) =>
+      compare(liquid, specs, dropsOf, false),
+    ),
     surfaceEnergy: compareSurfaceEnergy(batches, liquids, input.specs, dropsOfBatch, minDrops),
     angleBasis: ANGLE_BASIS,
     outlierRule: OUTLIER_RULE,
@@ -330,10 +359,19 @@ export function buildComparison(input: ComparisonInput): Comparison {
 export const SURFACE_ENERGY_LABEL = 'Surface free energy';
 
 /** Each batch's verdicts: one per liquid, and the surface-energy one when there is a limit. */
-function batchVerdicts(comparison: Comparison): { batch: ComparisonBatchInput; label: string; verdict: BatchVerdict }[] {
+function batchVerdicts(
+  comparison: Comparison,
+): { batch: ComparisonBatchInput; label: string; verdict: BatchVerdict }[] {
   return [
     ...comparison.liquids.flatMap((liquid) =>
-      liquid.batches.map((r) => ({ batch: r.batch, label: liquid.liquid.name, verdict: r.verdict })),
+      liquid.batches.map((r) => ({
+        batch: r.batch,
+        label: liquid.liquid.name,
+        verdict: r.verdict,
+      })),
+    ),
+    ...comparison.dynamic.flatMap((quantity) =>
+      quantity.batches.map((r) => ({ batch: r.batch, label: quantity.title, verdict: r.verdict })),
     ),
     ...(comparison.surfaceEnergy?.batches ?? []).map((r) => ({
       batch: r.batch,

@@ -13,17 +13,26 @@ import type {
 import type {
   ComparisonBatchInput,
   ComparisonDropInput,
+  ComparisonDynamicInput,
   ComparisonLiquidInput,
   ComparisonSpecInput,
 } from '@/lib/contracts/compare';
 
-export type { ComparisonBatchInput, ComparisonDropInput, ComparisonLiquidInput, ComparisonSpecInput };
+export type {
+  ComparisonBatchInput,
+  ComparisonDropInput,
+  ComparisonDynamicInput,
+  ComparisonLiquidInput,
+  ComparisonSpecInput,
+};
 
 export interface ComparisonInput {
   batches: readonly ComparisonBatchInput[];
   liquids: readonly ComparisonLiquidInput[];
   specs: readonly ComparisonSpecInput[];
   drops: readonly ComparisonDropInput[];
+  /** Dynamic measurements (series): advancing, receding, hysteresis and roll-off per batch. */
+  dynamic?: readonly ComparisonDynamicInput[];
   /** The batch every other batch is also tested against (the "last good one"). */
   referenceBatchId?: string | null;
   /** Fewest drops a verdict needs (judgeAngles' default is 3). */
@@ -164,9 +173,23 @@ export interface Comparison {
   batches: ComparisonBatchInput[];
   referenceBatch: ComparisonBatchInput | null;
   liquids: LiquidComparison[];
+  /**
+   * Dynamic wetting per probe liquid and quantity (advancing, receding, hysteresis, roll-off),
+   * with the same statistics and verdicts as the static angles; only those measured or limited.
+   */
+  dynamic: DynamicQuantityComparison[];
   /** Surface free energy per batch; null when there is neither a limit nor a value. */
   surfaceEnergy: SurfaceEnergyComparison | null;
   /** Which angle the statistics use, in words. */
   angleBasis: string;
   outlierRule: string;
+}
+
+export type DynamicQuantity = 'advancing' | 'receding' | 'hysteresis' | 'rollOff';
+
+/** One dynamic quantity of one probe liquid compared across batches; each "drop" is a series. */
+export interface DynamicQuantityComparison extends LiquidComparison {
+  quantity: DynamicQuantity;
+  /** e.g. "Water, advancing angle". */
+  title: string;
 }

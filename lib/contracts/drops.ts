@@ -70,6 +70,14 @@ export const saveDropAnalysisSchema = z.object({
     .max(100_000)
     .nullable()
     .optional(),
+  /**
+   * The revision this save was based on: the drop's latest when the workspace loaded it, 0 for a
+   * photo never saved. A save based on an older one is refused (409 stale_revision).
+   */
+  expectedRevision: z
+    .number({ error: 'Say which revision this save is based on (0 for the first save).' })
+    .int()
+    .min(0),
   /** Stored with the result (`result.settings`, complete) so the analysis can be reproduced. */
   settings: analysisSettingsSchema.optional(),
   /** Why a saved drop is analysed again; required from the second revision on. */

@@ -21,6 +21,8 @@ export const ERROR_CODES = [
   'invalid_credentials',
   'too_many_attempts',
   'too_soon',
+  'rate_limited',
+  'idempotency_conflict',
   // Records
   'not_found',
   'archived',
@@ -44,16 +46,22 @@ export const ERROR_CODES = [
   'nothing_to_submit',
   'already_decided',
   'results_changed',
+  'own_review',
+  'not_approved',
   // Computation: surface energy, tensiometry, the drop-analysis engine
   'no_angles',
   'nothing_computed',
   'invalid_measurement',
   'unreadable_photo',
+  'unreadable_video',
   'no_drop_found',
   'baseline_not_found',
   'fit_failed',
   'bad_input',
+  // Drop saves
+  'stale_revision',
   // The server itself
+  'busy',
   'database_unreachable',
   'internal',
 ] as const;

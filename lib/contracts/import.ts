@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { IMPORT_TOO_LONG, MAX_IMPORT_CHARS } from './limits';
 
 /*
  * CSV import of contact angles read by hand (legacy data). The same parsing and row schema run
@@ -39,10 +40,7 @@ export const REQUIRED_COLUMNS: ImportColumn[] = [
   'measuredAt',
 ];
 
-/** Most rows one import takes; split larger legacy files. */
-export const MAX_IMPORT_ROWS = 5_000;
-/** Most characters of CSV text one import takes (about 1 MB). */
-export const MAX_IMPORT_CHARS = 1_000_000;
+export { MAX_IMPORT_CHARS, MAX_IMPORT_ROWS } from './limits';
 
 export const IMPORT_TEMPLATE = `${Object.values(IMPORT_COLUMNS)
   .map((column) => column.header)
@@ -145,10 +143,7 @@ export const importRequestSchema = z.object({
   csv: z
     .string({ error: 'Paste the CSV text or choose a CSV file.' })
     .min(1, 'Paste the CSV text or choose a CSV file.')
-    .max(
-      MAX_IMPORT_CHARS,
-      `Import at most ${MAX_IMPORT_CHARS.toLocaleString('en')} characters at once; split the file.`,
-    ),
+    .max(MAX_IMPORT_CHARS, IMPORT_TOO_LONG),
 });
 
 /** 201: how many rows became drops, and their ids. */

@@ -41,7 +41,17 @@ export const reviewListQuerySchema = z.object({
     .transform((v) => (v === 'submitted' || v === 'decided' ? v : undefined)),
 });
 
-export const REVIEW_STATUSES = ['submitted', 'approved', 'rejected', 'withdrawn'] as const;
+/**
+ * A review's states: submitted → approved (signed) or rejected; an approval → revoked only by an
+ * explicit revocation with its reason. ('withdrawn' is kept for rows of earlier versions.)
+ */
+export const REVIEW_STATUSES = [
+  'submitted',
+  'approved',
+  'rejected',
+  'withdrawn',
+  'revoked',
+] as const;
 export const ANALYSIS_REVIEW_STATUSES = ['draft', 'submitted', 'approved', 'rejected'] as const;
 export type AnalysisReviewStatus = (typeof ANALYSIS_REVIEW_STATUSES)[number];
 
@@ -68,6 +78,9 @@ export const reviewListItemSchema = z.object({
   sampleLabel: z.string().nullable(),
   submittedBy: z.string().nullable(),
   decidedBy: z.string().nullable(),
+  revokedAt: z.coerce.date().nullable(),
+  revokeReason: z.string(),
+  revokedBy: z.string().nullable(),
 });
 export type ReviewListItem = z.output<typeof reviewListItemSchema>;
 export const reviewListResponseSchema = z.object({ reviews: z.array(reviewListItemSchema) });
@@ -81,3 +94,18 @@ export const reviewDecisionResponseSchema = z.object({
   status: z.enum(['approved', 'rejected']),
   signature: signatureSchema.nullable(),
 });
+
+/** POST /api/reviews/[id]/revocation: withdraws a signed approval, with the reason. */
+export const revokeReviewSchema = z.object({
+  reason: z
+    .string()
+    .trim()
+    .min(
+      10,
+      'Say why the approval is withdrawn (at least 10 characters); it goes in the audit log.',
+    )
+    .max(4000, 'Use at most 4000 characters.'),
+});
+export type RevokeReview = z.output<typeof revokeReviewSchema>;
+
+export const revokeReviewResponseSchema = z.object({ status: z.literal('revoked') });

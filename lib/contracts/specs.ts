@@ -43,6 +43,22 @@ const specShape = {
   }),
   minSurfaceEnergyMnM: surfaceEnergy('minimum'),
   maxSurfaceEnergyMnM: surfaceEnergy('maximum'),
+  minAdvancingDeg: angle('minimum advancing'),
+  maxAdvancingDeg: angle('maximum advancing'),
+  minRecedingDeg: angle('minimum receding'),
+  maxRecedingDeg: angle('maximum receding'),
+  minHysteresisDeg: angle('minimum hysteresis'),
+  maxHysteresisDeg: angle('maximum hysteresis'),
+  minRollOffDeg: optionalNumber({
+    min: 0,
+    max: 90,
+    message: 'Enter the minimum roll-off angle in degrees of tilt, from 0 to 90.',
+  }),
+  maxRollOffDeg: optionalNumber({
+    min: 0,
+    max: 90,
+    message: 'Enter the maximum roll-off angle in degrees of tilt, from 0 to 90.',
+  }),
   maxDaysSinceTreatment: optionalNumber({
     min: 0,
     max: 3650,
@@ -58,18 +74,36 @@ export type SpecLimits = {
   maxDeg?: number | null;
   minSurfaceEnergyMnM?: number | null;
   maxSurfaceEnergyMnM?: number | null;
-};
+} & DynamicLimitValues;
+
+/** The dynamic-wetting limits of a spec (°), each optional. */
+export type DynamicLimitValues = { [K in (typeof DYNAMIC_LIMITS)[number][1 | 2]]?: number | null };
+
+/** The dynamic-wetting limit pairs of a spec: what each limits, its minimum and its maximum. */
+export const DYNAMIC_LIMITS = [
+  ['advancing angle', 'minAdvancingDeg', 'maxAdvancingDeg'],
+  ['receding angle', 'minRecedingDeg', 'maxRecedingDeg'],
+  ['hysteresis', 'minHysteresisDeg', 'maxHysteresisDeg'],
+  ['roll-off angle', 'minRollOffDeg', 'maxRollOffDeg'],
+] as const;
 
 /** Cross-field rules of a spec: at least one limit, and each minimum at most its maximum. */
 export function specLimitIssues(spec: SpecLimits): Issue[] {
   const issues: Issue[] = [];
   const { minDeg, maxDeg, minSurfaceEnergyMnM: minSfe, maxSurfaceEnergyMnM: maxSfe } = spec;
-  if (![minDeg, maxDeg, minSfe, maxSfe].some(given)) {
+  const dynamic = DYNAMIC_LIMITS.flatMap(([, min, max]) => [spec[min], spec[max]]);
+  if (![minDeg, maxDeg, minSfe, maxSfe, ...dynamic].some(given)) {
     issues.push({
       path: 'minDeg',
       message:
-        'Enter at least one limit: a minimum or maximum contact angle, or a surface-energy limit.',
+        'Enter at least one limit: a minimum or maximum contact angle, a surface-energy limit, or a dynamic-wetting limit.',
     });
+  }
+  for (const [name, minKey, maxKey] of DYNAMIC_LIMITS) {
+    const min = spec[minKey];
+    const max = spec[maxKey];
+    if (given(min) && given(max) && min > max)
+      issues.push({ path: maxKey, message: `Make the maximum ${name} at least the minimum.` });
   }
   if (given(minDeg) && given(maxDeg) && minDeg > maxDeg) {
     issues.push({ path: 'maxDeg', message: 'Make the maximum angle at least the minimum angle.' });
@@ -117,6 +151,14 @@ export const specSchema = z.object({
   scope: z.enum(SPEC_SCOPES),
   minSurfaceEnergyMnM: z.number().nullable(),
   maxSurfaceEnergyMnM: z.number().nullable(),
+  minAdvancingDeg: z.number().nullable(),
+  maxAdvancingDeg: z.number().nullable(),
+  minRecedingDeg: z.number().nullable(),
+  maxRecedingDeg: z.number().nullable(),
+  minHysteresisDeg: z.number().nullable(),
+  maxHysteresisDeg: z.number().nullable(),
+  minRollOffDeg: z.number().nullable(),
+  maxRollOffDeg: z.number().nullable(),
   maxDaysSinceTreatment: z.number().nullable(),
   note: z.string(),
 });

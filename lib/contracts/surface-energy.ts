@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { MAX_SURFACE_ENERGY_LIQUIDS, TOO_MANY_LIQUIDS } from './limits';
 import {
   SURFACE_ENERGY_METHOD_KEYS,
   UNCERTAINTY_BASES,
@@ -79,7 +80,7 @@ export const surfaceEnergyCalculateSchema = z
     liquids: z
       .array(liquidAngleSchema, { error: 'Send the liquids as a list.' })
       .min(1, 'Enter at least one liquid with its angle.')
-      .max(20, 'At most 20 liquids.'),
+      .max(MAX_SURFACE_ENERGY_LIQUIDS, TOO_MANY_LIQUIDS),
     ...optionsShape,
   })
   .superRefine((body, ctx) => {

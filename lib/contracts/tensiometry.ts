@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { MAX_PENDANT_EDGE_POINTS, PENDANT_EDGE_TOO_LONG } from './limits';
 import type {
   PendantDropResult,
   PendantEdgeExtraction,
@@ -128,7 +129,7 @@ export const pendantDropSchema = z.object({
       { error: 'Send the edge as a list of { x, y } points in px.' },
     )
     .min(20, 'At least 20 edge points are needed; use a sharper photo with the whole drop in view.')
-    .max(20_000, 'At most 20 000 edge points.'),
+    .max(MAX_PENDANT_EDGE_POINTS, PENDANT_EDGE_TOO_LONG),
   needleOuterDiameterMm: positive('needle outer diameter', 'mm', 20),
   needleOuterDiameterPx: positive('needle outer diameter in the photo', 'px', 100_000),
   densityDifferenceKgPerM3: positive('density difference', 'kg/m³', 30_000),

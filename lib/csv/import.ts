@@ -10,6 +10,7 @@ import {
   type ImportIssue,
   type ParsedImportRow,
 } from '@/lib/contracts/import';
+import { TOO_MANY_IMPORT_ROWS } from '@/lib/contracts/limits';
 
 /**
  * Parses and checks the CSV text: the header, then every row with importRowSchema. Returns all
@@ -97,7 +98,7 @@ export function parseImportCsv(
         {
           row: dataRecords[MAX_IMPORT_ROWS].info.lines,
           column: '—',
-          message: `Import at most ${MAX_IMPORT_ROWS} rows at once; split the file.`,
+          message: TOO_MANY_IMPORT_ROWS,
         },
       ],
     };

@@ -45,3 +45,14 @@ export {
 export { seriesReport, type SeriesReport, type ContractFrame, type ContractStats } from './report';
 export { fitLine, fitPolynomial, noiseFromSecondDifferences } from './regression';
 export { segmentLines, type LineSegment, type SegmentOptions } from './segments';
+export {
+  DYNAMIC_KINDS,
+  isFlagged,
+  keptFrames,
+  summariseMeasurement,
+  type DynamicKind,
+  type KeptSeriesFrame,
+  type MeasurementOptions,
+  type MeasurementResult,
+  type RollOff,
+} from './measurement';

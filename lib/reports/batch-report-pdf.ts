@@ -12,6 +12,8 @@ export type BatchReportData = {
   liquids: { name: string; hazardNote: string | null; result: BatchLiquidResult; specLines: SpecLine[] }[];
   /** The batch's OWRK surface free energy and its verdict, when the comparison has one. */
   surfaceEnergy: { result: BatchSurfaceEnergy; method: string; basis: string; coverageFactor: number } | null;
+  /** Dynamic wetting of the batch (advancing, receding, hysteresis, roll-off per liquid). */
+  dynamic?: { title: string; result: BatchLiquidResult }[];
   representative: { png: Buffer; caption: string } | null;
   review: { reviewerName: string; signedAt: string; digest: string; comment: string; analysisCount: number } | null;
   angleBasis: string;
@@ -222,6 +224,34 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
     if (!result.total && result.note) doc.fontSize(8.5).fillColor(MUTED).text(result.note, left, doc.y, { width });
     for (const spec of result.verdict.specs) {
       doc.fontSize(8.5).fillColor(MUTED).text(`Surface free energy — rule applied: ${spec.rule}. ${spec.reason}`, left, doc.y, { width });
+    }
+    doc.fontSize(9.5).fillColor(INK);
+  }
+
+  if (data.dynamic?.length) {
+    heading('Dynamic wetting');
+    doc.fontSize(8.5).fillColor(MUTED).text('Each series (a drop grown and withdrawn, or a tilting plate) counts once with the value of its latest analysis; statistics and verdicts as for the static angles.', left, doc.y, { width }).fontSize(9.5).fillColor(INK);
+    doc.moveDown(0.4);
+    const verdictOf = (r: BatchLiquidResult) => (r.verdict.outcome === 'no-spec' ? 'no spec' : r.verdict.outcome.replace(/-/g, ' '));
+    table(
+      [
+        { title: 'Quantity', width: 150 },
+        { title: 'n', width: 28, align: 'right' },
+        { title: 'Mean (°)', width: 50, align: 'right' },
+        { title: 'SD (°)', width: 42, align: 'right' },
+        { title: '95 % CI (°)', width: 80, align: 'right' },
+        { title: 'Verdict', width: 133 },
+      ],
+      data.dynamic.map(({ title, result }) => {
+        const d = result.description;
+        return [title, String(d?.n ?? 0), fmt(d?.mean), fmt(d?.sd, 2), d?.ci ? `${fmt(d.ci.lower)} – ${fmt(d.ci.upper)}` : '—', verdictOf(result).toUpperCase()];
+      }),
+      data.dynamic.map(({ result }) => (result.verdict.outcome === 'pass' ? LEAF : result.verdict.outcome === 'fail' ? CORAL : AMBER)),
+    );
+    for (const { title, result } of data.dynamic) {
+      for (const spec of result.verdict.specs) {
+        doc.fontSize(8.5).fillColor(MUTED).text(`${title} — rule applied: ${spec.rule} ${spec.reason}`, left, doc.y, { width });
+      }
     }
     doc.fontSize(9.5).fillColor(INK);
   }

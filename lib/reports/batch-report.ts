@@ -1,3 +1,5 @@
+import { DYNAMIC_LIMITS, type DynamicLimitValues } from '@/lib/contracts/specs';
+
 /*
  * The words of the certificate of analysis that do not depend on the database: how each analysis
  * method is cited and how a spec reads. The service that gathers the data is
@@ -14,14 +16,16 @@ export const METHOD_SOURCES: Record<string, string> = {
 };
 
 /** A spec in words: "at least 100° for every drop; within 7 days of treatment; …". */
-export function specText(s: {
-  minDeg: number | null;
-  maxDeg: number | null;
-  scope: 'each-drop' | 'mean';
-  minSurfaceEnergyMnM: number | null;
-  maxSurfaceEnergyMnM: number | null;
-  maxDaysSinceTreatment: number | null;
-}): string {
+export function specText(
+  s: {
+    minDeg: number | null;
+    maxDeg: number | null;
+    scope: 'each-drop' | 'mean';
+    minSurfaceEnergyMnM: number | null;
+    maxSurfaceEnergyMnM: number | null;
+    maxDaysSinceTreatment: number | null;
+  } & DynamicLimitValues,
+): string {
   const limits = [
     s.minDeg !== null ? `at least ${s.minDeg}°` : null,
     s.maxDeg !== null ? `at most ${s.maxDeg}°` : null,
@@ -37,6 +41,7 @@ export function specText(s: {
     s.maxSurfaceEnergyMnM !== null
       ? `surface free energy at most ${s.maxSurfaceEnergyMnM} mN/m`
       : null,
+    ...dynamicLimitTexts(s),
   ].filter(Boolean);
   return parts.join('; ') || 'no limits';
 }
@@ -44,4 +49,16 @@ export function specText(s: {
 /** certificate-HT-200-B-0412.pdf, safe in a Content-Disposition header. */
 export function reportFileName(coatingCode: string, lotCode: string): string {
   return `certificate-${coatingCode}-${lotCode}.pdf`.replace(/[^A-Za-z0-9._-]/g, '_');
+}
+
+/** "advancing angle at least 110°", one per dynamic limit a spec sets. */
+function dynamicLimitTexts(s: DynamicLimitValues): string[] {
+  return DYNAMIC_LIMITS.flatMap(([name, minKey, maxKey]) => {
+    const min = s[minKey];
+    const max = s[maxKey];
+    return [
+      ...(min !== null && min !== undefined ? [`${name} at least ${min}°`] : []),
+      ...(max !== null && max !== undefined ? [`${name} at most ${max}°`] : []),
+    ];
+  });
 }

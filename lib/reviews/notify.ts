@@ -4,21 +4,33 @@ import { noticeMail, type MailMessage } from '@/lib/email/messages';
 export function reviewOutcomeMail(input: {
   to: { email: string; name: string | null };
   organizationName: string;
-  status: 'approved' | 'rejected';
+  status: 'approved' | 'rejected' | 'revoked';
   comment: string;
   reviewerName: string;
   /** What was reviewed, e.g. "HT-200 B-0412 / P-01". */
   subject: string;
   link: string;
 }): MailMessage {
-  const verdict = input.status === 'approved' ? 'approved and signed' : 'rejected';
+  const verdict = {
+    approved: 'approved and signed',
+    rejected: 'rejected',
+    revoked: 'revoked the approval of',
+  }[input.status];
   return noticeMail({
     to: input.to.email,
-    subject: `Results ${verdict}: ${input.subject}`,
+    subject:
+      input.status === 'revoked'
+        ? `Approval revoked: ${input.subject}`
+        : `Results ${verdict}: ${input.subject}`,
     paragraphs: [
       `Hello ${input.to.name ?? ''},`.trim(),
       `${input.reviewerName} ${verdict} the results you submitted for ${input.subject} in ${input.organizationName}.`,
-      ...(input.comment ? [`Comment: ${input.comment}`] : []),
+      ...(input.status === 'revoked'
+        ? ['These results are no longer approved: they need a new review before they count again.']
+        : []),
+      ...(input.comment
+        ? [`${input.status === 'revoked' ? 'Reason' : 'Comment'}: ${input.comment}`]
+        : []),
     ],
     link: { href: input.link, label: 'Open the review' },
     footer: 'You get this mail because you submitted these results for review in Beadline.',

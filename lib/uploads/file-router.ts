@@ -53,7 +53,7 @@ export const DROP_PHOTO_ROUTE_CONFIG = {
  * What the browser sends with an upload (`input: {}` when there is nothing to say). An object,
  * not an optional one: the SDK's client type drops `input` altogether for optional inputs.
  */
-export const PHOTO_PURPOSES = ['sessile-drop', 'pendant-drop'] as const;
+export const PHOTO_PURPOSES = ['sessile-drop', 'pendant-drop', 'series-frame'] as const;
 export type PhotoPurpose = (typeof PHOTO_PURPOSES)[number];
 
 export const dropPhotoInputSchema = z.object({

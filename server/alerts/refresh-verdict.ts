@@ -14,6 +14,7 @@ import { outOfSpecMail, overallOutcome, type BatchOutcome } from '@/lib/alerts/o
 import { batchesOutOfSpec, buildComparison, verdictOutcomes } from '@/lib/compare';
 import { appUrl } from '@/lib/config';
 import { enqueueMail } from '../mail/queue';
+import { resultVisibility } from '../visibility';
 
 /**
  * Re-judges a batch after its results changed (a saved analysis, an import) and stores its
@@ -29,7 +30,7 @@ export async function refreshBatchVerdict(
   if (!batch) return null;
   const loaded = await loadComparison(organizationId, batch.coatingId, {
     batches: [batchId],
-    approvedOnly: false,
+    visibility: 'all',
   });
   const comparison = buildComparison(loaded);
   const outcome = overallOutcome(verdictOutcomes(comparison));
@@ -51,7 +52,11 @@ export async function refreshBatchVerdict(
     const reasons = batchesOutOfSpec(comparison).map(
       (f) => `${f.liquidName}: ${f.rule} ${f.reason}`,
     );
-    for (const watcher of await watchersOf(tx, organizationId, batch.coatingId)) {
+    // The verdict counts every latest result: only watchers who may see them all are told.
+    const watchers = (await watchersOf(tx, organizationId, batch.coatingId)).filter(
+      (w) => resultVisibility(w.role) === 'all',
+    );
+    for (const { role: _role, ...watcher } of watchers) {
       await enqueueMail(tx, {
         kind: 'out-of-spec',
         ...outOfSpecMail({

@@ -6,6 +6,7 @@ import {
   loadComparison,
 } from '@/db/queries/comparison';
 import type { OrgContext } from '@/lib/auth/context';
+import { resultVisibility } from '../visibility';
 import { can } from '@/lib/auth/permissions';
 import { buildComparison, compareSearch, dropsCsv, type CompareQuery } from '@/lib/compare';
 import { AppError } from '@/lib/app-error';
@@ -20,14 +21,15 @@ export { DEFAULT_BATCH_COUNT };
 export async function loadComparePage(ctx: OrgContext, query: CompareQuery) {
   const organizationId = ctx.organization.id;
   const role = ctx.organization.role;
-  const approvedOnly = !can(role, 'results:read-all');
+  const visibility = resultVisibility(role);
+  const approvedOnly = visibility === 'approved';
   const coatings = await listComparisonCoatings(organizationId);
-  const coating =
-    coatings.length > 0 && query.coating
-      ? await findComparisonCoating(organizationId, query.coating)
-      : null;
+  // The chosen coating is one of the live coatings just listed: no second round trip.
+  const coating = query.coating
+    ? (coatings.find((c) => c.id === query.coating || c.code === query.coating) ?? null)
+    : null;
   const data = coating
-    ? await loadComparison(organizationId, coating.id, { batches: query.batches, approvedOnly })
+    ? await loadComparison(organizationId, coating.id, { batches: query.batches, visibility })
     : null;
   const known = new Set(data?.allBatches.flatMap((b) => [b.id, b.lotCode]) ?? []);
   const reference =
@@ -39,6 +41,7 @@ export async function loadComparePage(ctx: OrgContext, query: CompareQuery) {
           liquids: data.liquids,
           specs: data.specs,
           drops: data.drops,
+          dynamic: data.dynamic,
           referenceBatchId: reference?.id ?? null,
         })
       : null;
@@ -85,7 +88,7 @@ export async function exportComparisonDrops(
   }
   const data = await loadComparison(ctx.organization.id, coating.id, {
     batches: query.batches,
-    approvedOnly: !can(ctx.organization.role, 'results:read-all'),
+    visibility: resultVisibility(ctx.organization.role),
   });
   const names = new Map(data.liquids.map((l) => [l.id, l.name]));
   const csv = dropsCsv(

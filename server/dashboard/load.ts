@@ -3,20 +3,20 @@ import { emailVerifiedAt } from '@/db/queries/account-tokens';
 import { listComparisonCoatings, loadComparison } from '@/db/queries/comparison';
 import { pendingReviewCount, recentDrops } from '@/db/queries/dashboard';
 import type { OrgContext } from '@/lib/auth/context';
-import { can } from '@/lib/auth/permissions';
 import { batchesOutOfSpec, buildComparison } from '@/lib/compare';
 import type { OutOfSpecBatch } from '@/lib/contracts/dashboard';
+import { resultVisibility, type ResultVisibility } from '../visibility';
 
 /** Batches (each coating's newest twelve) whose comparison verdict is fail for some liquid. */
 export async function outOfSpecBatches(
   organizationId: string,
-  options: { approvedOnly: boolean },
+  options: { visibility: ResultVisibility },
 ): Promise<OutOfSpecBatch[]> {
   const coatings = await listComparisonCoatings(organizationId);
   const perCoating = await Promise.all(
     coatings.map(async (coating) => {
       const data = await loadComparison(organizationId, coating.id, {
-        approvedOnly: options.approvedOnly,
+        visibility: options.visibility,
       });
       return batchesOutOfSpec(buildComparison(data)).map((b) => ({
         coatingCode: coating.code,
@@ -37,11 +37,12 @@ export async function outOfSpecBatches(
  */
 export async function loadDashboard(ctx: OrgContext) {
   const organizationId = ctx.organization.id;
-  const approvedOnly = !can(ctx.organization.role, 'results:read-all');
+  const visibility = resultVisibility(ctx.organization.role);
+  const approvedOnly = visibility === 'approved';
   const [verified, drops, outOfSpec, pending] = await Promise.all([
     emailVerifiedAt(ctx.user.id),
-    recentDrops(organizationId, { approvedOnly }),
-    outOfSpecBatches(organizationId, { approvedOnly }),
+    recentDrops(organizationId, { visibility }),
+    outOfSpecBatches(organizationId, { visibility }),
     approvedOnly ? Promise.resolve(null) : pendingReviewCount(organizationId),
   ]);
   return { emailVerified: verified !== null, approvedOnly, drops, outOfSpec, pending };

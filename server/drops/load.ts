@@ -1,12 +1,20 @@
 import 'server-only';
 import { getDropDetail, listDropRevisions } from '@/db/queries/drops';
 import type { OrgContext } from '@/lib/auth/context';
+import { resultVisibility } from '../visibility';
 
-/** A drop's page (null when the organization has no such drop): where it sits, its photo, and every revision with who, when, why and how. */
+/**
+ * A drop's page: where it sits, its photo, and every revision with who, when, why and how. Null
+ * when the organization has no such drop, or when the role sees approved results only and this
+ * drop's latest result is not approved.
+ */
 export async function loadDropPage(ctx: OrgContext, dropId: string) {
   const drop = await getDropDetail(ctx.organization.id, dropId);
   if (!drop) return null;
-  const revisions = (await listDropRevisions(dropId)).map((r) => ({
+  const visibility = resultVisibility(ctx.organization.role);
+  const listed = await listDropRevisions(dropId, visibility);
+  if (visibility === 'approved' && listed.length === 0) return null;
+  const revisions = listed.map((r) => ({
     ...r,
     baselineSource: r.options.baselineSource ?? (r.baseline ? 'given' : 'automatic'),
     scaleUsedPxPerMm: r.options.scalePxPerMm ?? null,

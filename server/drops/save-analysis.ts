@@ -1,5 +1,5 @@
 import 'server-only';
-import { recordAudit } from '@/db/queries/audit';
+import { auditAs } from '@/db/queries/audit';
 import {
   engineAnalysisRow,
   findLiveDropOfPhoto,
@@ -13,7 +13,6 @@ import { getPhoto } from '@/db/queries/photos';
 import { findRecord, ownedBy, probeLiquidVisibleTo } from '@/db/queries/records';
 import { inTransaction, type Transaction } from '@/db/queries/transaction';
 import { measurementSessions, probeLiquids, samples } from '@/db/schema';
-import { analyseDrop } from '@/lib/analysis';
 import { AnalysisError } from '@/lib/analysis/types';
 import { AppError, notFound } from '@/lib/app-error';
 import type {
@@ -23,6 +22,7 @@ import type {
 } from '@/lib/contracts/drops';
 import type { Actor } from '../actor';
 import { refreshVerdictOfSampleQuietly } from '../alerts/refresh-verdict';
+import { runCompute } from '../compute/pool';
 import { loadPhotoGray } from '../photos/pixels';
 import { fromAnalysisError } from './analysis-error';
 
@@ -31,8 +31,19 @@ const missing = (field: string, what: string) =>
     fields: { [field]: `Choose a ${what.toLowerCase()} of this organization.` },
   });
 
+const staleRevision = (current: number) =>
+  new AppError(
+    'stale_revision',
+    `This drop was saved as revision ${current} since you loaded it (by another tab or person). Nothing was saved: reload revision ${current}, check it, then save again.`,
+    { extra: { current: { revision: current } } },
+  );
+
 /** The sample, probe liquid and session a save names must be this organization's. */
-async function checkReferences(tx: Transaction, actor: Actor, input: SaveDropAnalysisInput) {
+export async function checkReferences(
+  tx: Transaction,
+  actor: Actor,
+  input: Pick<SaveDropAnalysisInput, 'sampleId' | 'probeLiquidId' | 'sessionId'>,
+) {
   const org = actor.organizationId;
   const sample = await findRecord<{ archivedAt: Date | null }>(
     tx,
@@ -69,11 +80,16 @@ export async function saveDropAnalysis(
   const image = await loadPhotoGray(actor.organizationId, photoId);
   let analysed;
   try {
-    analysed = await analyseDrop(image, {
-      method: input.method,
-      ...(input.baseline ? { baseline: input.baseline } : {}),
-      ...(input.scalePxPerMm ? { scalePxPerMm: input.scalePxPerMm } : {}),
-      ...(input.settings ? { settings: input.settings } : {}),
+    // In the compute pool, off the request thread; the same lib/analysis code, the same numbers.
+    analysed = await runCompute(actor.userId, {
+      kind: 'analyse-drop',
+      image,
+      options: {
+        method: input.method,
+        ...(input.baseline ? { baseline: input.baseline } : {}),
+        ...(input.scalePxPerMm ? { scalePxPerMm: input.scalePxPerMm } : {}),
+        ...(input.settings ? { settings: input.settings } : {}),
+      },
     });
   } catch (error) {
     if (error instanceof AnalysisError) {
@@ -91,30 +107,9 @@ export async function saveDropAnalysis(
   const saved = await inTransaction(async (tx) => {
     await checkReferences(tx, actor, input);
     await lockPhotoDrops(tx, photoId);
-    const audit = (action: string, entityType: string, entityId: string, change: object) =>
-      recordAudit(tx, {
-        actorUserId: actor.userId,
-        organizationId: actor.organizationId,
-        action,
-        entityType,
-        entityId,
-        ...change,
-      });
+    const audit = auditAs(tx, actor);
     const placement = { sampleId: input.sampleId, probeLiquidId: input.probeLiquidId };
     const existing = await findLiveDropOfPhoto(tx, photoId);
-    const reason = input.reason?.trim() || null;
-    if (existing && !reason) {
-      throw new AppError(
-        'invalid_input',
-        'This drop is saved already: say why it is analysed again.',
-        {
-          fields: {
-            reason:
-              'Say why this drop is analysed again (e.g. baseline moved to the contact points).',
-          },
-        },
-      );
-    }
     const dropId = existing?.id ?? newId();
     const newDrop = existing
       ? []
@@ -146,6 +141,22 @@ export async function saveDropAnalysis(
       });
     }
     const revision = existing ? await nextRevision(tx, dropId) : 1;
+    // Under the photo's lock: a save based on an older revision (another tab, another user, a
+    // simultaneous save) would silently pass over the one saved in between.
+    if (revision - 1 !== input.expectedRevision) throw staleRevision(revision - 1);
+    const reason = input.reason?.trim() || null;
+    if (existing && !reason) {
+      throw new AppError(
+        'invalid_input',
+        'This drop is saved already: say why it is analysed again.',
+        {
+          fields: {
+            reason:
+              'Say why this drop is analysed again (e.g. baseline moved to the contact points).',
+          },
+        },
+      );
+    }
     const analysisId = newId();
     await insertDropsAndAnalyses(tx, newDrop, [
       engineAnalysisRow({

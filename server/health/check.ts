@@ -1,5 +1,6 @@
 import 'server-only';
 import { ping } from '@/db/queries/health';
+import { computeInFlight } from '../compute/pool';
 
 /** Whether the database answers a trivial query. */
 export async function databaseAnswers(): Promise<boolean> {
@@ -9,4 +10,9 @@ export async function databaseAnswers(): Promise<boolean> {
   } catch {
     return false;
   }
+}
+
+/** What /api/health reports besides the database: calculations in the compute pool. */
+export function computeLoad(): { inFlight: number } {
+  return { inFlight: computeInFlight() };
 }

@@ -29,9 +29,18 @@ export async function readJsonObject(
   request: Request,
   maxBytes = DEFAULT_MAX_BODY_BYTES,
 ): Promise<Record<string, unknown>> {
+  return parseJsonObject(await readBodyBytes(request, maxBytes));
+}
+
+/** The raw body, refusing more than `maxBytes` (from Content-Length, and while streaming). */
+export async function readBodyBytes(request: Request, maxBytes: number): Promise<Uint8Array> {
   const declared = Number(request.headers.get('content-length'));
   if (Number.isFinite(declared) && declared > maxBytes) throw tooLarge(maxBytes);
-  const bytes = await readAtMost(request, maxBytes);
+  return readAtMost(request, maxBytes);
+}
+
+/** Body bytes → a JSON object, or the 400 invalid_json saying what is wrong. */
+export function parseJsonObject(bytes: Uint8Array): Record<string, unknown> {
   let text: string;
   try {
     text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
@@ -49,6 +58,36 @@ export async function readJsonObject(
     throw invalidJson('The request body is JSON, but not an object.');
   }
   return body as Record<string, unknown>;
+}
+
+/**
+ * Body bytes of a multipart/form-data request → its text fields and its files. Anything else is
+ * a 400 that says to send multipart.
+ */
+export async function parseMultipart(
+  bytes: Uint8Array,
+  contentType: string | null,
+): Promise<{ fields: Record<string, string>; files: Record<string, File> }> {
+  const notMultipart = new AppError(
+    'invalid_input',
+    'Send this request as multipart/form-data: the photo as a file part and the other fields as text parts.',
+  );
+  if (!contentType?.toLowerCase().startsWith('multipart/form-data')) throw notMultipart;
+  let form: FormData;
+  try {
+    form = await new Response(bytes as BodyInit, {
+      headers: { 'content-type': contentType },
+    }).formData();
+  } catch {
+    throw notMultipart;
+  }
+  const fields: Record<string, string> = {};
+  const files: Record<string, File> = {};
+  for (const [name, value] of form.entries()) {
+    if (typeof value === 'string') fields[name] = value;
+    else files[name] = value;
+  }
+  return { fields, files };
 }
 
 async function readAtMost(request: Request, maxBytes: number): Promise<Uint8Array> {

@@ -23,6 +23,8 @@ export const HTTP_STATUS = {
   invalid_credentials: 401,
   too_many_attempts: 429,
   too_soon: 429,
+  rate_limited: 429,
+  idempotency_conflict: 409,
   not_found: 404,
   archived: 409,
   duplicate: 409,
@@ -43,14 +45,19 @@ export const HTTP_STATUS = {
   nothing_to_submit: 409,
   already_decided: 409,
   results_changed: 409,
+  own_review: 403,
+  not_approved: 409,
+  stale_revision: 409,
   no_angles: 422,
   nothing_computed: 422,
   invalid_measurement: 422,
   unreadable_photo: 422,
+  unreadable_video: 422,
   no_drop_found: 422,
   baseline_not_found: 422,
   fit_failed: 422,
   bad_input: 422,
+  busy: 429,
   database_unreachable: 503,
   internal: 500,
 } as const satisfies Record<ErrorCode, number>;
@@ -86,5 +93,9 @@ export function describeError(error: unknown, where: string): Described {
 
 export function errorResponse(error: unknown): Response {
   const { status, body } = describeError(error, 'api');
-  return Response.json(body, { status });
+  const retryAfter = error instanceof AppError ? error.retryAfterSeconds : undefined;
+  return Response.json(body, {
+    status,
+    headers: retryAfter === undefined ? undefined : { 'Retry-After': String(retryAfter) },
+  });
 }

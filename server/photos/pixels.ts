@@ -3,9 +3,9 @@ import { promisify } from 'node:util';
 import { gzip } from 'node:zlib';
 import { getPhotoSource, getPhotoThumbnail } from '@/db/queries/photos';
 import { encodeGrayPixels } from '@/lib/analysis/gray-pixels';
-import { decodeImageBytes } from '@/lib/analysis/node/decode';
+import { DecodeError, decodeImageBytes } from '@/lib/analysis/node/decode';
 import type { GrayImage } from '@/lib/analysis/types';
-import { notFound } from '@/lib/app-error';
+import { AppError, notFound } from '@/lib/app-error';
 import { fetchStoredFile } from '@/lib/uploads/file-router';
 
 const gzipAsync = promisify(gzip);
@@ -25,10 +25,18 @@ export async function loadPhotoBytes(
 /**
  * Grayscale pixels of a photo as lib/analysis reads them everywhere in Node (the CLI too): the
  * oriented copy when the upload check made one, else the original; 16-bit sources stay 16-bit.
+ * A photo that cannot be decoded (or has more pixels than the analysis takes) is 422
+ * unreadable_photo naming `photoId`.
  */
 export async function loadPhotoGray(organizationId: string, photoId: string): Promise<GrayImage> {
   const { bytes } = await loadPhotoBytes(organizationId, photoId);
-  return decodeImageBytes(bytes);
+  try {
+    return await decodeImageBytes(bytes);
+  } catch (error) {
+    if (!(error instanceof DecodeError)) throw error;
+    const message = `The stored photo cannot be analysed: ${error.message} Upload it again as PNG or JPEG.`;
+    throw new AppError('unreadable_photo', message, { fields: { photoId: message } });
+  }
 }
 
 /** The small PNG of the workspace strip and the saved-results lists. */

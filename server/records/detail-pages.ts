@@ -6,6 +6,7 @@ import type { BatchListQuery } from '@/lib/contracts/batches';
 import { MAX_PAGE_SIZE } from '@/lib/contracts/common';
 import type { SampleListQuery } from '@/lib/contracts/samples';
 import { isWatching } from '../alerts/watch';
+import { resultVisibility } from '../visibility';
 import { findRecordOf, getRecord } from './get';
 import { batchRecords, coatingRecords, probeLiquidRecords, specRecords } from './kinds';
 import { listRecords } from './list';
@@ -30,10 +31,11 @@ export async function loadBatchPage(
   const batch = await findRecordOf(batchRecords, organizationId, batchId);
   if (!batch) return null;
   const canWrite = can(ctx.organization.role, 'records:write') && !batch.archivedAt;
+  const visibility = resultVisibility(ctx.organization.role);
   const [coating, samples, drops, coatings] = await Promise.all([
     getRecord(coatingRecords, organizationId, batch.coatingId),
-    listSamplesWithResults(organizationId, sampleQuery),
-    listBatchDrops(organizationId, batchId),
+    listSamplesWithResults(organizationId, sampleQuery, visibility),
+    listBatchDrops(organizationId, batchId, visibility),
     canWrite ? allCoatings(organizationId).then((page) => page.items) : Promise.resolve([]),
   ]);
   return { batch, canWrite, coating, samples, drops, coatings };

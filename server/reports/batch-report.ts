@@ -9,9 +9,9 @@ import {
   methodsUsedInBatch,
   probeLiquidHazards,
 } from '@/db/queries/reports';
-import { notFound } from '@/lib/app-error';
+import { AppError, notFound } from '@/lib/app-error';
 import type { OrgContext } from '@/lib/auth/context';
-import { can } from '@/lib/auth/permissions';
+import { resultVisibility } from '../visibility';
 import { buildComparison, type Comparison } from '@/lib/compare';
 import { SOFTWARE_VERSION } from '@/lib/measure/version';
 import { METHOD_SOURCES, reportFileName, specText } from '@/lib/reports/batch-report';
@@ -61,16 +61,17 @@ export async function buildBatchReport(
   const organizationId = ctx.organization.id;
   const batch = await findBatchWithCoating(organizationId, batchId);
   if (!batch) throw notFound('That batch');
-  const approvedOnly = !can(ctx.organization.role, 'results:read-all');
+  const visibility = resultVisibility(ctx.organization.role);
   const loaded = await loadComparison(organizationId, batch.coatingId, {
     batches: [batch.id],
-    approvedOnly,
+    visibility,
   });
   const comparison = buildComparison({
     batches: loaded.batches,
     liquids: loaded.liquids,
     specs: loaded.specs,
     drops: loaded.drops,
+    dynamic: loaded.dynamic,
   });
   const [specRows, sampleRows, hazards, review, methods, representative] = await Promise.all([
     listSpecsOfCoating(batch.coatingId),
@@ -80,6 +81,13 @@ export async function buildBatchReport(
     methodsUsedInBatch(batch.id),
     representativeDrop(organizationId, batch.id, comparison),
   ]);
+  // Viewers see approved results only (db/queries/visibility.ts): no certificate without them.
+  if (visibility === 'approved' && (!review || loaded.drops.length === 0)) {
+    throw new AppError(
+      'forbidden',
+      'This batch has no approved results yet, so its certificate of analysis is not available to your role. It can be downloaded once a reviewer approves the batch.',
+    );
+  }
   const se = comparison.surfaceEnergy;
   const seResult = se?.batches.find((b) => b.batch.id === batch.id);
 
@@ -120,6 +128,10 @@ export async function buildBatchReport(
             coverageFactor: se.coverageFactor,
           }
         : null,
+    dynamic: comparison.dynamic.flatMap((q) => {
+      const result = q.batches.find((b) => b.batch.id === batch.id);
+      return result && result.drops.length > 0 ? [{ title: q.title, result }] : [];
+    }),
     representative,
     review: review?.signature
       ? {

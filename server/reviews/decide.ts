@@ -1,12 +1,19 @@
 import 'server-only';
 import { recordAudit } from '@/db/queries/audit';
-import { decideIfSubmitted, setAnalysesReviewStatus } from '@/db/queries/reviews';
+import {
+  closeReviewItems,
+  decideIfSubmitted,
+  lockAnalysesOfReview,
+  lockReview,
+  setAnalysesReviewStatus,
+} from '@/db/queries/reviews';
 import { inTransaction } from '@/db/queries/transaction';
 import { AppError, notFound } from '@/lib/app-error';
 import type { OrgContext } from '@/lib/auth/context';
 import { checkCredentials } from '@/lib/auth/sign-in';
 import type { ReviewDecision, Signature } from '@/lib/contracts/reviews';
 import { signedDigest } from '@/lib/reviews/signature';
+import { decidersOfReview, ownReviewMessage } from './deciders';
 import { loadReview } from './load';
 import { queueReviewOutcomeMail } from './notify';
 
@@ -25,9 +32,19 @@ async function checkSignature(ctx: OrgContext, password: string, ipAddress: stri
   );
 }
 
+const alreadyDecided = (status: string) =>
+  new AppError(
+    'already_decided',
+    status === 'approved'
+      ? 'This review was already approved and signed. A signed approval can only be withdrawn by revoking it, with a reason. Nothing was changed.'
+      : `This review was already ${status}. Nothing was changed.`,
+  );
+
 /**
- * Approves (signed) or rejects a submitted review. Approval freezes the reviewed revisions as
- * approved and is refused if any of them was re-analysed since submission. The decision, the
+ * Approves (signed) or rejects a submitted review. Never by its submitter (four-eyes). Inside the
+ * transaction the review and its analyses are locked and checked again: the review must still
+ * be submitted, and every analysis still 'submitted' (approval also needs each to be its drop's
+ * latest revision), so a decision can never contradict another one. The decision, the
  * revisions' status, the audit row and the mail to the submitter are one transaction.
  */
 export async function decideReview(
@@ -36,22 +53,15 @@ export async function decideReview(
   input: ReviewDecision,
   ipAddress: string,
 ): Promise<{ status: 'approved' | 'rejected'; signature: Signature | null }> {
-  if (input.decision === 'approve') await checkSignature(ctx, input.password, ipAddress);
   const organizationId = ctx.organization.id;
   const review = await loadReview(organizationId, reviewId);
   if (!review) throw notFound('That review');
-  if (review.status !== 'submitted') {
-    throw new AppError(
-      'already_decided',
-      `This review was already ${review.status}. Nothing was changed.`,
-    );
+  if (review.submittedByUserId === ctx.user.id) {
+    const { others } = await decidersOfReview(organizationId, review.submittedByUserId);
+    throw new AppError('own_review', ownReviewMessage(ctx.organization.name, others));
   }
-  if (input.decision === 'approve' && review.supersededCount > 0) {
-    throw new AppError(
-      'results_changed',
-      `${review.supersededCount} of the submitted results were re-analysed after submission. Reject this review and ask for the new results to be submitted.`,
-    );
-  }
+  if (review.status !== 'submitted') throw alreadyDecided(review.status);
+  if (input.decision === 'approve') await checkSignature(ctx, input.password, ipAddress);
   const status = input.decision === 'approve' ? 'approved' : 'rejected';
   const decidedAt = new Date();
   const signature: Signature | null =
@@ -65,6 +75,24 @@ export async function decideReview(
         }
       : null;
   await inTransaction(async (tx) => {
+    const locked = await lockReview(tx, reviewId);
+    if (locked?.status !== 'submitted') throw alreadyDecided(locked?.status ?? 'decided');
+    const analyses = await lockAnalysesOfReview(tx, review.analysisIds);
+    const changed =
+      review.analysisIds.length - analyses.filter((a) => a.reviewStatus === 'submitted').length;
+    if (changed > 0) {
+      throw new AppError(
+        'results_changed',
+        `${changed} of the submitted results are no longer in the state that was reviewed (another review decided them). Nothing was changed; reload the review.`,
+      );
+    }
+    const superseded = analyses.filter((a) => !a.latest).length;
+    if (input.decision === 'approve' && superseded > 0) {
+      throw new AppError(
+        'results_changed',
+        `${superseded} of the submitted results were re-analysed after submission. Reject this review and ask for the new results to be submitted.`,
+      );
+    }
     const decided = await decideIfSubmitted(tx, reviewId, {
       status,
       decidedByUserId: ctx.user.id,
@@ -78,11 +106,8 @@ export async function decideReview(
         'Someone else decided this review a moment ago. Nothing was changed.',
       );
     }
-    await setAnalysesReviewStatus(
-      tx,
-      review.rows.map((r) => r.analysisId),
-      status,
-    );
+    await closeReviewItems(tx, reviewId);
+    await setAnalysesReviewStatus(tx, review.analysisIds, status, 'submitted');
     await recordAudit(tx, {
       actorUserId: ctx.user.id,
       organizationId,

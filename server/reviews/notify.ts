@@ -15,7 +15,7 @@ export async function queueReviewOutcomeMail(
     >;
     organizationName: string;
     reviewerName: string;
-    status: 'approved' | 'rejected';
+    status: 'approved' | 'rejected' | 'revoked';
     comment: string;
   },
 ): Promise<void> {

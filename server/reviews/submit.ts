@@ -1,11 +1,12 @@
 import 'server-only';
 import { recordAudit } from '@/db/queries/audit';
 import { newId } from '@/db/queries/ids';
-import { findRecord, ownedBy } from '@/db/queries/records';
+import { findRecord, ownedBy, violatedUniqueConstraint } from '@/db/queries/records';
 import {
   findSampleOfBatch,
   insertReview,
   latestAnalysesUnder,
+  lockBatchForSubmission,
   setAnalysesReviewStatus,
 } from '@/db/queries/reviews';
 import { database, inTransaction } from '@/db/queries/transaction';
@@ -35,37 +36,48 @@ export async function submitForReview(
       fields: { sampleId: 'Choose a sample of this batch.' },
     });
   }
-  const rows = (await latestAnalysesUnder(actor.organizationId, input.batchId, sampleId)).filter(
-    (r) => r.reviewStatus === 'draft' || r.reviewStatus === 'rejected',
-  );
-  if (rows.length === 0) {
-    throw new AppError(
-      'nothing_to_submit',
-      'There are no new or rejected results to submit here: every latest result is already submitted or approved.',
-    );
-  }
   const reviewId = newId();
-  const analysisIds = rows.map((r) => r.analysisId);
-  await inTransaction(async (tx) => {
-    await insertReview(tx, {
-      id: reviewId,
-      organizationId: actor.organizationId,
-      scope: sampleId ? 'sample' : 'batch',
-      batchId: input.batchId,
-      sampleId,
-      analysisIds,
-      submittedByUserId: actor.userId,
-      submitNote: input.note,
+  try {
+    return await inTransaction(async (tx) => {
+      // Submissions of one batch run one after the other; the second sees what the first took.
+      await lockBatchForSubmission(tx, input.batchId);
+      const rows = (
+        await latestAnalysesUnder(actor.organizationId, input.batchId, sampleId, tx)
+      ).filter((r) => r.reviewStatus === 'draft' || r.reviewStatus === 'rejected');
+      if (rows.length === 0) throw nothingToSubmit();
+      const analysisIds = rows.map((r) => r.analysisId);
+      await insertReview(tx, {
+        id: reviewId,
+        organizationId: actor.organizationId,
+        scope: sampleId ? 'sample' : 'batch',
+        batchId: input.batchId,
+        sampleId,
+        analysisIds,
+        submittedByUserId: actor.userId,
+        submitNote: input.note,
+      });
+      await setAnalysesReviewStatus(tx, analysisIds, 'submitted');
+      await recordAudit(tx, {
+        actorUserId: actor.userId,
+        organizationId: actor.organizationId,
+        action: 'review.submit',
+        entityType: 'review',
+        entityId: reviewId,
+        after: { batchId: input.batchId, sampleId, analyses: rows.length, note: input.note },
+      });
+      return { reviewId, analysisCount: rows.length };
     });
-    await setAnalysesReviewStatus(tx, analysisIds, 'submitted');
-    await recordAudit(tx, {
-      actorUserId: actor.userId,
-      organizationId: actor.organizationId,
-      action: 'review.submit',
-      entityType: 'review',
-      entityId: reviewId,
-      after: { batchId: input.batchId, sampleId, analyses: rows.length, note: input.note },
-    });
-  });
-  return { reviewId, analysisCount: rows.length };
+  } catch (error) {
+    // The partial unique index on open review items: another submission took them first.
+    if (violatedUniqueConstraint(error) === 'review_items_open_analysis_unique') {
+      throw nothingToSubmit();
+    }
+    throw error;
+  }
 }
+
+const nothingToSubmit = () =>
+  new AppError(
+    'nothing_to_submit',
+    'There are no new or rejected results to submit here: every latest result is already in a review waiting for its decision, or approved. Open Reviews to see it.',
+  );

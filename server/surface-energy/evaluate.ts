@@ -2,7 +2,7 @@ import 'server-only';
 import { findSurfaceEnergySubject, listLatestDropAngles } from '@/db/queries/surface-energy';
 import { notFound } from '@/lib/app-error';
 import type { OrgContext } from '@/lib/auth/context';
-import { can } from '@/lib/auth/permissions';
+import { resultVisibility, type ResultVisibility } from '../visibility';
 import type {
   AngleTableRow,
   SampleSurfaceEnergyOptions,
@@ -23,13 +23,13 @@ export const subjectOf = (kind: SubjectKind, id: string): SurfaceEnergySubject =
 
 /**
  * The angle table of a sample (or of every sample of a batch): per probe liquid, the mean, SD
- * and n of the drops' mean angles, each drop counted by its latest analysis. Without `readAll`
- * (viewers) a drop counts only when that latest analysis is approved.
+ * and n of the drops' mean angles, each drop counted by its latest analysis, as `visibility` allows
+ * (db/queries/visibility.ts).
  */
 export async function angleTable(
   organizationId: string,
   subject: SurfaceEnergySubject,
-  options: { readAll: boolean },
+  options: { visibility: ResultVisibility },
 ): Promise<AngleTableRow[]> {
   const rows = await listLatestDropAngles(organizationId, subject, options);
   const groups = new Map<
@@ -74,10 +74,11 @@ export async function evaluateSurfaceEnergy(
   options: SampleSurfaceEnergyOptions,
 ): Promise<SurfaceEnergyEvaluation> {
   const organizationId = ctx.organization.id;
-  const readAll = can(ctx.organization.role, 'results:read-all');
+  const visibility = resultVisibility(ctx.organization.role);
+  const readAll = visibility === 'all';
   const summary = await findSurfaceEnergySubject(organizationId, subject);
   if (!summary) throw notFound('batchId' in subject ? 'That batch' : 'That sample');
-  const table = await angleTable(organizationId, subject, { readAll });
+  const table = await angleTable(organizationId, subject, { visibility });
   const liquids = angleTableToLiquids(table);
   return {
     subject: summary,

@@ -8,6 +8,7 @@ import type {
   SurfaceEnergyReply,
   SurfaceEnergySubject,
 } from '@/lib/contracts/surface-energy';
+import { resultVisibility } from '../visibility';
 import { evaluateSurfaceEnergy, subjectOf, type SubjectKind } from './evaluate';
 
 /** GET of a sample's or batch's surface energy: the evaluation with its options and saved results. */
@@ -25,6 +26,7 @@ export async function surfaceEnergyOf(
   const saved = await listSurfaceEnergyResults(
     ctx.organization.id,
     subjectOf(kind, evaluated.subject.id),
+    resultVisibility(ctx.organization.role),
   );
   return { ...evaluated, options, saved };
 }
@@ -61,6 +63,7 @@ export async function loadSurfaceEnergyPage(
     ? await listSurfaceEnergyResults(
         ctx.organization.id,
         subjectOf(evaluation.subject.kind, evaluation.subject.id),
+        resultVisibility(ctx.organization.role),
       )
     : [];
   return {

@@ -29,18 +29,30 @@ const FIELD_OF_CODE: Record<string, string> = {
   'no-drop': 'photoId',
 };
 
+/** lib/tensiometry's input problem as invalid_measurement naming the field; anything else as is. */
+function asAppError(error: unknown): unknown {
+  if (!(error instanceof TensiometryInputError)) return error;
+  const field = FIELD_OF_CODE[error.code];
+  return new AppError('invalid_measurement', error.message, {
+    fields: field ? { [field]: error.message } : undefined,
+  });
+}
+
 /** Runs a tensiometry calculation; input it cannot use becomes invalid_measurement naming the field. */
 export function calculate<T>(compute: () => T): T {
   try {
     return compute();
   } catch (error) {
-    if (error instanceof TensiometryInputError) {
-      const field = FIELD_OF_CODE[error.code];
-      throw new AppError('invalid_measurement', error.message, {
-        fields: field ? { [field]: error.message } : undefined,
-      });
-    }
-    throw error;
+    throw asAppError(error);
+  }
+}
+
+/** The same for a calculation run in the compute pool (server/compute/pool.ts). */
+export async function calculateInPool<T>(compute: () => Promise<T>): Promise<T> {
+  try {
+    return await compute();
+  } catch (error) {
+    throw asAppError(error);
   }
 }
 

@@ -1,30 +1,11 @@
 import 'server-only';
-import { DecodeError } from '@/lib/analysis/node/decode';
-import type { GrayImage } from '@/lib/analysis/types';
-import { AppError, forbidden } from '@/lib/app-error';
+import { forbidden } from '@/lib/app-error';
 import type { OrgContext } from '@/lib/auth/context';
 import { can } from '@/lib/auth/permissions';
 import type { PendantDropBody, PendantDropResponse } from '@/lib/contracts/tensiometry';
-import {
-  fitPendantDrop,
-  fittedPendantOutline,
-  pendantEdgeFromImage,
-} from '@/lib/tensiometry/pendant-drop';
+import { runCompute } from '../compute/pool';
 import { loadPhotoGray } from '../photos/pixels';
-import { assertMaySave, calculate, replyAndMaybeSave } from './calculate';
-
-const UNREADABLE = 'The stored photo could not be decoded; upload it again as PNG or JPEG.';
-
-async function photoPixels(organizationId: string, photoId: string): Promise<GrayImage> {
-  try {
-    return await loadPhotoGray(organizationId, photoId);
-  } catch (error) {
-    if (error instanceof DecodeError) {
-      throw new AppError('unreadable_photo', UNREADABLE, { fields: { photoId: UNREADABLE } });
-    }
-    throw error;
-  }
-}
+import { assertMaySave, calculateInPool, replyAndMaybeSave } from './calculate';
 
 /** From an uploaded photo: the server finds the outline and the needle's width, then fits. */
 async function fitFromPhoto(
@@ -34,13 +15,13 @@ async function fitFromPhoto(
   // Drop photos are readable by those who read every result (as /api/photos/[id]/image).
   if (!can(ctx.organization.role, 'results:read-all')) throw forbidden('fit drop photos');
   const { photoId, needleOuterDiameterMm, densityDifferenceKgPerM3, save } = input;
-  const image = await photoPixels(ctx.organization.id, photoId);
-  const extraction = calculate(() => pendantEdgeFromImage(image));
-  const result = calculate(() =>
-    fitPendantDrop({
-      edge: extraction.edge,
+  const image = await loadPhotoGray(ctx.organization.id, photoId);
+  // Outline, needle, fit and the drawn profile in one task of the compute pool.
+  const { extraction, result, profile } = await calculateInPool(() =>
+    runCompute(ctx.user.id, {
+      kind: 'pendant-photo',
+      image,
       needleOuterDiameterMm,
-      needleOuterDiameterPx: extraction.needleOuterDiameterPx,
       densityDifferenceKgPerM3,
     }),
   );
@@ -60,7 +41,7 @@ async function fitFromPhoto(
     extra: {
       photo: { id: photoId, width: image.width, height: image.height },
       extraction: found,
-      profile: fittedPendantOutline(result, extraction.needleTipY),
+      profile,
     },
   });
 }
@@ -76,6 +57,8 @@ export async function pendantDrop(
   assertMaySave(ctx, input.save);
   if (input.source === 'photo') return fitFromPhoto(ctx, input);
   const { source: _source, save, ...inputs } = input;
-  const result = calculate(() => fitPendantDrop(inputs));
+  const result = await calculateInPool(() =>
+    runCompute(ctx.user.id, { kind: 'pendant-fit', input: inputs }),
+  );
   return replyAndMaybeSave(ctx, { save, kind: 'pendant-drop', inputs, result, outputs: result });
 }

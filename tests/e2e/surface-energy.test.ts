@@ -13,17 +13,23 @@ afterAll(async () => {
   await browser?.close();
 });
 
+/** The page for one sample of PP-Print F-2611, as the demo analyst. */
+async function openPpPrintSample(label: string) {
+  const page = await browser.newPage();
+  await signIn(page, 'analyst@kestrel.example', DEMO_PASSWORD);
+  await page.goto(`${BASE_URL}/surface-energy`);
+  await page
+    .getByLabel('Coating', { exact: true })
+    .selectOption({ label: 'PP-Print — Plasma-treated polypropylene film' });
+  await page.getByLabel('Batch', { exact: true }).selectOption({ label: 'F-2611' });
+  await page.getByLabel('Sample', { exact: true }).selectOption({ label });
+  await page.waitForURL(/\/surface-energy\?sample=/);
+  return page;
+}
+
 describe('surface energy page (demo seed)', () => {
   it('shows the OWRK result of PP-Print F-2611 / D1 with its uncertainty and plot, saves it and lists it', async () => {
-    const page = await browser.newPage();
-    await signIn(page, 'analyst@kestrel.example', DEMO_PASSWORD);
-    await page.goto(`${BASE_URL}/surface-energy`);
-    await page
-      .getByLabel('Coating', { exact: true })
-      .selectOption({ label: 'PP-Print — Plasma-treated polypropylene film' });
-    await page.getByLabel('Batch', { exact: true }).selectOption({ label: 'F-2611' });
-    await page.getByLabel('Sample', { exact: true }).selectOption({ label: 'D1' });
-    await page.waitForURL(/\/surface-energy\?sample=/);
+    const page = await openPpPrintSample('D1');
 
     await expect.poll(() => page.getByTestId('liquid-liquid-water').count()).toBe(1);
     await expect.poll(() => page.getByTestId('liquid-liquid-diiodomethane').count()).toBe(1);
@@ -61,15 +67,7 @@ describe('surface energy page (demo seed)', () => {
   });
 
   it('explains why a method is unavailable with only water and diiodomethane', async () => {
-    const page = await browser.newPage();
-    await signIn(page, 'analyst@kestrel.example', DEMO_PASSWORD);
-    await page.goto(`${BASE_URL}/surface-energy`);
-    await page
-      .getByLabel('Coating', { exact: true })
-      .selectOption({ label: 'PP-Print — Plasma-treated polypropylene film' });
-    await page.getByLabel('Batch', { exact: true }).selectOption({ label: 'F-2611' });
-    await page.getByLabel('Sample', { exact: true }).selectOption({ label: 'D4' });
-    await page.waitForURL(/\/surface-energy\?sample=/);
+    const page = await openPpPrintSample('D4');
     const acidBase = page.getByLabel(/van Oss–Chaudhury–Good/);
     expect(await acidBase.isDisabled()).toBe(true);
     expect(await page.getByText(/needs three liquids with known γLW/).count()).toBe(1);

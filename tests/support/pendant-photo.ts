@@ -96,3 +96,46 @@ export async function blankPhotoPng(width = 320, height = 360): Promise<Buffer> 
     .png()
     .toBuffer();
 }
+
+/**
+ * The traced outline of a hanging water drop (γ = 72.0 mN/m, Δρ = 997 kg/m³, b = 1.35 mm, at
+ * 120 px/mm) with exactly `count` points, half on each side, as the pendant-drop route takes it
+ * (`edge`, px, y downward), from the Young–Laplace equation (Bashforth & Adams 1883). The
+ * request body it belongs to is `pendantEdgeBody(count)`.
+ */
+export function pendantEdge(count: number): { x: number; y: number }[] {
+  const b = 1.35e-3;
+  const beta = (997 * G * b * b) / 0.072;
+  const profile = integrateYoungLaplace(-beta, { maxZ: 6, step: 0.0002 });
+  const bPx = 1.35 * 120;
+  // The outline up to where it turns back in towards the needle.
+  let last = 1;
+  let xmax = 0;
+  for (let k = 1; k < profile.n; k++) {
+    xmax = Math.max(xmax, profile.x[k]);
+    if (profile.phi[k] > Math.PI / 2 && profile.x[k] < 0.6 * xmax) break;
+    last = k;
+  }
+  const perSide = Math.ceil(count / 2);
+  const points: { x: number; y: number }[] = [];
+  for (let i = 0; i < perSide; i++) {
+    // Sub-sample positions along the arc, interpolated between the profile's steps.
+    const at = 1 + ((last - 1) * i) / Math.max(1, perSide - 1);
+    const k = Math.min(last - 1, Math.floor(at));
+    const f = at - k;
+    const x = profile.x[k] + f * (profile.x[k + 1] - profile.x[k]);
+    const z = profile.z[k] + f * (profile.z[k + 1] - profile.z[k]);
+    for (const side of [1, -1]) points.push({ x: 400 + side * x * bPx, y: 600 - z * bPx });
+  }
+  return points.slice(0, count);
+}
+
+/** A pendant-drop request body with a traced outline of `count` points (see pendantEdge). */
+export function pendantEdgeBody(count: number) {
+  return {
+    edge: pendantEdge(count),
+    needleOuterDiameterMm: 1.2,
+    needleOuterDiameterPx: 144,
+    densityDifferenceKgPerM3: 997,
+  };
+}

@@ -14,6 +14,7 @@ const STATUS_STYLE: Record<string, string> = {
   approved: 'bg-leaf-100 text-leaf-900',
   rejected: 'bg-coral-100 text-coral-900',
   withdrawn: 'bg-ink-100 text-ink-700',
+  revoked: 'bg-amber-100 text-amber-900',
 };
 
 export default async function ReviewsPage() {

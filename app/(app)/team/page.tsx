@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import Link from 'next/link';
 import { PageHeader } from '@/components/ui/empty-state';
 import { PlainTable } from '@/components/ui/plain-table';
 import { InvitationRow } from '@/components/team/invitation-row';
@@ -19,6 +20,9 @@ export default async function TeamPage() {
   return (
     <>
       <PageHeader title="Team" lead="Who belongs to this organization and what each role may do." />
+      <p className="mb-4 text-sm">
+        <Link href="/team/api">API access</Link>: tokens and webhooks for instruments and LIMS.
+      </p>
       <section className="card mb-6">
         <h2 className="mb-3">Members</h2>
         <PlainTable head={['Name', 'E-mail', 'Role', { label: 'Actions', hidden: true }]}>

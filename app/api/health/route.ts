@@ -1,12 +1,15 @@
 import { json, route } from '@/server/http/route';
-import { databaseAnswers } from '@/server/health/check';
+import { computeLoad, databaseAnswers } from '@/server/health/check';
 
 export const dynamic = 'force-dynamic';
 
-/** Liveness and database reachability, for the start script and monitoring. */
+/**
+ * Liveness and database reachability, for the start script and monitoring, with the number of
+ * calculations running or waiting in the compute pool (`compute.inFlight`).
+ */
 export const GET = route({ access: 'public' }, async () =>
   (await databaseAnswers())
-    ? json({ status: 'ok' })
+    ? json({ status: 'ok', compute: computeLoad() })
     : json(
         {
           status: 'degraded',

@@ -1,5 +1,5 @@
 import { UploadThingError } from 'uploadthing/server';
-import { recordUploadedPhoto } from '@/server/photos/record-upload';
+import { inspectedPhotoRow, recordUploadedPhoto } from '@/server/photos/record-upload';
 import { getAuthContext } from '@/lib/auth/context';
 import { can } from '@/lib/auth/permissions';
 import { createDropPhotoRouter } from '@/lib/uploads/file-router';
@@ -28,22 +28,11 @@ const dropPhotoRouter = createDropPhotoRouter({
     return { userId: ctx.user.id, organizationId: ctx.organization.id };
   },
   async onStored(file, inspected, { metadata }) {
-    return recordUploadedPhoto({
-      organizationId: metadata.organizationId,
-      uploadedByUserId: metadata.userId,
-      fileKey: file.key,
-      url: file.url,
-      originalName: file.name,
-      sizeBytes: file.size,
-      format: inspected.format,
-      width: inspected.width,
-      height: inspected.height,
-      bitDepth: inspected.bitDepth,
-      sha256: inspected.sha256,
-      thumbnailPng: inspected.thumbnailPng,
-      workingPng: inspected.orientedPng ?? null,
-      // Metadata stored by an older release has no purpose.
-      purpose: metadata.purpose ?? 'sessile-drop',
+    // Metadata stored by an older release has no purpose.
+    const purpose = metadata.purpose ?? 'sessile-drop';
+    // The workspace keeps one photo per file and user: the same file again is that photo.
+    return recordUploadedPhoto(inspectedPhotoRow(metadata, file, inspected, purpose), {
+      reuseUnsavedTwin: purpose === 'sessile-drop',
     });
   },
 });

@@ -5,7 +5,8 @@
  * gray pixels. 16-bit sources stay 16-bit.
  */
 import { readFile } from 'node:fs/promises';
-import sharp from 'sharp';
+import sharp, { type Metadata } from 'sharp';
+import { MAX_ANALYSIS_PIXELS, tooManyPixelsMessage } from '../image';
 import type { GrayImage } from '../types';
 
 export class DecodeError extends Error {
@@ -24,8 +25,18 @@ export async function decodeImageFile(path: string): Promise<GrayImage> {
 
 export async function decodeImageBytes(bytes: Uint8Array): Promise<GrayImage> {
   if (bytes.length > 2 && bytes[0] === 0x42 && bytes[1] === 0x4d) return decodeBmp(bytes);
+  let meta: Metadata;
   try {
-    const meta = await sharp(bytes).metadata();
+    meta = await sharp(bytes).metadata();
+  } catch (error) {
+    throw unreadable(error);
+  }
+  // Refused before decoding: the pixels of a larger image would take hundreds of MB.
+  const { width = 0, height = 0 } = meta;
+  if (width * height > MAX_ANALYSIS_PIXELS) {
+    throw new DecodeError(tooManyPixelsMessage(width, height));
+  }
+  try {
     const sixteen = meta.depth === 'ushort';
     const pipeline = sharp(bytes).flatten({ background: '#ffffff' });
     if (sixteen) {
@@ -51,11 +62,12 @@ export async function decodeImageBytes(bytes: Uint8Array): Promise<GrayImage> {
       ),
     };
   } catch (error) {
-    throw new DecodeError(
-      `Not a readable image (PNG, JPEG, TIFF or BMP): ${(error as Error).message}`,
-    );
+    throw unreadable(error);
   }
 }
+
+const unreadable = (error: unknown) =>
+  new DecodeError(`Not a readable image (PNG, JPEG, TIFF or BMP): ${(error as Error).message}`);
 
 function firstChannel8(data: Uint8Array, channels: number, count: number): Uint8Array {
   if (channels === 1) return data.slice(0, count);

@@ -27,23 +27,26 @@ const analysed = (id: string, name: string, sampleId = 'sample-1'): WorkspacePho
   dirty: true,
 });
 
-const SESSION_REPLY = {
-  measurementSession: {
-    id: 's1',
-    organizationId: 'org-kestrel',
-    version: 1,
-    archivedAt: null,
-    createdAt: '2026-03-02T09:00:00.000Z',
-    updatedAt: '2026-03-02T09:00:00.000Z',
-    operatorName: 'Analyst',
-    measuredAt: '2026-03-02T09:00:00.000Z',
-    probeLiquidId: 'liquid-water',
-    temperatureC: null,
-    humidityPct: null,
-    dropVolumeUl: null,
-    scalePxPerMm: null,
-    instrumentNotes: '',
-    createdByUserId: 'user-analyst',
+const SESSION_CREATED = {
+  status: 201,
+  body: {
+    measurementSession: {
+      id: 's1',
+      organizationId: 'org-kestrel',
+      version: 1,
+      archivedAt: null,
+      createdAt: '2026-03-02T09:00:00.000Z',
+      updatedAt: '2026-03-02T09:00:00.000Z',
+      operatorName: 'Analyst',
+      measuredAt: '2026-03-02T09:00:00.000Z',
+      probeLiquidId: 'liquid-water',
+      temperatureC: null,
+      humidityPct: null,
+      dropVolumeUl: null,
+      scalePxPerMm: null,
+      instrumentNotes: '',
+      createdByUserId: 'user-analyst',
+    },
   },
 };
 
@@ -93,7 +96,7 @@ describe('saving drops', () => {
   it('asks why a saved drop is analysed again, and sends the reason with it', async () => {
     const calls = stubFetch(({ url }) =>
       url === '/api/measurement-sessions'
-        ? { status: 201, body: SESSION_REPLY }
+        ? SESSION_CREATED
         : { status: 201, body: { revision: 2, dropId: 'd3' } },
     );
     const { hook } = setup();
@@ -111,11 +114,7 @@ describe('saving drops', () => {
 
   it('creates the session once, saves every unsaved photo and names the ones that failed', async () => {
     const calls = stubFetch(({ url }) => {
-      if (url === '/api/measurement-sessions')
-        return {
-          status: 201,
-          body: SESSION_REPLY,
-        };
+      if (url === '/api/measurement-sessions') return SESSION_CREATED;
       if (url === '/api/photos/p1/drop') return { status: 201, body: { revision: 1 } };
       return {
         status: 422,
@@ -138,6 +137,7 @@ describe('saving drops', () => {
       probeLiquidId: 'liquid-water',
       sessionId: 's1',
       method: 'circle',
+      expectedRevision: 0,
     });
     expect(created).toEqual(['s1']);
     expect(hook.result.current.message).toEqual({
@@ -148,6 +148,47 @@ describe('saving drops', () => {
     expect([p1.savedRevision, p1.dirty]).toEqual([1, false]);
     expect([p2.savedRevision, p2.dirty]).toEqual([null, true]);
     expect(reloads()).toBe(1);
+  });
+
+  it('a stale save says so and offers to reload the current revision; the next save is based on it', async () => {
+    let answer: 'stale' | 'saved' = 'stale';
+    const calls = stubFetch(({ url }) => {
+      if (url === '/api/measurement-sessions') return SESSION_CREATED;
+      return answer === 'stale'
+        ? {
+            status: 409,
+            body: {
+              ...errorBody(
+                'stale_revision',
+                'This drop was saved as revision 3 since you loaded it.',
+              ),
+              current: { revision: 3 },
+            },
+          }
+        : { status: 201, body: { revision: 4 } };
+    });
+    useWorkspace.setState({
+      photos: [{ ...analysed('p1', 'a.png'), savedRevision: 1 }],
+      selectedId: null,
+    });
+    const { hook, reloads } = setup();
+    await act(() => hook.result.current.saveOne(useWorkspace.getState().photos[0], 'moved the baseline'));
+    expect(calls.at(-1)?.body).toMatchObject({ expectedRevision: 1 });
+    expect(hook.result.current.message?.kind).toBe('error');
+    expect(hook.result.current.stale).toEqual([{ photoId: 'p1', photoName: 'a.png', current: 3 }]);
+    expect(useWorkspace.getState().photos[0].savedRevision).toBe(1);
+
+    await act(() => hook.result.current.reloadCurrent(hook.result.current.stale[0]));
+    expect(hook.result.current.stale).toEqual([]);
+    const [p1] = useWorkspace.getState().photos;
+    expect([p1.savedRevision, p1.dirty]).toEqual([3, true]);
+    expect(useWorkspace.getState().selectedId).toBe('p1');
+    expect(reloads()).toBe(1);
+
+    answer = 'saved';
+    await act(() => hook.result.current.saveOne(useWorkspace.getState().photos[0], 'checked revision 3'));
+    expect(calls.at(-1)?.body).toMatchObject({ expectedRevision: 3 });
+    expect(useWorkspace.getState().photos[0].savedRevision).toBe(4);
   });
 
   it('says nothing was lost when the server cannot be reached', async () => {

@@ -8,7 +8,9 @@ import { signIn } from '@/app/(auth)/actions';
 import { checkCredentials, INVALID_CREDENTIALS_MESSAGE, SIGN_IN_LIMITS } from '@/lib/auth/sign-in';
 import { addressKey } from '@/lib/auth/throttle';
 import { POST as decideReview } from '@/app/api/reviews/[id]/decision/route';
+import { submitForReview } from '@/server/reviews/submit';
 import { apiRequest, requestState, simulateRequest } from '../support/request';
+import { insertBatch, insertCoating, insertDrop, insertSample } from '../support/seed';
 import { createMember, createOrganization, TEST_PASSWORD, uniqueEmail } from '../support/fixtures';
 import { form } from '../team/support';
 
@@ -180,16 +182,25 @@ describe('signing a review with a password', () => {
   it('shares the sign-in throttle: guesses at sign-in slow the signature too', async () => {
     const lab = await createOrganization();
     const reviewer = await createMember(lab.id, 'reviewer');
+    // A review waiting for this reviewer (submitted by an analyst: four-eyes), so the signature
+    // is what is checked.
+    const analyst = await createMember(lab.id, 'analyst');
+    const batchId = await insertBatch(lab.id, await insertCoating(lab.id, 'SG-1'), 'SG-L1');
+    await insertDrop(lab.id, await insertSample(lab.id, batchId, 'S1'), { revisions: [{ meanDeg: 101 }] });
+    const { reviewId } = await submitForReview(
+      { organizationId: lab.id, userId: analyst.userId },
+      { batchId, note: '' },
+    );
     const guesser = `10.88.${randomBytes(1)[0]}.${randomBytes(1)[0]}`;
     await pastFailures(Array.from({ length: 6 }, () => ({ email: reviewer.email, ipAddress: guesser })), 1);
     const response = await decideReview(
-      apiRequest('/api/reviews/any-review/decision', {
+      apiRequest(`/api/reviews/${reviewId}/decision`, {
         method: 'POST',
         sessionId: reviewer.sessionId,
         clientAddress: guesser,
         body: { decision: 'approve', password: TEST_PASSWORD },
       }),
-      { params: Promise.resolve({ id: 'any-review' }) },
+      { params: Promise.resolve({ id: reviewId }) },
     );
     expect(response.status).toBe(403);
     const body = (await response.json()) as { error: { code: string; message: string } };

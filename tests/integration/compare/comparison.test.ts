@@ -7,13 +7,7 @@ import * as exportRoute from '@/app/api/compare/drops.csv/route';
 import { CSV_HEADER } from '@/lib/compare';
 import { apiRequest } from '../support/request';
 import { createLab, ensureLibrary, unique, type Lab } from '../records/helpers';
-import {
-  insertBatch,
-  insertCoating,
-  insertDrop,
-  insertSample,
-  insertWaterSpec,
-} from '../support/seed';
+import * as seed from '../support/seed';
 
 type Status = 'draft' | 'submitted' | 'approved' | 'rejected';
 
@@ -28,10 +22,10 @@ let lotNew: string;
 let otherBatch: string;
 const dropIds: Record<string, string> = {};
 
-const addCoating = (orgId: string, code: string) => insertCoating(orgId, code);
-const addBatch = insertBatch;
+const addCoating = (orgId: string, code: string) => seed.insertCoating(orgId, code);
+const addBatch = seed.insertBatch;
 const addSample = (orgId: string, batchId: string, label: string) =>
-  insertSample(orgId, batchId, label, new Date('2026-03-01T08:00:00Z'));
+  seed.insertSample(orgId, batchId, label, new Date('2026-03-01T08:00:00Z'));
 
 /** A drop with one analysis per [meanDeg, status] given (left/right 1° either side), revision 1, 2, … */
 const addDrop = (
@@ -40,7 +34,7 @@ const addDrop = (
   revisions: [number, Status][],
   measuredAt: string,
 ) =>
-  insertDrop(orgId, sampleId, {
+  seed.insertDrop(orgId, sampleId, {
     measuredAt: new Date(measuredAt),
     revisions: revisions.map(([meanDeg, reviewStatus]) => ({
       meanDeg,
@@ -56,7 +50,7 @@ beforeAll(async () => {
   other = await createLab();
   coatingCode = unique('CMP');
   coatingId = await addCoating(lab.id, coatingCode);
-  await insertWaterSpec(lab.id, coatingId, 100);
+  await seed.insertWaterSpec(lab.id, coatingId, 100);
   lotOld = unique('B');
   lotNew = unique('B');
   batchOld = await addBatch(lab.id, coatingId, lotOld, '2026-03-01');
@@ -105,7 +99,7 @@ afterAll(async () => {
 
 describe('comparison query', () => {
   it('returns the latest revision of every drop', async () => {
-    const rows = await comparisonDrops(lab.id, [batchOld, batchNew], { approvedOnly: false });
+    const rows = await comparisonDrops(lab.id, [batchOld, batchNew], { visibility: 'all' });
     expect(rows).toHaveLength(7);
     const reanalysed = rows.find((r) => r.dropId === dropIds.reanalysed);
     expect(reanalysed?.revision).toBe(2);
@@ -117,7 +111,7 @@ describe('comparison query', () => {
   });
 
   it('gives roles without results:read-all only drops whose latest revision is approved', async () => {
-    const rows = await comparisonDrops(lab.id, [batchOld, batchNew], { approvedOnly: true });
+    const rows = await comparisonDrops(lab.id, [batchOld, batchNew], { visibility: 'approved' });
     expect(rows.map((r) => r.dropId).sort()).toEqual(
       [dropIds.reanalysed, dropIds.old2, dropIds.old3, dropIds.newApproved].sort(),
     );
@@ -125,14 +119,14 @@ describe('comparison query', () => {
   });
 
   it('keeps organizations apart', async () => {
-    expect(await comparisonDrops(lab.id, [otherBatch], { approvedOnly: false })).toEqual([]);
-    expect(await comparisonDrops(other.id, [batchOld], { approvedOnly: false })).toEqual([]);
+    expect(await comparisonDrops(lab.id, [otherBatch], { visibility: 'all' })).toEqual([]);
+    expect(await comparisonDrops(other.id, [batchOld], { visibility: 'all' })).toEqual([]);
     const mine = await findComparisonCoating(lab.id, coatingCode);
     const theirs = await findComparisonCoating(other.id, coatingCode);
     expect(mine?.id).toBe(coatingId);
     expect(theirs?.id).not.toBe(coatingId);
     expect(await findComparisonCoating(other.id, coatingId)).toBeNull();
-    const data = await loadComparison(other.id, coatingId, { approvedOnly: false });
+    const data = await loadComparison(other.id, coatingId, { visibility: 'all' });
     expect(data.batches).toEqual([]);
     expect(data.drops).toEqual([]);
   });
@@ -140,7 +134,7 @@ describe('comparison query', () => {
   it('loads the chosen batches by lot code, with the specs and liquids', async () => {
     const data = await loadComparison(lab.id, coatingId, {
       batches: [lotNew],
-      approvedOnly: false,
+      visibility: 'all',
     });
     expect(data.batches.map((b) => b.lotCode)).toEqual([lotNew]);
     expect(data.allBatches.map((b) => b.lotCode)).toEqual([lotNew, lotOld]);
@@ -211,10 +205,10 @@ describe('CSV export of the raw drops', () => {
 
 describe('dashboard queries', () => {
   it('lists recent drops newest first, approved only for viewers', async () => {
-    const all = await recentDrops(lab.id, { approvedOnly: false });
+    const all = await recentDrops(lab.id, { visibility: 'all' });
     expect(all[0].dropId).toBe(dropIds.newApproved);
     expect(all).toHaveLength(7);
-    const approved = await recentDrops(lab.id, { approvedOnly: true });
+    const approved = await recentDrops(lab.id, { visibility: 'approved' });
     expect(approved.map((d) => d.dropId)).toEqual([
       dropIds.newApproved,
       dropIds.old3,
@@ -229,11 +223,11 @@ describe('dashboard queries', () => {
   });
 
   it('lists batches that fail their spec', async () => {
-    const out = await outOfSpecBatches(lab.id, { approvedOnly: false });
+    const out = await outOfSpecBatches(lab.id, { visibility: 'all' });
     // New batch: 98°, 99° and 97° are below the 100° each-drop limit.
     expect(out.map((b) => b.lotCode)).toEqual([lotNew]);
     expect(out[0].rule).toContain('each drop ≥ 100°');
     // Viewers: only the approved 105° drop — one drop is not enough data, not a fail.
-    expect(await outOfSpecBatches(lab.id, { approvedOnly: true })).toEqual([]);
+    expect(await outOfSpecBatches(lab.id, { visibility: 'approved' })).toEqual([]);
   });
 });

@@ -149,7 +149,7 @@ describe('POST /api/batches/[id]/import', () => {
   it('shows the imported drops on the batch: drop count and mean water angle per sample', async () => {
     const { listSamplesWithResults } = await import('@/db/queries/sample-results');
     const { sampleListQuerySchema } = await import('@/lib/contracts/samples');
-    const page = await listSamplesWithResults(lab.id, sampleListQuerySchema.parse({ batchId }));
+    const page = await listSamplesWithResults(lab.id, sampleListQuerySchema.parse({ batchId }), 'all');
     const byLabel = Object.fromEntries(page.items.map((item) => [item.label, item]));
     expect(byLabel['P-01']).toMatchObject({ dropCount: 1, waterDropCount: 1, meanWaterDeg: 104 });
     expect(byLabel['P-02']).toMatchObject({ dropCount: 1, waterDropCount: 0, meanWaterDeg: null });

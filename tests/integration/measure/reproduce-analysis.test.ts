@@ -10,9 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { closeDb, getDb } from '@/db/client';
 import { ensureProbeLiquidLibrary } from '@/db/probe-liquid-library';
-import { newId } from '@/db/queries/ids';
-import { insertPhoto } from '@/db/queries/photos';
-import { analyses, batches, coatings, samples } from '@/db/schema';
+import { analyses } from '@/db/schema';
 import { POST } from '@/app/api/photos/[id]/drop/route';
 import { analyseDrop } from '@/lib/analysis';
 import { DEFAULT_SETTINGS } from '@/lib/analysis/settings';
@@ -21,6 +19,7 @@ import type { Baseline, FitMethod } from '@/lib/analysis/types';
 import { decodeImageBytes } from '@/lib/analysis/node/decode';
 import { apiRequest } from '../support/request';
 import { createMember, createOrganization } from '../support/fixtures';
+import { insertBatch, insertCoating, insertPhotoWithBytes, insertSample } from '../support/seed';
 
 const FIXTURE = path.resolve(__dirname, '../../../fixtures/drops/drop-90-tilted.png');
 let analyst: Awaited<ReturnType<typeof createMember>>;
@@ -33,41 +32,33 @@ beforeAll(async () => {
   await ensureProbeLiquidLibrary(db);
   const lab = await createOrganization();
   analyst = await createMember(lab.id, 'analyst');
-  const coatingId = newId();
-  const batchId = newId();
-  sampleId = newId();
-  await db.insert(coatings).values({ id: coatingId, organizationId: lab.id, code: 'R-1', name: 'Repro coat' });
-  await db.insert(batches).values({ id: batchId, organizationId: lab.id, coatingId, lotCode: 'L-R', producedOn: '2026-11-02' });
-  await db.insert(samples).values({ id: sampleId, organizationId: lab.id, batchId, label: 'S1' });
+  const coatingId = await insertCoating(lab.id, 'R-1', 'Repro coat');
+  const batchId = await insertBatch(lab.id, coatingId, 'L-R', '2026-11-02');
+  sampleId = await insertSample(lab.id, batchId, 'S1');
   bytes = await readFile(FIXTURE);
-  photoId = newId();
-  await insertPhoto(getDb(), {
-    id: photoId,
-    organizationId: lab.id,
-    uploadedByUserId: analyst.userId,
-    fileKey: `test-${newId()}`,
-    url: 'http://127.0.0.1:9/unused',
-    originalName: 'drop-90-tilted.png',
-    sizeBytes: bytes.length,
-    format: 'png',
-    width: 640,
-    height: 480,
-    bitDepth: 8,
-    sha256: 'test',
-    thumbnailPng: bytes,
-    workingPng: bytes,
-  });
+  photoId = await insertPhotoWithBytes(lab.id, analyst.userId, bytes);
 });
 
 afterAll(async () => {
   await closeDb();
 });
 
-// Every save after the first is a re-analysis, which says why.
-const save = (body: Record<string, unknown>) =>
-  POST(apiRequest(`/api/photos/${photoId}/drop`, { method: 'POST', sessionId: analyst.sessionId, body: { reason: 'reproduce', ...body } }), {
-    params: Promise.resolve({ id: photoId }),
-  });
+/** The photo's drop revision the next save is based on (saves carry expectedRevision; every
+ * save after the first is a re-analysis, which says why). */
+let latestRevision = 0;
+
+async function save(body: Record<string, unknown>) {
+  const response = await POST(
+    apiRequest(`/api/photos/${photoId}/drop`, {
+      method: 'POST',
+      sessionId: analyst.sessionId,
+      body: { reason: 'reproduce', ...body, expectedRevision: latestRevision },
+    }),
+    { params: Promise.resolve({ id: photoId }) },
+  );
+  if (response.status === 201) latestRevision += 1;
+  return response;
+}
 
 async function storedRow(analysisId: string) {
   const [row] = await getDb().select().from(analyses).where(eq(analyses.id, analysisId));

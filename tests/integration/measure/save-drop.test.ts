@@ -4,7 +4,6 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
 import { ensureProbeLiquidLibrary } from '@/db/probe-liquid-library';
 import { newId } from '@/db/queries/ids';
-import { recordUploadedPhoto } from '@/server/photos/record-upload';
 import { analyses, auditEvents, batches, coatings, samples } from '@/db/schema';
 import { GET, POST } from '@/app/api/photos/[id]/drop/route';
 import { analyseDrop } from '@/lib/analysis';
@@ -12,6 +11,7 @@ import { decodeImageBytes } from '@/lib/analysis/node/decode';
 import { and, eq } from 'drizzle-orm';
 import { apiRequest } from '../support/request';
 import { createMember, createOrganization } from '../support/fixtures';
+import { insertPhotoWithBytes } from '../support/seed';
 
 const FIXTURE = path.resolve(__dirname, '../../../fixtures/drops/cap-60-noisy.png');
 let lab: { id: string };
@@ -36,22 +36,7 @@ beforeAll(async () => {
   await db.insert(batches).values({ id: batchId, organizationId: lab.id, coatingId, lotCode: 'L-1', producedOn: '2026-11-01' });
   await db.insert(samples).values({ id: sampleId, organizationId: lab.id, batchId, label: 'S1' });
   bytes = await readFile(FIXTURE);
-  // The photo's bytes are kept in the row (as for a TIFF's PNG copy), so no upload service is needed.
-  ({ photoId } = await recordUploadedPhoto({
-    organizationId: lab.id,
-    uploadedByUserId: analyst.userId,
-    fileKey: `test-${newId()}`,
-    url: 'http://127.0.0.1:9/unused',
-    originalName: 'cap-60-noisy.png',
-    sizeBytes: bytes.length,
-    format: 'png',
-    width: 640,
-    height: 480,
-    bitDepth: 8,
-    sha256: 'test',
-    thumbnailPng: bytes,
-    workingPng: bytes,
-  }));
+  photoId = await insertPhotoWithBytes(lab.id, analyst.userId, bytes);
 });
 
 afterAll(async () => {
@@ -73,6 +58,7 @@ describe('saving a drop analysis', () => {
       probeLiquidId: 'liquid-water',
       method: 'circle',
       baseline,
+      expectedRevision: 0,
     });
     expect(response.status).toBe(201);
     const saved = await response.json();
@@ -84,16 +70,11 @@ describe('saving a drop analysis', () => {
   });
 
   it('a later save says why (400 naming `reason` without one) and keeps the reason with its revision', async () => {
-    const unexplained = await save(analyst.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'young-laplace', baseline: null });
+    const body = { sampleId, probeLiquidId: 'liquid-water', method: 'young-laplace', baseline: null, expectedRevision: 1 };
+    const unexplained = await save(analyst.sessionId, body);
     expect(unexplained.status).toBe(400);
     expect(Object.keys((await unexplained.json()).error.fields)).toEqual(['reason']);
-    const second = await save(analyst.sessionId, {
-      sampleId,
-      probeLiquidId: 'liquid-water',
-      method: 'young-laplace',
-      baseline: null,
-      reason: 'Young–Laplace for a flattened drop',
-    });
+    const second = await save(analyst.sessionId, { ...body, reason: 'Young–Laplace for a flattened drop' });
     expect((await second.json()).revision).toBe(2);
     const [row] = await getDb().select().from(analyses).where(and(eq(analyses.dropId, (await (await GET(apiRequest(`/api/photos/${photoId}/drop`, { sessionId: analyst.sessionId }), { params: Promise.resolve({ id: photoId }) })).json()).drop.id), eq(analyses.revision, 2)));
     expect(row.reason).toBe('Young–Laplace for a flattened drop');
@@ -112,7 +93,7 @@ describe('saving a drop analysis', () => {
 
   it('refuses viewers and reviewers (403) and names a bad field (400)', async () => {
     for (const member of [viewer, reviewer]) {
-      const refused = await save(member.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null });
+      const refused = await save(member.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null, expectedRevision: 2 });
       expect(refused.status).toBe(403);
     }
     const invalid = await save(analyst.sessionId, { sampleId: '', probeLiquidId: 'liquid-water', method: 'guess', baseline: null });
@@ -124,7 +105,41 @@ describe('saving a drop analysis', () => {
   it('a sample of another organization is not found', async () => {
     const other = await createOrganization();
     const outsider = await createMember(other.id, 'analyst');
-    const response = await save(outsider.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null });
+    const response = await save(outsider.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null, expectedRevision: 0 });
     expect(response.status).toBe(404);
   });
+
+  it('a stale save (based on an older revision) is refused with the current one; nothing is added', async () => {
+    const body = { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null };
+    for (const expectedRevision of [0, 1]) {
+      const stale = await save(analyst.sessionId, { ...body, expectedRevision });
+      expect(stale.status).toBe(409);
+      const reply = await stale.json();
+      expect(reply.error.code).toBe('stale_revision');
+      expect(reply.current).toEqual({ revision: 2 });
+      expect(reply.error.message).toMatch(/reload revision 2/);
+    }
+    const missing = await save(analyst.sessionId, body);
+    expect(missing.status).toBe(400);
+    expect((await missing.json()).error.fields.expectedRevision).toMatch(/based on/);
+    expect(await revisionsOfPhoto()).toEqual([2, 1]);
+  });
+
+  it('two simultaneous saves of one drop make exactly one revision; the other is told it is stale', async () => {
+    const body = { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null, expectedRevision: 2, reason: 'same drop, two tabs' };
+    const replies = await Promise.all([save(analyst.sessionId, body), save(analyst.sessionId, body)]);
+    expect(replies.map((r) => r.status).sort()).toEqual([201, 409]);
+    const refused = await replies.find((r) => r.status === 409)!.json();
+    expect(refused.error.code).toBe('stale_revision');
+    expect(refused.current).toEqual({ revision: 3 });
+    expect(await revisionsOfPhoto()).toEqual([3, 2, 1]);
+  });
 });
+
+async function revisionsOfPhoto(): Promise<number[]> {
+  const listed = await GET(apiRequest(`/api/photos/${photoId}/drop`, { sessionId: analyst.sessionId }), {
+    params: Promise.resolve({ id: photoId }),
+  });
+  const { drop } = await listed.json();
+  return drop.revisions.map((r: { revision: number }) => r.revision);
+}

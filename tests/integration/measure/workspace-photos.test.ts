@@ -39,7 +39,7 @@ afterAll(async () => {
   await closeDb();
 });
 
-/** An upload of the fixture's bytes (a new stored file each time), as the upload route records it. */
+/** An upload of the fixture's bytes (a new stored file each time), as the upload route records a workspace photo. */
 const upload = (userId: string, sha256: string, name = 'cap-60-noisy.png') =>
   recordUploadedPhoto({
     organizationId: lab.id,
@@ -55,7 +55,7 @@ const upload = (userId: string, sha256: string, name = 'cap-60-noisy.png') =>
     sha256,
     thumbnailPng: bytes,
     workingPng: bytes,
-  });
+  }, { reuseUnsavedTwin: true });
 
 const removeAs = (sessionId: string, photoIds: string[]) =>
   remove(apiRequest('/api/photos/remove', { method: 'POST', sessionId, body: { photoIds } }), {

@@ -50,7 +50,7 @@ describe.skipIf(!process.env.UPLOAD_FAKE_URL)('certificate of analysis (PDF)', (
     expect(pages).toBeGreaterThanOrEqual(1);
 
     // The same numbers as the compare page, which builds them with lib/compare the same way.
-    const loaded = await loadComparison(org.id, batch.coatingId, { batches: [batch.id], approvedOnly: false });
+    const loaded = await loadComparison(org.id, batch.coatingId, { batches: [batch.id], visibility: 'all' });
     const comparison = buildComparison(loaded);
     const water = comparison.liquids.find((l) => l.liquid.id === 'liquid-water')!;
     const result = water.batches.find((b) => b.batch.id === batch.id)!;
@@ -80,7 +80,7 @@ describe.skipIf(!process.env.UPLOAD_FAKE_URL)('certificate of analysis (PDF)', (
       memberships: [],
     };
     const { text } = await pdfText((await buildBatchReport(ctx, batch.id)).pdf);
-    const loaded = await loadComparison(org.id, batch.coatingId, { batches: [batch.id], approvedOnly: false });
+    const loaded = await loadComparison(org.id, batch.coatingId, { batches: [batch.id], visibility: 'all' });
     const se = buildComparison(loaded).surfaceEnergy!;
     const row = se.batches[0];
     expect(text).toContain('Surface free energy');

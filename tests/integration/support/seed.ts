@@ -105,3 +105,31 @@ export async function insertDrop(
   }
   return dropId;
 }
+
+/**
+ * A stored 640×480 PNG drop photo whose bytes are kept in the row (as for a TIFF's PNG copy), so
+ * no upload service is needed.
+ */
+export async function insertPhotoWithBytes(
+  organizationId: string,
+  uploadedByUserId: string,
+  bytes: Buffer,
+): Promise<string> {
+  const { recordUploadedPhoto } = await import('@/server/photos/record-upload');
+  const { photoId } = await recordUploadedPhoto({
+    organizationId,
+    uploadedByUserId,
+    fileKey: `test-${newId()}`,
+    url: 'http://127.0.0.1:9/unused',
+    originalName: 'drop.png',
+    sizeBytes: bytes.length,
+    format: 'png',
+    width: 640,
+    height: 480,
+    bitDepth: 8,
+    sha256: 'test',
+    thumbnailPng: bytes,
+    workingPng: bytes,
+  });
+  return photoId;
+}

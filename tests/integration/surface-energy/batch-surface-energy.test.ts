@@ -74,6 +74,15 @@ afterAll(async () => {
 
 const path = (id: string) => `/api/batches/${id}/surface-energy`;
 
+/** POST /api/batches/[id]/surface-energy with an empty body, as one of the lab's members. */
+const saveBatchEnergy = (id: string, role: 'analyst' | 'viewer') =>
+  call(batchEnergyRoute.POST, path(id), {
+    method: 'POST',
+    sessionId: lab.members[role].sessionId,
+    params: idParams(id),
+    body: {},
+  });
+
 describe('GET /api/batches/[id]/surface-energy', () => {
   it('pools the drops of every sample of the batch per probe liquid', async () => {
     const response = await call(batchEnergyRoute.GET, path(batchId), {
@@ -131,27 +140,17 @@ describe('POST /api/batches/[id]/surface-energy', () => {
   });
 
   it('says what to do for a batch without drops, and refuses viewers', async () => {
-    const empty = await call(batchEnergyRoute.POST, path(emptyBatchId), {
-      method: 'POST',
-      sessionId: lab.members.analyst.sessionId,
-      params: idParams(emptyBatchId),
-      body: {},
-    });
+    const empty = await saveBatchEnergy(emptyBatchId, 'analyst');
     expect(empty.status).toBe(422);
     expect(empty.body.error.message).toMatch(/This batch has no analysed drops yet.*its samples/);
-    const viewer = await call(batchEnergyRoute.POST, path(batchId), {
-      method: 'POST',
-      sessionId: lab.members.viewer.sessionId,
-      params: idParams(batchId),
-      body: {},
-    });
+    const viewer = await saveBatchEnergy(batchId, 'viewer');
     expect(viewer.status).toBe(403);
   });
 });
 
 describe('surface-energy verdict of the comparison', () => {
   it('loads the liquids’ components and the limit, and fails the batch below 48 mN/m', async () => {
-    const data = await loadComparison(lab.id, coatingId, { approvedOnly: true });
+    const data = await loadComparison(lab.id, coatingId, { visibility: 'approved' });
     expect(data.specs[0].minSurfaceEnergyMnM).toBe(48);
     expect(data.liquids.find((l) => l.id === 'liquid-water')).toMatchObject({
       gammaTotal: 72.8,

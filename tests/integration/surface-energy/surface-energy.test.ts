@@ -78,7 +78,7 @@ const path = (id: string) => `/api/samples/${id}/surface-energy`;
 
 describe('angle table of a sample', () => {
   it('takes each drop’s latest revision for roles that read all results', async () => {
-    const table = await listAngleTable(lab.id, { sampleId }, { readAll: true });
+    const table = await listAngleTable(lab.id, { sampleId }, { visibility: 'all' });
     const water = table.find((r) => r.probeLiquidId === 'liquid-water');
     const diiodo = table.find((r) => r.probeLiquidId === 'liquid-diiodomethane');
     expect(water?.n).toBe(3);
@@ -279,7 +279,7 @@ describe('demo PP-Print sample F-2611 / D1', async () => {
         ),
       );
     expect(sample, 'the demo seed should hold PP-Print F-2611 / D1').toBeDefined();
-    const table = await listAngleTable(demo.id, { sampleId: sample.id }, { readAll: true });
+    const table = await listAngleTable(demo.id, { sampleId: sample.id }, { visibility: 'all' });
     expect(table.map((r) => r.probeLiquidId).sort()).toEqual([
       'liquid-diiodomethane',
       'liquid-water',

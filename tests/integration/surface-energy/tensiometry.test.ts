@@ -21,6 +21,14 @@ afterAll(async () => {
 
 const plate = { plateWidthMm: 19.62, plateThicknessMm: 0.1 };
 
+/** POST /api/tensiometry/wilhelmy as the lab's analyst. */
+const wilhelmy = (body: Record<string, unknown>) =>
+  call(wilhelmyRoute.POST, '/api/tensiometry/wilhelmy', {
+    method: 'POST',
+    sessionId: lab.members.analyst.sessionId,
+    body,
+  });
+
 describe('POST /api/tensiometry/water-check', () => {
   it('compares with IAPWS R1-76(2014) and flags contamination', async () => {
     const ok = await call(waterRoute.POST, '/api/tensiometry/water-check', {
@@ -89,16 +97,12 @@ describe('POST /api/tensiometry/wilhelmy', () => {
     // = 72.74e-3 · 2(19.72e-3) N − 998 · 9.80665 · 19.62e-3 · 0.1e-3 · 2e-3 N.
     const buoyancy = 998 * 9.80665 * 19.62e-3 * 0.1e-3 * 2e-3 * 1000;
     const force = 72.74 * 2 * (19.62 + 0.1) * 1e-3 - buoyancy;
-    const response = await call(wilhelmyRoute.POST, '/api/tensiometry/wilhelmy', {
-      method: 'POST',
-      sessionId: lab.members.analyst.sessionId,
-      body: {
-        mode: 'tension',
-        ...plate,
-        forceMilliNewton: force,
-        immersionDepthMm: 2,
-        liquidDensityGPerCm3: 0.998,
-      },
+    const response = await wilhelmy({
+      mode: 'tension',
+      ...plate,
+      forceMilliNewton: force,
+      immersionDepthMm: 2,
+      liquidDensityGPerCm3: 0.998,
     });
     expect(response.status).toBe(200);
     expect(response.body.result.surfaceTensionMilliNewtonPerM).toBeCloseTo(72.74, 8);
@@ -107,16 +111,12 @@ describe('POST /api/tensiometry/wilhelmy', () => {
 
   it('gives the contact angle for a liquid of known tension', async () => {
     const force = 72.8 * 2 * (19.62 + 0.1) * 1e-3 * Math.cos((60 * Math.PI) / 180);
-    const response = await call(wilhelmyRoute.POST, '/api/tensiometry/wilhelmy', {
-      method: 'POST',
-      sessionId: lab.members.analyst.sessionId,
-      body: {
-        mode: 'angle',
-        ...plate,
-        forceMilliNewton: force,
-        liquidSurfaceTensionMilliNewtonPerM: 72.8,
-        save: true,
-      },
+    const response = await wilhelmy({
+      mode: 'angle',
+      ...plate,
+      forceMilliNewton: force,
+      liquidSurfaceTensionMilliNewtonPerM: 72.8,
+      save: true,
     });
     expect(response.status).toBe(201);
     expect(response.body.result.contactAngleDeg).toBeCloseTo(60, 8);
@@ -128,32 +128,30 @@ describe('POST /api/tensiometry/wilhelmy', () => {
   });
 
   it('asks for the density when the plate is immersed, and names bad fields', async () => {
-    const missing = await call(wilhelmyRoute.POST, '/api/tensiometry/wilhelmy', {
-      method: 'POST',
-      sessionId: lab.members.analyst.sessionId,
-      body: { mode: 'tension', ...plate, forceMilliNewton: 2.8, immersionDepthMm: 2 },
+    const missing = await wilhelmy({
+      mode: 'tension',
+      ...plate,
+      forceMilliNewton: 2.8,
+      immersionDepthMm: 2,
     });
     expect(missing.status).toBe(400);
     expect(missing.body.error.fields.liquidDensityGPerCm3).toMatch(/density/);
-    const bad = await call(wilhelmyRoute.POST, '/api/tensiometry/wilhelmy', {
-      method: 'POST',
-      sessionId: lab.members.analyst.sessionId,
-      body: { mode: 'tension', plateWidthMm: 0, plateThicknessMm: 0.1, forceMilliNewton: 'x' },
+    const bad = await wilhelmy({
+      mode: 'tension',
+      plateWidthMm: 0,
+      plateThicknessMm: 0.1,
+      forceMilliNewton: 'x',
     });
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['forceMilliNewton', 'plateWidthMm']);
   });
 
   it('explains a force no angle can explain', async () => {
-    const response = await call(wilhelmyRoute.POST, '/api/tensiometry/wilhelmy', {
-      method: 'POST',
-      sessionId: lab.members.analyst.sessionId,
-      body: {
-        mode: 'angle',
-        ...plate,
-        forceMilliNewton: 50,
-        liquidSurfaceTensionMilliNewtonPerM: 72.8,
-      },
+    const response = await wilhelmy({
+      mode: 'angle',
+      ...plate,
+      forceMilliNewton: 50,
+      liquidSurfaceTensionMilliNewtonPerM: 72.8,
     });
     expect(response.status).toBe(422);
     expect(response.body.error.fields.forceMilliNewton).toMatch(/cos θ/);

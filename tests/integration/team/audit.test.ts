@@ -23,6 +23,12 @@ afterAll(async () => {
   await closeDb();
 });
 
+/** One audit row in its own transaction. */
+const auditOne = (organizationId: string, action: string, actorUserId: string | null = null) =>
+  getDb().transaction((tx) =>
+    recordAudit(tx, { actorUserId, organizationId, action, entityType: 'test' }),
+  );
+
 describe('sign-in and sign-out are audited', () => {
   it('a successful sign-in writes auth.sign_in with its session; a failed one writes nothing', async () => {
     const lab = await createOrganization();
@@ -70,14 +76,7 @@ describe('audit_events is append-only in the database', () => {
 
   beforeAll(async () => {
     lab = await createOrganization();
-    await getDb().transaction((tx) =>
-      recordAudit(tx, {
-        actorUserId: null,
-        organizationId: lab.id,
-        action: 'test.event',
-        entityType: 'test',
-      }),
-    );
+    await auditOne(lab.id, 'test.event');
     rowId = (await auditRows({ organizationId: lab.id, action: 'test.event' }))[0]!.id;
   });
 
@@ -97,7 +96,9 @@ describe('audit_events is append-only in the database', () => {
     expect(
       await databaseError(owner.db.delete(auditEvents).where(eq(auditEvents.id, rowId))),
     ).toMatch(/append-only/);
-    expect(await databaseError(owner.db.execute(sql`truncate audit_events`))).toMatch(/append-only/);
+    expect(await databaseError(owner.db.execute(sql`truncate audit_events`))).toMatch(
+      /append-only/,
+    );
     expect(await auditRows({ organizationId: lab.id })).toHaveLength(1);
   });
 
@@ -108,14 +109,7 @@ describe('audit_events is append-only in the database', () => {
     });
     expect(await auditRows({ organizationId: lab.id })).toHaveLength(0);
     // The setting ends with its transaction.
-    await getDb().transaction((tx) =>
-      recordAudit(tx, {
-        actorUserId: null,
-        organizationId: lab.id,
-        action: 'test.event',
-        entityType: 'test',
-      }),
-    );
+    await auditOne(lab.id, 'test.event');
     const [again] = await auditRows({ organizationId: lab.id });
     expect(
       await databaseError(owner.db.delete(auditEvents).where(eq(auditEvents.id, again!.id))),
@@ -127,14 +121,7 @@ describe('what the trigger still lets through', () => {
   it('deleting an account keeps its audit rows and only clears the actor (the foreign key)', async () => {
     const lab = await createOrganization();
     const member = await createMember(lab.id, 'viewer');
-    await getDb().transaction((tx) =>
-      recordAudit(tx, {
-        actorUserId: member.userId,
-        organizationId: lab.id,
-        action: 'test.actor',
-        entityType: 'test',
-      }),
-    );
+    await auditOne(lab.id, 'test.actor', member.userId);
     await getDb().delete(users).where(eq(users.id, member.userId));
     const [row] = await auditRows({ organizationId: lab.id, action: 'test.actor' });
     expect(row).toMatchObject({ actorUserId: null, action: 'test.actor' });
@@ -142,14 +129,7 @@ describe('what the trigger still lets through', () => {
 
   it('deleting an organization needs the owner and the purge setting, since its audit rows go with it', async () => {
     const lab = await createOrganization();
-    await getDb().transaction((tx) =>
-      recordAudit(tx, {
-        actorUserId: null,
-        organizationId: lab.id,
-        action: 'test.org',
-        entityType: 'test',
-      }),
-    );
+    await auditOne(lab.id, 'test.org');
     expect(
       await databaseError(owner.db.delete(organizations).where(eq(organizations.id, lab.id))),
     ).toMatch(/append-only/);
@@ -217,14 +197,7 @@ describe.skipIf(!BASE_URL)('audit page /audit on the running server', () => {
     it(`${role}: ${role === 'admin' ? '200 with the log' : '403'}`, async () => {
       const lab = await createOrganization();
       const member = await createMember(lab.id, role);
-      await getDb().transaction((tx) =>
-        recordAudit(tx, {
-          actorUserId: member.userId,
-          organizationId: lab.id,
-          action: 'test.visible',
-          entityType: 'test',
-        }),
-      );
+      await auditOne(lab.id, 'test.visible', member.userId);
       const response = await fetch(`${BASE_URL}/audit?action=test.visible`, {
         redirect: 'manual',
         headers: { cookie: `beadline_session=${member.sessionId}` },

@@ -16,13 +16,16 @@ export const metadata: Metadata = { title: 'Drop' };
 
 /** One drop: its photo with the fit, where it sits, and every revision with who, when and why. */
 export default async function DropPage({ params }: { params: Promise<{ id: string }> }) {
-  const ctx = await requirePage('results:read-all');
+  // Viewers too, for drops whose latest result is approved (loadDropPage applies the rule).
+  const ctx = await requirePage('organization:read');
   const { id } = await params;
   const page = await loadDropPage(ctx, id);
   if (!page) notFound();
   const { drop, revisions } = page;
   const latest = revisions[0];
   const canWrite = can(ctx.organization.role, 'records:write');
+  // The photo's pixels are served to roles that may read every result.
+  const canSeePhoto = can(ctx.organization.role, 'results:read-all');
   return (
     <>
       <p className="mb-2 text-sm">
@@ -37,7 +40,12 @@ export default async function DropPage({ params }: { params: Promise<{ id: strin
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_24rem]">
         <section className="card min-w-0" aria-label="Photo and fit">
           <h2 className="mb-3">{drop.photoName ?? 'Angles read by hand'}</h2>
-          {drop.photoId && latest && latest.method !== 'manual' ? (
+          {!canSeePhoto ? (
+            <p className="text-sm text-ink-600">
+              The photo and its fit are shown to the lab&apos;s analysts and reviewers; the
+              approved angles are listed here.
+            </p>
+          ) : drop.photoId && latest && latest.method !== 'manual' ? (
             <DropFigure
               photoId={drop.photoId}
               width={drop.photoWidth ?? 0}

@@ -2,19 +2,23 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { ReviewDecisionForm } from '@/components/reviews/decision-form';
+import { RevokeApprovalForm } from '@/components/reviews/revoke-form';
 import { PageHeader } from '@/components/ui/empty-state';
 import { PlainTable } from '@/components/ui/plain-table';
 import { requirePage } from '@/lib/auth/guard';
 import { can } from '@/lib/auth/permissions';
-import { loadReview } from '@/server/reviews/load';
+import { loadReviewPage } from '@/server/reviews/load';
 
 export const metadata: Metadata = { title: 'Review' };
 
 export default async function ReviewPage({ params }: { params: Promise<{ id: string }> }) {
   const ctx = await requirePage('results:read-all');
   const { id } = await params;
-  const review = await loadReview(ctx.organization.id, id);
-  if (!review) notFound();
+  const page = await loadReviewPage(ctx.organization.id, id);
+  if (!page) notFound();
+  const { review, otherDeciders } = page;
+  const mayDecide = can(ctx.organization.role, 'review:decide');
+  const ownReview = review.submittedByUserId === ctx.user.id;
   const title = `${review.coatingCode} · ${review.lotCode}${review.sampleLabel ? ` / ${review.sampleLabel}` : ''}`;
   return (
     <>
@@ -68,17 +72,46 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
         </section>
         <section className="card h-fit">
           {review.status === 'submitted' ? (
-            can(ctx.organization.role, 'review:decide') ? (
+            mayDecide && !ownReview ? (
               <>
                 <h2 className="mb-3">Decision</h2>
                 <ReviewDecisionForm reviewId={review.id} />
               </>
             ) : (
-              <p className="text-sm text-ink-600">Waiting for a reviewer.</p>
+              <div className="space-y-2 text-sm" data-testid="review-waiting">
+                <p className="text-ink-600">Waiting for a reviewer.</p>
+                {otherDeciders.length === 0 ? (
+                  <p className="rounded-md bg-amber-50 px-3 py-2 text-amber-900">
+                    {ownReview
+                      ? 'You submitted this review, so you cannot decide it, and'
+                      : 'Only the submitter of this review may decide reviews here, and a submitter never decides their own review, so'}{' '}
+                    no other member of this lab may approve or reject it. An admin can invite a
+                    reviewer on the{' '}
+                    <Link href="/team" className="text-lagoon-700 hover:underline">
+                      Team page
+                    </Link>
+                    .
+                  </p>
+                ) : ownReview ? (
+                  <p>
+                    You submitted this review, so another member decides it (four-eyes):{' '}
+                    {otherDeciders.join(', ')}.
+                  </p>
+                ) : null}
+              </div>
             )
           ) : (
             <div className="space-y-2 text-sm" data-testid="review-outcome">
-              <h2>{review.status === 'approved' ? 'Approved and signed' : 'Rejected'}</h2>
+              <h2>
+                {
+                  {
+                    approved: 'Approved and signed',
+                    rejected: 'Rejected',
+                    withdrawn: 'Withdrawn',
+                    revoked: 'Approval revoked',
+                  }[review.status]
+                }
+              </h2>
               <p>
                 By {review.decidedBy ?? '—'} on{' '}
                 {review.decidedAt?.toISOString().slice(0, 16).replace('T', ' ')} UTC
@@ -89,6 +122,16 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
                   Signature: {review.signature.name} ({review.signature.email}), password
                   reconfirmed; digest {review.signature.digest.slice(0, 16)}…
                 </p>
+              ) : null}
+              {review.status === 'revoked' ? (
+                <p className="rounded-md bg-amber-50 px-3 py-2 text-amber-900">
+                  Revoked by {review.revokedBy ?? '—'} on{' '}
+                  {review.revokedAt?.toISOString().slice(0, 16).replace('T', ' ')} UTC. Reason:{' '}
+                  {review.revokeReason}
+                </p>
+              ) : null}
+              {review.status === 'approved' && mayDecide ? (
+                <RevokeApprovalForm reviewId={review.id} />
               ) : null}
             </div>
           )}

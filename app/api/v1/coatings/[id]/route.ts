@@ -1,0 +1,5 @@
+import { V1_ENDPOINTS } from '@/lib/contracts/api-v1-endpoints';
+import { v1RecordItemRoute } from '@/server/http/api-v1-records';
+import { coatingRecords } from '@/server/records/kinds';
+
+export const GET = v1RecordItemRoute(coatingRecords, V1_ENDPOINTS.getCoating);

@@ -1,0 +1,65 @@
+'use client';
+
+import { useActionState } from 'react';
+import { createApiTokenAction } from '@/app/(app)/team/api/actions';
+import { FormMessages } from '@/components/auth/action-form';
+import { initialFormState } from '@/components/auth/form-state';
+import { NumberField, SelectField, TextField } from '@/components/ui/fields';
+import { API_TOKEN_SCOPES, API_TOKEN_SCOPE_LABELS } from '@/lib/auth/permissions';
+
+const SCOPE_CHOICES = API_TOKEN_SCOPES.map((scope) => ({
+  value: scope,
+  label: API_TOKEN_SCOPE_LABELS[scope],
+}));
+
+/** Makes a token; the token itself is shown once, right here, after it is made. */
+export function ApiTokenForm() {
+  const [state, formAction, pending] = useActionState(createApiTokenAction, initialFormState);
+  const token = state.notice ? state.values?.token : undefined;
+  return (
+    <form action={formAction} className="space-y-3" noValidate>
+      <div className="grid gap-3 sm:grid-cols-[1fr_16rem_8rem]">
+        <TextField
+          id="api-token-name"
+          name="name"
+          label="Name"
+          hint="The instrument or system, e.g. Stage 2 camera PC"
+          autoComplete="off"
+          key={state.notice ?? 'form'}
+          defaultValue={state.notice ? '' : state.values?.name}
+          error={state.fields?.name}
+        />
+        <SelectField
+          id="api-token-scope"
+          name="scope"
+          label="Scope"
+          options={SCOPE_CHOICES}
+          defaultValue={state.values?.scope || 'read-measure'}
+          error={state.fields?.scope}
+        />
+        <NumberField
+          id="api-token-days"
+          name="expiresInDays"
+          label="Works for"
+          unit="days"
+          defaultValue={state.values?.expiresInDays ?? '365'}
+          error={state.fields?.expiresInDays}
+        />
+      </div>
+      <FormMessages state={state} />
+      {token ? (
+        <TextField
+          id="api-token-value"
+          label="The new token"
+          readOnly
+          value={token}
+          className="font-mono"
+          onFocus={(event) => event.currentTarget.select()}
+        />
+      ) : null}
+      <button type="submit" className="btn-primary" disabled={pending}>
+        {pending ? 'Making…' : 'Make token'}
+      </button>
+    </form>
+  );
+}
