@@ -5,10 +5,19 @@ import { liquidName, sampleName } from './sample-select';
 import type { WorkspacePhoto } from './store';
 import type { LiquidChoice, SampleChoice } from './types';
 
-/** What a photo's state says: analysing, failed, needs a look, analysed, saved or changed. */
+/**
+ * What a photo's state says: analysing, failed, where it is in a save (waiting, saving, the
+ * server busy, not saved), needs a look, analysed, saved or changed.
+ */
 export function photoBadge(photo: WorkspacePhoto): { label: string; tone: string } {
   if (photo.status === 'failed') return { label: 'No result', tone: 'bg-coral-700' };
   if (photo.status !== 'ready') return { label: 'Analysing', tone: 'bg-ink-600' };
+  const save = photo.saveState;
+  if (save?.step === 'queued') return { label: 'Waiting to save', tone: 'bg-ink-600' };
+  if (save?.step === 'saving') return { label: 'Saving…', tone: 'bg-lagoon-700' };
+  if (save?.step === 'retrying')
+    return { label: `Server busy: retry in ${save.seconds} s`, tone: 'bg-amber-700' };
+  if (save?.step === 'failed') return { label: 'Not saved', tone: 'bg-coral-700' };
   if (photo.savedRevision !== null && !photo.dirty)
     return { label: `Saved r${photo.savedRevision}`, tone: 'bg-leaf-700' };
   if (photo.savedRevision !== null)
@@ -173,6 +182,7 @@ export function PhotoTable({
                   <span
                     className={`rounded px-1.5 py-0.5 font-medium text-white ${badge.tone}`}
                     data-testid="photo-state"
+                    title={photo.saveState?.step === 'failed' ? photo.saveState.error : undefined}
                   >
                     {badge.label}
                   </span>

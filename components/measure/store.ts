@@ -7,6 +7,16 @@ import type { BaselineHandle } from '@/lib/measure/overlay-geometry';
 
 export type PhotoStatus = 'loading' | 'analysing' | 'ready' | 'failed';
 
+/**
+ * Where a photo is in a save: waiting for its turn, being saved, waiting after the server said
+ * it was busy (the attempt that failed and the seconds before the next), or not saved.
+ */
+export type SaveState =
+  | { step: 'queued' }
+  | { step: 'saving' }
+  | { step: 'retrying'; attempt: number; seconds: number }
+  | { step: 'failed'; error: string };
+
 export type WorkspacePhoto = {
   id: string;
   name: string;
@@ -27,6 +37,8 @@ export type WorkspacePhoto = {
   savedRevision: number | null;
   /** True when what is shown differs from the saved revision (or nothing is saved). */
   dirty: boolean;
+  /** Its place in the save under way or the last one; none when it was not in one. */
+  saveState?: SaveState | null;
 };
 
 /** A photo as it arrives: uploaded now, or opened with what is saved of it. */
@@ -70,6 +82,7 @@ type WorkspaceState = {
   markSaved(id: string, revision: number, dropId?: string): void;
   /** After a stale save: the next save is based on `revision`; the user's work stays. */
   rebase(id: string, revision: number): void;
+  setSaveState(ids: string[], saveState: SaveState | null): void;
   removePhotos(ids: string[]): void;
 };
 
@@ -177,8 +190,11 @@ export const useWorkspace = create<WorkspaceState>((set) => ({
         savedRevision: revision,
         dropId: dropId ?? p.dropId,
         dirty: false,
+        saveState: null,
       })),
     })),
+  setSaveState: (ids, saveState) =>
+    set((state) => ({ photos: mapPhotos(state.photos, ids, () => ({ saveState })) })),
   rebase: (id, revision) =>
     set((state) => ({ photos: mapPhotos(state.photos, [id], () => ({ savedRevision: revision })) })),
   removePhotos: (ids) =>

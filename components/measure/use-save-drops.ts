@@ -3,6 +3,7 @@
 import { useState } from 'react';
 import { ApiError } from '@/components/data/api-error';
 import { useMutation, type MutationResult } from '@/components/data/use-mutation';
+import { COMPUTE_JOBS_PER_USER } from '@/lib/contracts/limits';
 import { measurementSessionReplies } from '@/lib/contracts/measurement-sessions';
 import { useWorkspace, type WorkspacePhoto } from './store';
 import { scaleOf, type SessionDetails } from './types';
@@ -18,6 +19,27 @@ function staleRevisionOf(error: unknown): number | null {
   const current = error.extra.current as { revision?: unknown } | undefined;
   return typeof current?.revision === 'number' ? current.revision : null;
 }
+
+/**
+ * Saves sent at once by one workspace: below the server's COMPUTE_JOBS_PER_USER, so a pendant
+ * fit or another tab of the same user still gets a place.
+ */
+export const SAVES_AT_ONCE = COMPUTE_JOBS_PER_USER - 1;
+/** Attempts of one save while the server answers 429 `busy`. */
+export const BUSY_ATTEMPTS = 8;
+
+/**
+ * How long to wait after the `attempt`-th busy answer: what the server's Retry-After asks, and
+ * at least 2 s doubling with each attempt, at most 30 s.
+ */
+export function busyWaitMs(attempt: number, retryAfterSeconds: number | null): number {
+  const backoff = Math.min(30_000, 2_000 * 2 ** (attempt - 1));
+  return Math.min(30_000, Math.max(backoff, (retryAfterSeconds ?? 0) * 1000));
+}
+
+const errorText = (error: unknown) => (error instanceof Error ? error.message : 'not saved');
+
+const sleep = (ms: number) => new Promise<void>((resolve) => setTimeout(resolve, ms));
 
 const must = <T>(result: MutationResult<T>): T => {
   if (!result.ok) throw result.error;
@@ -38,19 +60,24 @@ export function saveProblem(photo: WorkspacePhoto, reason: string): string | nul
  * Saving analysed photos, each to its own sample and probe liquid: the session is created on the
  * first save with its details (a reopened drop keeps its own session unless the details
  * changed), then each photo's drop is saved (the server re-analyses the stored photo with the
- * same method and baseline). A re-save carries the reason the user gave.
+ * same method and baseline), a few at a time, waiting and sending again while the server is
+ * busy; each photo's row says where it is. A re-save carries the reason the user gave.
  */
 export function useSaveDrops({
   session,
   onSessionCreated,
   onSaved,
+  wait = sleep,
 }: {
   session: SessionDetails;
   onSessionCreated: (sessionId: string) => void;
   /** After a save, e.g. to reload the selected photo's revisions. */
   onSaved: () => Promise<unknown>;
+  /** Waits between attempts after a busy answer (tests pass one that records the waits). */
+  wait?: (ms: number) => Promise<void>;
 }) {
   const markSaved = useWorkspace((state) => state.markSaved);
+  const setSaveState = useWorkspace((state) => state.setSaveState);
   const rebase = useWorkspace((state) => state.rebase);
   const select = useWorkspace((state) => state.select);
   const [stale, setStale] = useState<StaleSave[]>([]);
@@ -156,16 +183,69 @@ export function useSaveDrops({
     }
   }
 
+  /** Saves one photo; after a 429 `busy` it waits and sends again, saying so in its row. */
+  async function saveWithRetries(photo: WorkspacePhoto, sessionId: string, reason: string) {
+    for (let attempt = 1; ; attempt += 1) {
+      setSaveState([photo.id], { step: 'saving' });
+      try {
+        return await savePhoto(photo, sessionId, reason);
+      } catch (error) {
+        const busy = error instanceof ApiError && error.code === 'busy';
+        if (!busy || attempt >= BUSY_ATTEMPTS) throw error;
+        const ms = busyWaitMs(attempt, error.retryAfterSeconds);
+        setSaveState([photo.id], { step: 'retrying', attempt, seconds: Math.round(ms / 1000) });
+        await wait(ms);
+      }
+    }
+  }
+
+  /**
+   * Saves the photos, SAVES_AT_ONCE at a time (each save is a computation on the server, which
+   * takes COMPUTE_JOBS_PER_USER per user at once). Every photo is saved or named with why not;
+   * one that is not saved stays in the workspace as it was.
+   */
+  async function saveQueued(photos: WorkspacePhoto[], reason: string) {
+    setSaveState(
+      photos.map((p) => p.id),
+      { step: 'queued' },
+    );
+    const failures: { at: number; photo: WorkspacePhoto; error: unknown }[] = [];
+    let revision = 0;
+    try {
+      const sessionId = await ensureSession(photos.map((p) => p.probeLiquidId));
+      let next = 0;
+      let done = 0;
+      const lane = async () => {
+        while (next < photos.length) {
+          const at = next++;
+          const photo = photos[at];
+          try {
+            revision = await saveWithRetries(photo, sessionId, reason);
+          } catch (error) {
+            noteStale(photo, error);
+            setSaveState([photo.id], { step: 'failed', error: errorText(error) });
+            failures.push({ at, photo, error });
+          }
+          done += 1;
+          if (photos.length > 1) setProgress({ done, total: photos.length });
+        }
+      };
+      await Promise.all(Array.from({ length: Math.min(SAVES_AT_ONCE, photos.length) }, lane));
+    } catch (error) {
+      // No session: nothing was sent; the photos wait as they were.
+      setSaveState(
+        photos.map((p) => p.id),
+        null,
+      );
+      throw error;
+    }
+    return { failures: failures.sort((x, y) => x.at - y.at), revision };
+  }
+
   const saveOne = (photo: WorkspacePhoto, reason = '') =>
     guarded([photo], reason, async () => {
-      const sessionId = await ensureSession([photo.probeLiquidId]);
-      let revision: number;
-      try {
-        revision = await savePhoto(photo, sessionId, reason);
-      } catch (error) {
-        noteStale(photo, error);
-        throw error;
-      }
+      const { failures, revision } = await saveQueued([photo], reason);
+      if (failures.length) throw failures[0].error;
       await onSaved();
       return { kind: 'ok', text: `Saved as revision ${revision}.` };
     });
@@ -173,22 +253,12 @@ export function useSaveDrops({
   const saveMany = (photos: WorkspacePhoto[], reason = '') =>
     guarded(photos, reason, async () => {
       setProgress({ done: 0, total: photos.length });
-      const sessionId = await ensureSession(photos.map((p) => p.probeLiquidId));
-      const failures: string[] = [];
-      for (const [i, photo] of photos.entries()) {
-        try {
-          await savePhoto(photo, sessionId, reason);
-        } catch (error) {
-          noteStale(photo, error);
-          failures.push(`${photo.name}: ${error instanceof Error ? error.message : 'not saved'}`);
-        }
-        setProgress({ done: i + 1, total: photos.length });
-      }
+      const { failures } = await saveQueued(photos, reason);
       await onSaved();
       return failures.length
         ? {
             kind: 'error',
-            text: `Saved ${photos.length - failures.length} of ${photos.length}. Not saved: ${failures.join('; ')}`,
+            text: `Saved ${photos.length - failures.length} of ${photos.length}. Not saved: ${failures.map((f) => `${f.photo.name}: ${errorText(f.error)}`).join('; ')}`,
           }
         : { kind: 'ok', text: `Saved ${photos.length} drop${photos.length === 1 ? '' : 's'}.` };
     });

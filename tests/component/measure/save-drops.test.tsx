@@ -1,8 +1,15 @@
 import { act, renderHook, waitFor } from '@testing-library/react';
 import { beforeEach, describe, expect, it } from 'vitest';
+import { photoBadge } from '@/components/measure/photo-table';
 import { useWorkspace, type WorkspacePhoto } from '@/components/measure/store';
 import { initialSession } from '@/components/measure/types';
-import { useSaveDrops } from '@/components/measure/use-save-drops';
+import {
+  BUSY_ATTEMPTS,
+  SAVES_AT_ONCE,
+  busyWaitMs,
+  useSaveDrops,
+} from '@/components/measure/use-save-drops';
+import { COMPUTE_JOBS_PER_USER } from '@/lib/contracts/limits';
 import { errorBody, stubFetch } from '../support';
 
 const LIQUIDS = [
@@ -53,6 +60,7 @@ const SESSION_CREATED = {
 function setup() {
   let reloads = 0;
   const created: string[] = [];
+  const waits: number[] = [];
   const hook = renderHook(() =>
     useSaveDrops({
       session: initialSession(LIQUIDS, 'Ana Analyst'),
@@ -60,9 +68,35 @@ function setup() {
       onSaved: async () => {
         reloads += 1;
       },
+      // Records the waits instead of waiting them.
+      wait: async (ms) => {
+        waits.push(ms);
+      },
     }),
   );
-  return { hook, created, reloads: () => reloads };
+  return { hook, created, reloads: () => reloads, waits };
+}
+
+const BUSY = {
+  status: 429,
+  headers: { 'retry-after': '5' },
+  body: errorBody(
+    'busy',
+    'You already have 4 calculations running. Wait for one to finish, then try again.',
+  ),
+};
+
+/** Every save-state step each photo went through, in order (repeats folded). */
+function recordSaveSteps() {
+  const steps = new Map<string, string[]>();
+  const unsubscribe = useWorkspace.subscribe((state) => {
+    for (const p of state.photos) {
+      const step = p.saveState?.step ?? (p.savedRevision !== null ? 'saved' : 'none');
+      const seen = steps.get(p.id) ?? [];
+      if (seen.at(-1) !== step) steps.set(p.id, [...seen, step]);
+    }
+  });
+  return { steps, unsubscribe };
 }
 
 beforeEach(() => {
@@ -172,7 +206,9 @@ describe('saving drops', () => {
       selectedId: null,
     });
     const { hook, reloads } = setup();
-    await act(() => hook.result.current.saveOne(useWorkspace.getState().photos[0], 'moved the baseline'));
+    await act(() =>
+      hook.result.current.saveOne(useWorkspace.getState().photos[0], 'moved the baseline'),
+    );
     expect(calls.at(-1)?.body).toMatchObject({ expectedRevision: 1 });
     expect(hook.result.current.message?.kind).toBe('error');
     expect(hook.result.current.stale).toEqual([{ photoId: 'p1', photoName: 'a.png', current: 3 }]);
@@ -186,7 +222,9 @@ describe('saving drops', () => {
     expect(reloads()).toBe(1);
 
     answer = 'saved';
-    await act(() => hook.result.current.saveOne(useWorkspace.getState().photos[0], 'checked revision 3'));
+    await act(() =>
+      hook.result.current.saveOne(useWorkspace.getState().photos[0], 'checked revision 3'),
+    );
     expect(calls.at(-1)?.body).toMatchObject({ expectedRevision: 3 });
     expect(useWorkspace.getState().photos[0].savedRevision).toBe(4);
   });
@@ -197,5 +235,86 @@ describe('saving drops', () => {
     await act(() => hook.result.current.saveOne(useWorkspace.getState().photos[0]));
     expect(hook.result.current.message?.kind).toBe('error');
     expect(hook.result.current.message?.text).toMatch(/could not be reached.*nothing was lost/);
+  });
+
+  it(`saves ten photos ${SAVES_AT_ONCE} at a time within the per-user compute limit, waits and sends again while the server is busy, and loses none`, async () => {
+    const ten = Array.from({ length: 10 }, (_, i) => analysed(`p${i}`, `drop-${i}.png`));
+    useWorkspace.setState({ photos: ten, selectedId: null });
+    // The server's limit of 4 per user, with 2 taken by the same user's other work while the
+    // first saves run: the third save at once is refused as busy until that work is done.
+    let inFlight = 0;
+    let most = 0;
+    let otherWork = 2;
+    let saved = 0;
+    let refused = 0;
+    const calls = stubFetch(async ({ url }) => {
+      if (url === '/api/measurement-sessions') return SESSION_CREATED;
+      if (inFlight + otherWork >= COMPUTE_JOBS_PER_USER) {
+        refused += 1;
+        if (refused === 3) otherWork = 0;
+        return BUSY;
+      }
+      inFlight += 1;
+      most = Math.max(most, inFlight);
+      await new Promise((resolve) => setTimeout(resolve, 5));
+      inFlight -= 1;
+      saved += 1;
+      return { status: 201, body: { revision: 1, dropId: `d-${url}` } };
+    });
+    const { steps, unsubscribe } = recordSaveSteps();
+    const { hook, waits } = setup();
+    await act(() => hook.result.current.saveMany(useWorkspace.getState().photos));
+    unsubscribe();
+
+    expect(hook.result.current.message).toEqual({ kind: 'ok', text: 'Saved 10 drops.' });
+    expect(
+      useWorkspace.getState().photos.map((p) => [p.savedRevision, p.dirty, p.saveState]),
+    ).toEqual(ten.map(() => [1, false, null]));
+    expect(saved).toBe(10);
+    expect(refused).toBe(3);
+    expect(most).toBeLessThanOrEqual(SAVES_AT_ONCE);
+    expect(calls.filter((c) => c.url.endsWith('/drop'))).toHaveLength(13);
+    // Each wait honours Retry-After (5 s) and grows with the attempts of the same photo.
+    expect(waits).toHaveLength(3);
+    expect(waits.every((ms) => ms >= 5000)).toBe(true);
+    // Every photo waited its turn and was saved; a refused one said the server was busy and
+    // was sent again.
+    const all = [...steps.values()];
+    expect(all).toHaveLength(10);
+    expect(all.filter((s) => s.includes('retrying')).length).toBeGreaterThan(0);
+    for (const s of all) {
+      expect(s.slice(0, 2)).toEqual(['queued', 'saving']);
+      expect(s.at(-1)).toBe('saved');
+      expect(s.slice(2, -1).every((step, i) => step === (i % 2 ? 'saving' : 'retrying'))).toBe(
+        true,
+      );
+    }
+  });
+
+  it('a save the server keeps refusing as busy stops after its attempts; the photo stays unsaved in the table, named', async () => {
+    const calls = stubFetch(({ url }) =>
+      url === '/api/measurement-sessions' ? SESSION_CREATED : BUSY,
+    );
+    const { hook, waits } = setup();
+    const [p1] = useWorkspace.getState().photos;
+    await act(() => hook.result.current.saveMany([p1]));
+    expect(calls.filter((c) => c.url === '/api/photos/p1/drop')).toHaveLength(BUSY_ATTEMPTS);
+    // Retry-After (5 s) or the doubling from 2 s, whichever is longer, never above 30 s.
+    expect(waits).toEqual([5000, 5000, 8000, 16000, 30000, 30000, 30000]);
+    expect(waits.map((_, i) => busyWaitMs(i + 1, 5))).toEqual(waits);
+    const kept = useWorkspace.getState().photos[0];
+    expect(photoBadge(kept).label).toBe('Not saved');
+    expect(
+      photoBadge({ ...kept, saveState: { step: 'retrying', attempt: 2, seconds: 8 } }).label,
+    ).toBe('Server busy: retry in 8 s');
+    expect([kept.id, kept.savedRevision, kept.dirty, kept.saveState?.step]).toEqual([
+      'p1',
+      null,
+      true,
+      'failed',
+    ]);
+    expect(hook.result.current.message?.text).toMatch(
+      /^Saved 0 of 1\. Not saved: a\.png: You already have 4 calculations running/,
+    );
   });
 });
