@@ -41,6 +41,11 @@ export function SessionPanel(props: {
           Saving keeps the session these drops were measured in; change a value to start a new one.
         </p>
       ) : null}
+      <TextField
+        label="Liquid lot"
+        hint="From the bottle; printed on certificates"
+        {...bind('liquidLot')}
+      />
       <TextField label="Operator" {...bind('operatorName')} />
       <div className="grid grid-cols-3 gap-2">
         <NumberField label="Temp." unit="°C" {...bind('temperatureC')} />

@@ -19,6 +19,8 @@ export type SessionDetails = {
   humidityPct: string;
   dropVolumeUl: string;
   scalePxPerMm: string;
+  /** The lot of the probe liquid's bottle, printed on certificates; empty when not recorded. */
+  liquidLot: string;
   /** Created on the first save with these details (or a reopened drop's); cleared when they change. */
   sessionId: string | null;
 };
@@ -44,6 +46,7 @@ export function initialSession(
       humidityPct: text(seed.humidityPct),
       dropVolumeUl: text(seed.dropVolumeUl),
       scalePxPerMm: text(seed.scalePxPerMm),
+      liquidLot: seed.liquidLot,
       sessionId: seed.id,
     };
   }
@@ -54,6 +57,7 @@ export function initialSession(
     humidityPct: '50',
     dropVolumeUl: '3',
     scalePxPerMm: '',
+    liquidLot: '',
     sessionId: null,
   };
 }

@@ -309,6 +309,7 @@ export async function getSessionConditions(organizationId: string, sessionId: st
       humidityPct: measurementSessions.humidityPct,
       dropVolumeUl: measurementSessions.dropVolumeUl,
       scalePxPerMm: measurementSessions.scalePxPerMm,
+      liquidLot: measurementSessions.liquidLot,
     })
     .from(measurementSessions)
     .where(

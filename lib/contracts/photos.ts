@@ -38,4 +38,5 @@ export type WorkspaceSessionSeed = {
   humidityPct: number | null;
   dropVolumeUl: number | null;
   scalePxPerMm: number | null;
+  liquidLot: string;
 };

@@ -95,11 +95,15 @@ describe('a morning of photos in the workspace table', () => {
     const means = await mine(page).locator('[data-cell="mean"]').allTextContents();
     expect(means.every((m) => /^\d+\.\d°$/.test(m))).toBe(true);
 
-    // Keyboard: ↓ in the table shows the next photo.
-    await rowOf(page, names[0]).getByRole('button', { name: names[0], exact: true }).click();
+    // Keyboard: ↓ in the table shows the next photo (rows are in the order the uploads arrived).
+    const listed = await mine(page)
+      .locator('td:nth-child(2) button')
+      .evaluateAll((buttons) => buttons.map((b) => b.getAttribute('title')!));
+    expect([...listed].sort()).toEqual([...names].sort());
+    await rowOf(page, listed[0]).getByRole('button', { name: listed[0], exact: true }).click();
     await page.getByRole('region', { name: /Photos table/ }).focus();
     await page.keyboard.press('ArrowDown');
-    await expect.poll(() => page.getByTestId('shown-photo').textContent()).toContain(names[1]);
+    await expect.poll(() => page.getByTestId('shown-photo').textContent()).toContain(listed[1]);
 
     // Remove two (the row's own button); the ten others stay ticked.
     for (const name of [names[6], names[9]]) {
@@ -241,4 +245,60 @@ describe('a morning of photos in the workspace table', () => {
     );
     await context.close();
   }, 600_000);
+
+  it('the reviewer opens a drop from the review page (its drop page) and approves; a viewer then sees that drop', async () => {
+    const analystContext = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
+    const analyst = await analystContext.newPage();
+    await signIn(analyst, 'analyst@kestrel.example', DEMO_PASSWORD);
+    await analyst.goto(`${BASE_URL}/reviews`);
+    const batch = analyst.getByLabel('Batch');
+    const option = (await batch.locator('option', { hasText: 'B-0412' }).first().textContent())!;
+    await batch.selectOption({ label: option.trim() });
+    await analyst.getByLabel(/Note for the reviewer/).fill('Ten drops from the workspace table');
+    await analyst.getByRole('button', { name: 'Submit for review' }).click();
+    await analyst.getByText(/Submitted \d+ results? for review/).waitFor({ timeout: 60_000 });
+    await analystContext.close();
+
+    const reviewerContext = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
+    const reviewer = await reviewerContext.newPage();
+    await signIn(reviewer, 'reviewer@kestrel.example', DEMO_PASSWORD);
+    await reviewer.goto(`${BASE_URL}/reviews`);
+    await reviewer
+      .getByRole('table', { name: 'Waiting for review' })
+      .getByRole('link', { name: /B-0412/ })
+      .first()
+      .click();
+    await reviewer.getByRole('heading', { name: /Review of .*B-0412/ }).waitFor();
+    const reviewUrl = reviewer.url();
+
+    // A drop of the review opens its page: the photo's fit and every revision.
+    const first = reviewer.getByTestId('review-drop').first();
+    const href = (await first.getByRole('link').first().getAttribute('href'))!;
+    expect(href).toMatch(/^\/drops\/[^/]+$/);
+    await first.getByRole('link').first().click();
+    await reviewer.waitForURL(`${BASE_URL}${href}`);
+    await reviewer.getByRole('heading', { name: /Drop on .*B-0412/ }).waitFor();
+    expect(await reviewer.getByTestId('drop-revisions').getByRole('row').count()).toBeGreaterThan(
+      0,
+    );
+    expect(await reviewer.getByTestId('latest-revision').textContent()).toMatch(/^r\d+$/);
+
+    // Back on the review: approve and sign.
+    await reviewer.goto(reviewUrl);
+    await reviewer.getByLabel(/Your password/).fill(DEMO_PASSWORD);
+    await reviewer.getByRole('button', { name: 'Approve and sign' }).click();
+    await reviewer
+      .getByRole('heading', { name: 'Approved and signed' })
+      .waitFor({ timeout: 60_000 });
+    await reviewerContext.close();
+
+    // Approved, the drop's page is open to a viewer too (without the photo).
+    const viewerContext = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
+    const viewer = await viewerContext.newPage();
+    await signIn(viewer, 'viewer@kestrel.example', DEMO_PASSWORD);
+    await viewer.goto(`${BASE_URL}${href}`);
+    await viewer.getByRole('heading', { name: /Drop on .*B-0412/ }).waitFor();
+    expect(await viewer.getByTestId('latest-revision').textContent()).toMatch(/^r\d+$/);
+    await viewerContext.close();
+  }, 300_000);
 });

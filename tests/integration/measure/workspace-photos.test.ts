@@ -5,13 +5,14 @@ import { closeDb, getDb } from '@/db/client';
 import { ensureProbeLiquidLibrary } from '@/db/probe-liquid-library';
 import { newId } from '@/db/queries/ids';
 import { listUnsavedPhotos } from '@/db/queries/photos';
-import { auditEvents, batches, coatings, photos, samples } from '@/db/schema';
+import { auditEvents, photos } from '@/db/schema';
 import { POST as saveDrop } from '@/app/api/photos/[id]/drop/route';
 import { POST as remove } from '@/app/api/photos/remove/route';
 import { recordUploadedPhoto } from '@/server/photos/record-upload';
 import { and, eq } from 'drizzle-orm';
 import { apiRequest } from '../support/request';
 import { createMember, createOrganization } from '../support/fixtures';
+import * as seed from '../support/seed';
 
 const FIXTURE = path.resolve(__dirname, '../../../fixtures/drops/cap-60-noisy.png');
 let lab: { id: string };
@@ -26,12 +27,8 @@ beforeAll(async () => {
   lab = await createOrganization();
   analyst = await createMember(lab.id, 'analyst');
   colleague = await createMember(lab.id, 'analyst');
-  const coatingId = newId();
-  const batchId = newId();
-  sampleId = newId();
-  await db.insert(coatings).values({ id: coatingId, organizationId: lab.id, code: 'W-1', name: 'Workspace coat' });
-  await db.insert(batches).values({ id: batchId, organizationId: lab.id, coatingId, lotCode: 'W-L1', producedOn: '2026-11-01' });
-  await db.insert(samples).values({ id: sampleId, organizationId: lab.id, batchId, label: 'S1' });
+  const batchId = await seed.insertBatch(lab.id, await seed.insertCoating(lab.id, 'W-1'), 'W-L1');
+  sampleId = await seed.insertSample(lab.id, batchId, 'S1');
   bytes = await readFile(FIXTURE);
 });
 
@@ -41,28 +38,32 @@ afterAll(async () => {
 
 /** An upload of the fixture's bytes (a new stored file each time), as the upload route records a workspace photo. */
 const upload = (userId: string, sha256: string, name = 'cap-60-noisy.png') =>
-  recordUploadedPhoto({
-    organizationId: lab.id,
-    uploadedByUserId: userId,
-    fileKey: `test-${newId()}`,
-    url: 'http://127.0.0.1:9/unused',
-    originalName: name,
-    sizeBytes: bytes.length,
-    format: 'png',
-    width: 640,
-    height: 480,
-    bitDepth: 8,
-    sha256,
-    thumbnailPng: bytes,
-    workingPng: bytes,
-  }, { reuseUnsavedTwin: true });
+  recordUploadedPhoto(
+    {
+      organizationId: lab.id,
+      uploadedByUserId: userId,
+      fileKey: `test-${newId()}`,
+      url: 'http://127.0.0.1:9/unused',
+      originalName: name,
+      sizeBytes: bytes.length,
+      format: 'png',
+      width: 640,
+      height: 480,
+      bitDepth: 8,
+      sha256,
+      thumbnailPng: bytes,
+      workingPng: bytes,
+    },
+    { reuseUnsavedTwin: true },
+  );
 
 const removeAs = (sessionId: string, photoIds: string[]) =>
   remove(apiRequest('/api/photos/remove', { method: 'POST', sessionId, body: { photoIds } }), {
     params: Promise.resolve({}),
   });
 
-const waiting = async (userId: string) => (await listUnsavedPhotos(lab.id, userId)).map((p) => p.id);
+const waiting = async (userId: string) =>
+  (await listUnsavedPhotos(lab.id, userId)).map((p) => p.id);
 
 describe("the user's unsaved photos", () => {
   it('the same file uploaded twice (also at once) is one photo; another user gets their own', async () => {
@@ -111,7 +112,13 @@ describe("the user's unsaved photos", () => {
       apiRequest(`/api/photos/${saved.photoId}/drop`, {
         method: 'POST',
         sessionId: analyst.sessionId,
-        body: { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null },
+        body: {
+          sampleId,
+          probeLiquidId: 'liquid-water',
+          method: 'circle',
+          baseline: null,
+          expectedRevision: 0,
+        },
       }),
       { params: Promise.resolve({ id: saved.photoId }) },
     );
