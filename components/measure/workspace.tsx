@@ -78,6 +78,11 @@ export function MeasureWorkspace(props: {
         : photos,
     [photos, onlyWarnings],
   );
+  const stepShown = (by: -1 | 1) =>
+    step(
+      shown.map((p) => p.id),
+      by,
+    );
   const ticked = photos.filter((p) => checked.includes(p.id));
   const analysed = photos.filter((p) => p.status === 'ready' || p.status === 'failed').length;
   const liquid = props.liquids.find((l) => l.id === selected?.probeLiquidId);
@@ -102,30 +107,16 @@ export function MeasureWorkspace(props: {
             checked={onlyWarnings}
             onChange={(e) => setOnlyWarnings(e.target.checked)}
           />
-          <button
-            type="button"
-            className="btn-quiet"
-            onClick={() =>
-              step(
-                shown.map((p) => p.id),
-                -1,
-              )
-            }
-          >
-            ↑ Previous
-          </button>
-          <button
-            type="button"
-            className="btn-quiet"
-            onClick={() =>
-              step(
-                shown.map((p) => p.id),
-                1,
-              )
-            }
-          >
-            ↓ Next
-          </button>
+          {(
+            [
+              [-1, '↑ Previous'],
+              [1, '↓ Next'],
+            ] as const
+          ).map(([by, label]) => (
+            <button key={by} type="button" className="btn-quiet" onClick={() => stepShown(by)}>
+              {label}
+            </button>
+          ))}
         </div>
         {photos.length > 0 ? (
           <>
@@ -152,12 +143,7 @@ export function MeasureWorkspace(props: {
                 selectedId={selected?.id ?? null}
                 checked={checked}
                 onSelect={select}
-                onStep={(by) =>
-                  step(
-                    shown.map((p) => p.id),
-                    by,
-                  )
-                }
+                onStep={stepShown}
                 onToggle={toggleChecked}
                 onToggleAll={(on) => setChecked(on ? shown.map((p) => p.id) : [])}
                 onRemove={(photo) => void removing.remove([photo.id])}
