@@ -391,10 +391,13 @@ export const photos = pgTable(
     workingPng: bytea('working_png'),
     /** What the photo was uploaded for; the measurement workspace offers sessile drops only. */
     purpose: photoPurposeEnum('purpose').notNull().default('sessile-drop'),
+    /** Set when its uploader removed it from the workspace before saving it; the row stays. */
+    removedAt: timestamp('removed_at', { withTimezone: true }),
     createdAt: createdAt(),
   },
   (t) => [
     index('photos_org_time_idx').on(t.organizationId, t.createdAt),
+    index('photos_uploader_sha_idx').on(t.uploadedByUserId, t.sha256),
     uniqueIndex('photos_file_key_unique').on(t.fileKey),
   ],
 );
@@ -447,6 +450,10 @@ export const analyses = pgTable(
     rightUncertaintyDeg: doublePrecision('right_uncertainty_deg'),
     softwareVersion: text('software_version').notNull(),
     reviewStatus: reviewStatusEnum('review_status').notNull().default('draft'),
+    /** Why this revision was made (asked when a saved drop is analysed again). */
+    reason: text('reason'),
+    /** The session whose conditions this revision was saved with. */
+    sessionId: text('session_id').references(() => measurementSessions.id),
     createdByUserId: userRef('created_by_user_id'),
     createdAt: createdAt(),
   },

@@ -225,6 +225,7 @@ export async function seedDemoRecords(
                   baseline: null,
                   options: { scalePxPerMm: SCALE_PX_PER_MM, baselineSource: result.baselineSource },
                   result: kept,
+                  sessionId,
                   createdByUserId: owner.analystUserId,
                   createdAt: measuredAt,
                 }),

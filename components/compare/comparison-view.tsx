@@ -9,6 +9,8 @@ import type {
 import { PlainTable } from '@/components/ui/plain-table';
 import { StripPlot, type StripBatch } from './strip-plot';
 import { TrendChart } from './trend-chart';
+import Link from 'next/link';
+import { dropHref } from '@/lib/measure/links';
 
 const fmt = (v: number | null | undefined, digits = 1) =>
   v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(digits);
@@ -111,7 +113,26 @@ function BatchRow({ r, liquidId }: { r: BatchLiquidResult; liquidId: string }) {
       >
         {r.capability ? fmt(r.capability.cpk, 2) : '—'}
       </td>
-      <td className="py-2 text-right tabular-nums">{r.outliers ? outliers : '—'}</td>
+      <td className="py-2 text-right tabular-nums">
+        {outliers ? (
+          <>
+            {outliers}
+            <ul className="text-xs">
+              {r.drops
+                .filter((x) => x.outlier)
+                .map((x) => (
+                  <li key={x.dropId}>
+                    <Link href={dropHref(x.dropId)} className="text-lagoon-700 underline">
+                      {x.sampleLabel} {fmt(x.meanDeg, 1)}°
+                    </Link>
+                  </li>
+                ))}
+            </ul>
+          </>
+        ) : (
+          '—'
+        )}
+      </td>
     </tr>
   );
 }

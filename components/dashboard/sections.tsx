@@ -2,6 +2,7 @@ import Link from 'next/link';
 import type { OutOfSpecBatch, PendingReviewRequests, RecentDrop } from '@/lib/contracts/dashboard';
 import { fmtUtc } from '@/components/ui/format';
 import { PlainTable } from '@/components/ui/plain-table';
+import { dropHref } from '@/lib/measure/links';
 
 const STATUS: Record<RecentDrop['reviewStatus'], string> = {
   draft: 'Draft',
@@ -43,7 +44,9 @@ export function RecentDrops({
             {drops.map((d) => (
               <tr key={d.dropId} className="border-t border-ink-100">
                 <td className="py-1.5 pr-3">
-                  <span className="font-mono">{d.lotCode}</span> · {d.sampleLabel}
+                  <Link href={dropHref(d.dropId)} className="text-lagoon-700 hover:underline">
+                    <span className="font-mono">{d.lotCode}</span> · {d.sampleLabel}
+                  </Link>
                   <span className="block text-xs text-ink-500">{d.coatingCode}</span>
                 </td>
                 <td className="py-1.5 pr-3">{d.liquidName}</td>

@@ -26,6 +26,8 @@ export class ApiError extends Error {
     readonly fields: Readonly<Record<string, string>> = {},
     /** The body's keys beside `error`, e.g. `current` with a 409 stale_version. */
     readonly extra: Readonly<Record<string, unknown>> = {},
+    /** How long the server asked to wait before sending again (Retry-After, in seconds). */
+    readonly retryAfterSeconds: number | null = null,
   ) {
     super(message);
   }
@@ -43,7 +45,7 @@ export class ApiError extends Error {
    * Reads Beadline's error body. Anything else (a proxy's HTML page, no body, a code outside the
    * closed set) is `internal`, as the server calls what it did not expect, and keeps the status.
    */
-  static fromReply(status: number, body: unknown): ApiError {
+  static fromReply(status: number, body: unknown, retryAfter: string | null = null): ApiError {
     const error = isRecord(body) && isRecord(body.error) ? body.error : null;
     if (!error || typeof error.message !== 'string' || !isErrorCode(error.code)) {
       return new ApiError(
@@ -60,7 +62,15 @@ export class ApiError extends Error {
         )
       : {};
     const { error: _error, ...extra } = body as Record<string, unknown>;
-    return new ApiError(status, error.code, error.message, fields, extra);
+    const seconds = retryAfter === null ? NaN : Number(retryAfter);
+    return new ApiError(
+      status,
+      error.code,
+      error.message,
+      fields,
+      extra,
+      Number.isFinite(seconds) && seconds >= 0 ? seconds : null,
+    );
   }
 }
 

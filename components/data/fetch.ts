@@ -47,7 +47,9 @@ export async function apiFetch<T>(url: string, request: ApiRequest = {}): Promis
     throw ApiError.network();
   }
   const body: unknown = await response.json().catch(() => null);
-  if (!response.ok) throw ApiError.fromReply(response.status, body);
+  if (!response.ok) {
+    throw ApiError.fromReply(response.status, body, response.headers.get('retry-after'));
+  }
   if (schema && process.env.NODE_ENV !== 'production') checkReply(method, url, schema, body);
   return body as T;
 }

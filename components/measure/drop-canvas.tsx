@@ -18,22 +18,32 @@ import type { AnalysisResult, Baseline, Point } from '@/lib/analysis/types';
 import { previewBaseline, useLiveResult } from './use-analysis';
 import {
   baselineAcross,
+  baselineHandles,
+  baselineThrough,
+  contactZoom,
   nudgeBaseline,
   nudgeFromKey,
   tangentEnd,
   type BaselineHandle,
 } from '@/lib/measure/overlay-geometry';
+import { Magnifier } from './magnifier';
 
-/** Beadline's overlay colours and marks (its own; see app/globals.css palette). */
-const COLORS = {
-  edge: '#30b9b8',
-  profile: '#e08a0b',
-  baseline: '#134f52',
-  baselineHalo: '#ecfbfa',
-  handle: '#169c9d',
-  handleSelected: '#e5533d',
-  tangent: '#b32f1d',
+/**
+ * Overlay colours from the Okabe–Ito palette (told apart with the common colour-vision
+ * deficiencies), each mark also with its own line pattern: edge points as dots, the profile
+ * solid, tangents long dashes, the baseline short dashes.
+ */
+export const COLORS = {
+  edge: '#56B4E9', // sky blue
+  profile: '#E69F00', // orange
+  baseline: '#0072B2', // blue
+  baselineHalo: '#ffffff',
+  handle: '#F0E442', // yellow
+  handleSelected: '#CC79A7', // reddish purple
+  tangent: '#D55E00', // vermillion
 };
+const TANGENT_DASH = [10, 4];
+const BASELINE_DASH = [6, 4];
 
 type Props = {
   /** The photo, to follow its newest analysis (drafts included) as it arrives from the worker. */
@@ -50,6 +60,8 @@ type Props = {
   /** When set, a click on the photo picks an image point (scale calibration on the needle). */
   onPickPoint?: (point: Point) => void;
   pickedPoints?: Point[];
+  /** Shows the fit and baseline without handles (a saved drop's page). */
+  readOnly?: boolean;
 };
 
 function useLoadedImage(url: string) {
@@ -96,8 +108,18 @@ export function DropCanvas(props: Props) {
   }, []);
 
   const baseline = dragged ?? props.baseline ?? result?.baseline ?? null;
-  const handleRadius = 7 / scale;
+  const handleRadius = 8 / scale;
   const stroke = 1.5 / scale;
+  // A baseline set by hand has its handles at its ends; the automatic one at the contact points.
+  const handles = baseline
+    ? baselineHandles(
+        baseline,
+        dragged || props.baseline || !result ? null : [result.contactLeft, result.contactRight],
+        { width, height },
+        8 / fitScale,
+      )
+    : null;
+  const [magnified, setMagnified] = useState<'start' | 'end' | null>(null);
 
   const tangents = useMemo(() => {
     if (!result || !baseline) return null;
@@ -133,11 +155,29 @@ export function DropCanvas(props: Props) {
   }
 
   function onKeyDown(event: React.KeyboardEvent) {
-    if (!baseline || !selectedHandle) return;
+    if (!handles || props.readOnly) return;
+    const pick = ({ '1': 'start', '2': 'end', '3': 'line' } as const)[event.key as '1' | '2' | '3'];
+    if (pick) {
+      event.preventDefault();
+      onSelectHandle(pick);
+      return;
+    }
+    if (!selectedHandle) return;
     const step = nudgeFromKey(event.key, event.altKey);
     if (!step) return;
     event.preventDefault();
-    onBaselineChange(nudgeBaseline(baseline, selectedHandle, step[0], step[1]));
+    const through = baselineThrough(handles.start, handles.end);
+    onBaselineChange(nudgeBaseline(through, selectedHandle, step[0], step[1]));
+  }
+
+  function zoomToContacts() {
+    if (!result) return;
+    const next = contactZoom([result.contactLeft, result.contactRight], result.heightPx, fitScale, {
+      width: viewWidth,
+      height: viewHeight,
+    });
+    setZoom(next.zoom);
+    setOffset(next.offset);
   }
 
   const follow = (next: Baseline, final: boolean) => {
@@ -151,17 +191,28 @@ export function DropCanvas(props: Props) {
   };
 
   const dragTo =
-    (handle: 'start' | 'end', final = false) => (event: Konva.KonvaEventObject<DragEvent>) => {
-      if (!baseline) return;
+    (handle: 'start' | 'end', final = false) =>
+    (event: Konva.KonvaEventObject<DragEvent>) => {
+      if (!handles) return;
       const { x, y } = event.target.position();
-      follow(handle === 'start' ? { ...baseline, x1: x, y1: y } : { ...baseline, x2: x, y2: y }, final);
+      if ((magnified === null) === !final) setMagnified(final ? null : handle);
+      follow(
+        handle === 'start'
+          ? baselineThrough([x, y], handles.end)
+          : baselineThrough(handles.start, [x, y]),
+        final,
+      );
     };
 
   return (
     <div ref={containerRef} className="w-full">
       <div
         role="application"
-        aria-label="Drop photo with profile and baseline. Select a baseline handle, then use the arrow keys to move it by 1 pixel, or with Alt by 0.1 pixel."
+        aria-label={
+          props.readOnly
+            ? 'Drop photo with its edge points, fitted profile, tangents and baseline.'
+            : 'Drop photo with profile and baseline. Press 1 for the left baseline handle, 2 for the right one, 3 for the whole line, then the arrow keys move it by 1 pixel, or with Alt by 0.1 pixel.'
+        }
         tabIndex={0}
         onKeyDown={onKeyDown}
         className="overflow-hidden rounded-md border border-ink-200 bg-ink-900 focus-visible:outline-2 focus-visible:outline-lagoon-600"
@@ -169,11 +220,16 @@ export function DropCanvas(props: Props) {
         data-baseline={
           baseline ? [baseline.x1, baseline.y1, baseline.x2, baseline.y2].join(',') : undefined
         }
+        // Where the two handles are drawn, in image pixels (tests grab them here).
+        data-handles={handles ? [...handles.start, ...handles.end].join(',') : undefined}
+        data-selected-handle={selectedHandle ?? undefined}
         data-scale={scale}
         // The shown result: its baseline, full-precision angles and whether it is a draft (tests).
         data-result-baseline={
           result
-            ? [result.baseline.x1, result.baseline.y1, result.baseline.x2, result.baseline.y2].join(',')
+            ? [result.baseline.x1, result.baseline.y1, result.baseline.x2, result.baseline.y2].join(
+                ',',
+              )
             : undefined
         }
         data-result-method={result?.method}
@@ -224,32 +280,31 @@ export function DropCanvas(props: Props) {
                       points={flat([result.contactLeft, tangents.left])}
                       stroke={COLORS.tangent}
                       strokeWidth={stroke * 1.6}
-                      dash={provisionalDash}
+                      dash={(provisionalDash ?? TANGENT_DASH).map((d) =>
+                        provisionalDash ? d : d / scale,
+                      )}
                     />
                     <Line
                       points={flat([result.contactRight, tangents.right])}
                       stroke={COLORS.tangent}
                       strokeWidth={stroke * 1.6}
-                      dash={provisionalDash}
+                      dash={(provisionalDash ?? TANGENT_DASH).map((d) =>
+                        provisionalDash ? d : d / scale,
+                      )}
                     />
-                    <Label x={tangents.left[0] - 64 / scale} y={tangents.left[1] - 24 / scale}>
-                      <Tag fill="#0e141c" opacity={0.8} cornerRadius={3 / scale} />
-                      <Text
-                        text={`${approx}${result.leftDeg.toFixed(1)}°`}
-                        fontSize={13 / scale}
-                        padding={3 / scale}
-                        fill="#ffffff"
-                      />
-                    </Label>
-                    <Label x={tangents.right[0] + 8 / scale} y={tangents.right[1] - 24 / scale}>
-                      <Tag fill="#0e141c" opacity={0.8} cornerRadius={3 / scale} />
-                      <Text
-                        text={`${approx}${result.rightDeg.toFixed(1)}°`}
-                        fontSize={13 / scale}
-                        padding={3 / scale}
-                        fill="#ffffff"
-                      />
-                    </Label>
+                    {/* Each angle beside its contact point, outside the drop. */}
+                    <AngleLabel
+                      at={result.contactLeft}
+                      side="left"
+                      scale={scale}
+                      text={`${approx}${result.leftDeg.toFixed(1)}°`}
+                    />
+                    <AngleLabel
+                      at={result.contactRight}
+                      side="right"
+                      scale={scale}
+                      text={`${approx}${result.rightDeg.toFixed(1)}°`}
+                    />
                   </>
                 ) : null}
               </Group>
@@ -268,7 +323,16 @@ export function DropCanvas(props: Props) {
                 />
               </Group>
             ))}
-            {baseline && !props.onPickPoint ? (
+            {baseline && props.readOnly ? (
+              <Line
+                points={flat(baselineAcross(baseline, width))}
+                stroke={COLORS.baseline}
+                strokeWidth={stroke * 1.5}
+                dash={BASELINE_DASH.map((d) => d / scale)}
+                listening={false}
+              />
+            ) : null}
+            {baseline && handles && !props.onPickPoint && !props.readOnly ? (
               <Group>
                 <Line
                   points={flat(baselineAcross(baseline, width))}
@@ -281,7 +345,7 @@ export function DropCanvas(props: Props) {
                   points={flat(baselineAcross(baseline, width))}
                   stroke={COLORS.baseline}
                   strokeWidth={stroke * 1.5}
-                  dash={[8 / scale, 5 / scale]}
+                  dash={BASELINE_DASH.map((d) => d / scale)}
                   hitStrokeWidth={12 / scale}
                   draggable
                   name="baseline-line"
@@ -294,8 +358,7 @@ export function DropCanvas(props: Props) {
                   onDragEnd={() => follow(baseline, true)}
                 />
                 {(['start', 'end'] as const).map((handle) => {
-                  const x = handle === 'start' ? baseline.x1 : baseline.x2;
-                  const y = handle === 'start' ? baseline.y1 : baseline.y2;
+                  const [x, y] = handles[handle];
                   const selected = selectedHandle === handle;
                   return (
                     <Group key={handle}>
@@ -304,8 +367,8 @@ export function DropCanvas(props: Props) {
                         y={y}
                         radius={handleRadius}
                         fill={selected ? COLORS.handleSelected : COLORS.handle}
-                        stroke="#ffffff"
-                        strokeWidth={stroke}
+                        stroke="#000000"
+                        strokeWidth={stroke * 1.2}
                         draggable
                         name={`baseline-${handle}`}
                         onMouseDown={() => onSelectHandle(handle)}
@@ -318,12 +381,27 @@ export function DropCanvas(props: Props) {
               </Group>
             ) : null}
           </Layer>
+          {magnified && handles && image ? (
+            <Magnifier
+              image={image}
+              at={handles[magnified]}
+              scale={scale}
+              offset={offset}
+              view={{ width: viewWidth, height: viewHeight }}
+              baseline={baseline}
+              imageWidth={width}
+              imageHeight={height}
+            />
+          ) : null}
         </Stage>
       </div>
       <div className="mt-2 flex flex-wrap items-center gap-3 text-xs text-ink-600">
         <span>
           Scroll to zoom ({zoom.toFixed(1)}×){zoom > 1 ? ', drag to pan' : ''}.
         </span>
+        <button type="button" className="underline" disabled={!result} onClick={zoomToContacts}>
+          Zoom to the contact points
+        </button>
         <button
           type="button"
           className="underline"
@@ -334,11 +412,48 @@ export function DropCanvas(props: Props) {
         >
           Fit to view
         </button>
-        <span>
-          Drag the round handles or the dashed line; arrow keys nudge the selected handle by 1 px
-          (Alt: 0.1 px).
-        </span>
+        {props.readOnly ? null : (
+          <>
+            <span role="group" aria-label="Baseline handle to move" className="flex gap-2">
+              {(
+                [
+                  ['start', 'Left handle (1)'],
+                  ['end', 'Right handle (2)'],
+                  ['line', 'Whole line (3)'],
+                ] as const
+              ).map(([handle, label]) => (
+                <button
+                  key={handle}
+                  type="button"
+                  className={`rounded border px-1.5 ${selectedHandle === handle ? 'border-ink-900 bg-ink-900 text-white' : 'border-ink-300'}`}
+                  aria-pressed={selectedHandle === handle}
+                  onClick={() => onSelectHandle(handle)}
+                >
+                  {label}
+                </button>
+              ))}
+            </span>
+            <span>
+              Drag a round handle (a magnifier shows it up close) or the dashed line. With the photo
+              focused, 1, 2 or 3 picks a handle and the arrow keys move it by 1 px (Alt: 0.1 px).
+            </span>
+          </>
+        )}
       </div>
+      <p className="mt-1 flex flex-wrap gap-3 text-xs text-ink-600" aria-label="Legend">
+        <span>
+          <span style={{ color: COLORS.edge }}>■</span> edge points (dots)
+        </span>
+        <span>
+          <span style={{ color: COLORS.profile }}>━</span> fitted profile (solid)
+        </span>
+        <span>
+          <span style={{ color: COLORS.tangent }}>╍</span> tangents (long dashes)
+        </span>
+        <span>
+          <span style={{ color: COLORS.baseline }}>┅</span> baseline (short dashes)
+        </span>
+      </p>
     </div>
   );
 }
@@ -359,5 +474,36 @@ function EdgePoints({ result, size }: { result: AnalysisResult; size: number }) 
         context.fillShape(shape);
       }}
     />
+  );
+}
+
+/** An angle's label beside its contact point, on the outside of the drop. */
+function AngleLabel({
+  at,
+  side,
+  scale,
+  text,
+}: {
+  at: Point;
+  side: 'left' | 'right';
+  scale: number;
+  text: string;
+}) {
+  const width = 54 / scale;
+  return (
+    <Label
+      x={side === 'left' ? at[0] - width - 6 / scale : at[0] + 6 / scale}
+      y={at[1] - 26 / scale}
+    >
+      <Tag fill="#000000" opacity={0.75} cornerRadius={3 / scale} />
+      <Text
+        text={text}
+        fontSize={13 / scale}
+        padding={3 / scale}
+        fill="#ffffff"
+        width={width}
+        align="center"
+      />
+    </Label>
   );
 }

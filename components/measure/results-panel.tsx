@@ -13,7 +13,8 @@ export function ResultsPanel({
   error,
 }: {
   result: AnalysisResult | null;
-  status: string;
+  /** null: no photo is shown. */
+  status: string | null;
   error: string | null;
 }) {
   if (error) {
@@ -31,7 +32,11 @@ export function ResultsPanel({
       <section className="card" aria-label="Result">
         <h2 className="mb-2">Result</h2>
         <p className="text-sm text-ink-600">
-          {status === 'analysing' || status === 'loading' ? 'Analysing…' : 'No result yet.'}
+          {status === null
+            ? 'No photo shown: upload photos or choose one in the table.'
+            : status === 'analysing' || status === 'loading'
+              ? 'Analysing…'
+              : 'No result yet.'}
         </p>
       </section>
     );

@@ -1,90 +1,88 @@
 'use client';
 
-import { useMemo } from 'react';
-import { SelectField } from '@/components/ui/fields';
-import type { SampleChoice } from './types';
+import { useState } from 'react';
+import { SelectField, TextAreaField } from '@/components/ui/fields';
+import { SampleSelect } from './sample-select';
+import type { WorkspacePhoto } from './store';
+import type { LiquidChoice, SampleChoice } from './types';
 import type { SaveMessage, StaleSave } from './use-save-drops';
 
-/** Which sample the drops go to, and the save buttons with their progress and outcome. */
+/**
+ * The shown photo's sample and probe liquid and its save button (with the reason when its drop
+ * is saved already), and the outcome of the last save.
+ */
 export function SavePanel({
+  photo,
   samples,
-  sampleId,
-  onSampleChange,
-  canSaveOne,
-  canSaveAll,
+  liquids,
+  onAssign,
   saving,
   progress,
   message,
   onSaveOne,
-  onSaveAll,
   stale = [],
   onReload,
 }: {
+  photo: WorkspacePhoto | null;
   samples: SampleChoice[];
-  sampleId: string;
-  onSampleChange: (id: string) => void;
-  canSaveOne: boolean;
-  canSaveAll: boolean;
+  liquids: LiquidChoice[];
+  onAssign(to: { sampleId?: string; probeLiquidId?: string }): void;
   saving: boolean;
   progress: { done: number; total: number } | null;
   message: SaveMessage | null;
-  onSaveOne: () => void;
-  onSaveAll: () => void;
+  onSaveOne(reason: string): void;
   /** Saves refused because the drop was saved since it was loaded. */
   stale?: StaleSave[];
   onReload?: (entry: StaleSave) => void;
 }) {
-  const byCoating = useMemo(() => {
-    const groups = new Map<string, SampleChoice[]>();
-    for (const s of samples) {
-      const key = `${s.coatingCode} · ${s.coatingName}`;
-      groups.set(key, [...(groups.get(key) ?? []), s]);
-    }
-    return [...groups];
-  }, [samples]);
+  const [reason, setReason] = useState('');
+  const resave = photo?.savedRevision !== null && photo?.savedRevision !== undefined;
   return (
-    <section className="card space-y-3">
+    <section className="card space-y-3" aria-label="Save the shown photo">
       <h2>Save to a sample</h2>
-      <SelectField
+      <SampleSelect
         id="sample"
         label="Sample"
         placeholder="Choose a sample…"
-        value={sampleId}
-        onChange={(e) => onSampleChange(e.target.value)}
+        samples={samples}
+        disabled={!photo}
+        value={photo?.sampleId ?? ''}
+        onChange={(e) => onAssign({ sampleId: e.target.value })}
         hint={
           samples.length === 0
             ? 'No samples yet: add a coating, a batch and a sample first.'
             : undefined
         }
+      />
+      <SelectField
+        id="photo-liquid"
+        label="Probe liquid"
+        placeholder="Choose the liquid…"
+        disabled={!photo}
+        options={liquids.map((l) => ({ value: l.id, label: l.name }))}
+        value={photo?.probeLiquidId ?? ''}
+        onChange={(e) => onAssign({ probeLiquidId: e.target.value })}
+      />
+      {resave ? (
+        <TextAreaField
+          id="resave-reason"
+          label="Reason for the re-analysis"
+          hint={`Revision ${photo.savedRevision} is saved; a new one keeps this reason.`}
+          value={reason}
+          onChange={(e) => setReason(e.target.value)}
+        />
+      ) : null}
+      <button
+        type="button"
+        className="btn-primary"
+        disabled={photo?.status !== 'ready' || saving}
+        onClick={() => {
+          onSaveOne(reason);
+          setReason('');
+        }}
       >
-        {byCoating.map(([group, choices]) => (
-          <optgroup key={group} label={group}>
-            {choices.map((s) => (
-              <option key={s.id} value={s.id}>
-                {s.lotCode} / {s.label}
-              </option>
-            ))}
-          </optgroup>
-        ))}
-      </SelectField>
-      <div className="flex flex-wrap gap-2">
-        <button
-          type="button"
-          className="btn-primary"
-          disabled={!canSaveOne || saving}
-          onClick={onSaveOne}
-        >
-          {saving && !progress ? 'Saving…' : 'Save this drop'}
-        </button>
-        <button
-          type="button"
-          className="btn-quiet"
-          disabled={saving || !canSaveAll}
-          onClick={onSaveAll}
-        >
-          Save all analysed
-        </button>
-      </div>
+        {saving && !progress ? 'Saving…' : 'Save this drop'}
+      </button>
       {progress ? (
         <progress
           className="h-2 w-full accent-lagoon-600"

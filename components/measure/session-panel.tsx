@@ -1,15 +1,18 @@
 'use client';
 
 import { useState } from 'react';
-import { NumberField, SelectField, TextField } from '@/components/ui/fields';
+import { NumberField, TextField } from '@/components/ui/fields';
 import type { Point } from '@/lib/analysis/types';
-import type { LiquidChoice, SessionDetails } from './types';
+import type { SessionDetails } from './types';
 
 export type { SessionDetails };
 
-/** The sitting at the instrument: liquid, conditions, operator and camera scale. */
+/**
+ * The sitting at the instrument: conditions, operator and camera scale (each photo has its own
+ * probe liquid). A drop reopened from its page brings its session's values; they are kept on a
+ * re-save unless changed here.
+ */
 export function SessionPanel(props: {
-  liquids: LiquidChoice[];
   value: SessionDetails;
   onChange(next: SessionDetails): void;
   onCalibrate(): void;
@@ -33,12 +36,11 @@ export function SessionPanel(props: {
   return (
     <section className="card space-y-3" aria-label="Session">
       <h2>Session</h2>
-      <SelectField
-        label="Probe liquid"
-        options={props.liquids.map((l) => ({ value: l.id, label: l.name }))}
-        {...bind('probeLiquidId')}
-        id="session-liquid"
-      />
+      {value.sessionId ? (
+        <p className="text-xs text-ink-600" data-testid="session-kept">
+          Saving keeps the session these drops were measured in; change a value to start a new one.
+        </p>
+      ) : null}
       <TextField
         label="Liquid lot"
         hint="From the bottle; printed on certificates"

@@ -1,3 +1,5 @@
+import type { WorkspaceSessionSeed } from '@/lib/contracts/photos';
+
 /** The choices the measure page hands to the workspace. */
 export type SampleChoice = {
   id: string;
@@ -10,6 +12,7 @@ export type LiquidChoice = { id: string; name: string; hazardNote: string | null
 
 /** The sitting at the instrument, as typed. */
 export type SessionDetails = {
+  /** The probe liquid new photos get. */
   probeLiquidId: string;
   operatorName: string;
   temperatureC: string;
@@ -18,14 +21,37 @@ export type SessionDetails = {
   scalePxPerMm: string;
   /** The lot of the probe liquid's bottle, printed on certificates; empty when not recorded. */
   liquidLot: string;
-  /** Created on the first save with these details; cleared when they change. */
+  /** Created on the first save with these details (or a reopened drop's); cleared when they change. */
   sessionId: string | null;
 };
 
-/** Water when the library has it, room conditions, a 3 µL drop, no scale yet. */
-export function initialSession(liquids: LiquidChoice[], operatorName: string): SessionDetails {
+const text = (value: number | null | undefined, fallback = '') =>
+  value === null || value === undefined ? fallback : String(value);
+
+/**
+ * A reopened drop's session as it was measured; otherwise water when the library has it, room
+ * conditions, a 3 µL drop, no scale yet.
+ */
+export function initialSession(
+  liquids: LiquidChoice[],
+  operatorName: string,
+  seed: WorkspaceSessionSeed | null = null,
+): SessionDetails {
+  const water = liquids.find((l) => /water/i.test(l.name))?.id ?? liquids[0]?.id ?? '';
+  if (seed) {
+    return {
+      probeLiquidId: seed.probeLiquidId ?? water,
+      operatorName: seed.operatorName,
+      temperatureC: text(seed.temperatureC),
+      humidityPct: text(seed.humidityPct),
+      dropVolumeUl: text(seed.dropVolumeUl),
+      scalePxPerMm: text(seed.scalePxPerMm),
+      liquidLot: seed.liquidLot,
+      sessionId: seed.id,
+    };
+  }
   return {
-    probeLiquidId: liquids.find((l) => /water/i.test(l.name))?.id ?? liquids[0]?.id ?? '',
+    probeLiquidId: water,
     operatorName,
     temperatureC: '23',
     humidityPct: '50',

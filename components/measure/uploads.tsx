@@ -135,28 +135,45 @@ function UploadRow({
         if (!outcome) return;
         if (outcome.status === 'stored') {
           setState({ kind: 'done' });
-          onUploaded({ id: outcome.photoId, name: row.file.name, width: outcome.width, height: outcome.height });
+          onUploaded({
+            id: outcome.photoId,
+            name: row.file.name,
+            width: outcome.width,
+            height: outcome.height,
+          });
         } else {
           setState({ kind: 'refused', message: outcome.message });
         }
       })
       .catch((error: unknown) =>
-        setState({ kind: 'refused', message: error instanceof Error ? error.message : 'The upload failed. Try again.' }),
+        setState({
+          kind: 'refused',
+          message: error instanceof Error ? error.message : 'The upload failed. Try again.',
+        }),
       );
   }, [row, startUpload, onUploaded]);
 
   if (state.kind === 'done') return null;
   return (
-    <li className="flex items-center gap-3 rounded-md border border-ink-200 bg-white px-3 py-2 text-sm">
-      <span className="min-w-0 flex-1 truncate font-medium text-ink-900">{row.file.name}</span>
+    <li className="flex flex-wrap items-center gap-x-3 gap-y-1 rounded-md border border-ink-200 bg-white px-3 py-2 text-sm">
+      <span
+        className={`min-w-0 font-medium text-ink-900 ${state.kind === 'refused' ? 'basis-full break-all' : 'flex-1 truncate'}`}
+      >
+        {row.file.name}
+      </span>
       {state.kind === 'uploading' ? (
         <>
-          <progress max={100} value={progress} className="h-2 w-32 accent-lagoon-600" aria-label={`Uploading ${row.file.name}`} />
+          <progress
+            max={100}
+            value={progress}
+            className="h-2 w-32 accent-lagoon-600"
+            aria-label={`Uploading ${row.file.name}`}
+          />
           <span className="w-10 text-right font-mono text-xs text-ink-600">{progress}%</span>
         </>
       ) : (
         <>
-          <span role="status" className="text-coral-700">
+          <span role="status" className="min-w-0 flex-1 text-coral-700">
             {state.message}
           </span>
           <button type="button" className="text-xs text-ink-500 underline" onClick={onDismiss}>

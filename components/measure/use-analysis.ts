@@ -68,7 +68,9 @@ class AnalysisClient {
   private nextId = 1;
 
   constructor() {
-    this.worker = new Worker(new URL('../../workers/analysis.worker.ts', import.meta.url), { type: 'module' });
+    this.worker = new Worker(new URL('../../workers/analysis.worker.ts', import.meta.url), {
+      type: 'module',
+    });
     this.worker.onmessage = (event: MessageEvent<AnalyseResponse>) => this.receive(event.data);
   }
 

@@ -2,25 +2,24 @@
 
 import { useCallback, useEffect, useRef } from 'react';
 import type { AnalyseOptions } from '@/lib/analysis/types';
-import { useWorkspace, type WorkspacePhoto } from './store';
-import type { UploadedPhoto } from './uploads';
+import { useWorkspace, type IncomingPhoto, type WorkspacePhoto } from './store';
 import { Superseded, useAnalysisWorker } from './use-analysis';
 
 /**
- * Analyses every photo of the strip in the browser on arrival, and again whenever its method,
- * its baseline or the camera scale changes.
+ * Analyses every photo of the table in the browser on arrival, in the table's order, and again
+ * whenever its method, its baseline or the camera scale changes.
  */
 export function useAutoAnalysis(scalePxPerMm: number | null) {
-  const { photos, method, setStatus, setResult } = useWorkspace();
+  const { photos, setStatus, setResult } = useWorkspace();
   const worker = useAnalysisWorker();
 
   const optionsFor = useCallback(
     (photo: WorkspacePhoto): AnalyseOptions => ({
-      method,
+      method: photo.method,
       ...(photo.baseline ? { baseline: photo.baseline } : {}),
       ...(scalePxPerMm ? { scalePxPerMm } : {}),
     }),
-    [method, scalePxPerMm],
+    [scalePxPerMm],
   );
 
   const run = useCallback(
@@ -54,10 +53,10 @@ export function useAutoAnalysis(scalePxPerMm: number | null) {
 }
 
 /**
- * Puts the photos the page opened with into the strip once, and keeps the strip's photo ids in
+ * Puts the photos the page opened with into the table once, and keeps the table's photo ids in
  * the address so a reload (or a shared link) reopens the same photos.
  */
-export function useStripInAddress(initialPhotos: UploadedPhoto[]) {
+export function useStripInAddress(initialPhotos: IncomingPhoto[]) {
   const { photos, addPhotos } = useWorkspace();
   const seeded = useRef(false);
   useEffect(() => {
@@ -68,9 +67,10 @@ export function useStripInAddress(initialPhotos: UploadedPhoto[]) {
 
   const photoIds = photos.map((p) => p.id).join(',');
   useEffect(() => {
-    if (!photoIds) return;
+    if (!seeded.current) return;
     const url = new URL(window.location.href);
-    url.searchParams.set('photos', photoIds);
+    if (photoIds) url.searchParams.set('photos', photoIds);
+    else url.searchParams.delete('photos');
     window.history.replaceState(window.history.state, '', url);
   }, [photoIds]);
 }

@@ -18,6 +18,7 @@ import { fmtDateTime, fmtNumber, fmtSince, fromLocalInput, toLocalInput } from '
 import { RecordEditor, RowActions } from './record-editor';
 import { RecordForm } from './record-form';
 import { useRecordForm } from './use-record-form';
+import { dropHref } from '@/lib/measure/links';
 import { analysisMethodName } from '@/lib/contracts/drops';
 
 /** The samples of a batch with their drop counts and mean water angle; writers edit in place. */
@@ -179,7 +180,11 @@ const dropColumns: ColumnDef<BatchDrop, unknown>[] = [
   {
     id: 'measuredAt',
     header: 'Measured at',
-    cell: ({ row }) => fmtDateTime(row.original.measuredAt),
+    cell: ({ row }) => (
+      <Link href={dropHref(row.original.dropId)} className="text-lagoon-700 hover:underline">
+        {fmtDateTime(row.original.measuredAt)}
+      </Link>
+    ),
   },
   { id: 'sample', header: 'Sample', accessorKey: 'sampleLabel' },
   { id: 'liquid', header: 'Probe liquid', accessorKey: 'probeLiquidName' },

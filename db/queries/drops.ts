@@ -1,7 +1,17 @@
 import 'server-only';
-import { and, asc, desc, eq, isNull, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { getDb } from '../client';
-import { analyses, batches, coatings, drops, probeLiquids, samples } from '../schema';
+import {
+  analyses,
+  batches,
+  coatings,
+  drops,
+  measurementSessions,
+  photos,
+  probeLiquids,
+  samples,
+  users,
+} from '../schema';
 import type { Baseline, FitMethod } from '@/lib/analysis/types';
 import type {
   AnalysisRevision,
@@ -12,6 +22,7 @@ import type {
 import { SOFTWARE_VERSION } from '@/lib/measure/version';
 import { probeLiquidVisibleTo } from './records';
 import type { Executor } from './transaction';
+import { visibleStatus, type ResultVisibility } from './visibility';
 
 /** Serialises saves of one photo, so two tabs cannot both create revision n. */
 export async function lockPhotoDrops(tx: Executor, photoId: string): Promise<void> {
@@ -21,7 +32,12 @@ export async function lockPhotoDrops(tx: Executor, photoId: string): Promise<voi
 /** The live drop saved from a photo, if any. */
 export async function findLiveDropOfPhoto(tx: Executor, photoId: string) {
   const [row] = await tx
-    .select({ id: drops.id, sampleId: drops.sampleId, probeLiquidId: drops.probeLiquidId })
+    .select({
+      id: drops.id,
+      sampleId: drops.sampleId,
+      probeLiquidId: drops.probeLiquidId,
+      sessionId: drops.sessionId,
+    })
     .from(drops)
     .where(and(eq(drops.photoId, photoId), isNull(drops.archivedAt)));
   return row ?? null;
@@ -65,6 +81,8 @@ export function engineAnalysisRow(input: {
   baseline: Baseline | null;
   options: StoredAnalysisOptions;
   result: KeptAnalysisResult;
+  reason?: string | null;
+  sessionId?: string | null;
   createdByUserId: string;
   createdAt?: Date;
 }): NewAnalysis {
@@ -249,4 +267,135 @@ export async function listProbeLiquidChoices(organizationId: string) {
     .from(probeLiquids)
     .where(and(probeLiquidVisibleTo(organizationId), isNull(probeLiquids.archivedAt)))
     .orderBy(asc(probeLiquids.name));
+}
+
+/**
+ * For each of these photos saved to a live drop: the drop's sample, liquid and session and its
+ * latest revision's number, method and baseline (what the workspace shows as saved).
+ */
+export async function listSavedStateOfPhotos(organizationId: string, photoIds: string[]) {
+  if (photoIds.length === 0) return [];
+  return getDb()
+    .selectDistinctOn([drops.photoId], {
+      photoId: sql<string>`${drops.photoId}`,
+      dropId: drops.id,
+      sampleId: drops.sampleId,
+      probeLiquidId: drops.probeLiquidId,
+      sessionId: drops.sessionId,
+      revision: analyses.revision,
+      method: analyses.method,
+      baseline: analyses.baseline,
+    })
+    .from(drops)
+    .innerJoin(analyses, eq(analyses.dropId, drops.id))
+    .where(
+      and(
+        eq(drops.organizationId, organizationId),
+        inArray(drops.photoId, photoIds),
+        isNull(drops.archivedAt),
+      ),
+    )
+    .orderBy(drops.photoId, desc(analyses.revision));
+}
+
+/** A measurement session's conditions, or null. */
+export async function getSessionConditions(organizationId: string, sessionId: string) {
+  const [row] = await getDb()
+    .select({
+      id: measurementSessions.id,
+      operatorName: measurementSessions.operatorName,
+      probeLiquidId: measurementSessions.probeLiquidId,
+      temperatureC: measurementSessions.temperatureC,
+      humidityPct: measurementSessions.humidityPct,
+      dropVolumeUl: measurementSessions.dropVolumeUl,
+      scalePxPerMm: measurementSessions.scalePxPerMm,
+      liquidLot: measurementSessions.liquidLot,
+    })
+    .from(measurementSessions)
+    .where(
+      and(
+        eq(measurementSessions.organizationId, organizationId),
+        eq(measurementSessions.id, sessionId),
+      ),
+    );
+  return row ?? null;
+}
+
+/** A drop of the organization with where it sits and its photo, or null. */
+export async function getDropDetail(organizationId: string, dropId: string) {
+  const [row] = await getDb()
+    .select({
+      id: drops.id,
+      source: drops.source,
+      measuredAt: drops.measuredAt,
+      archivedAt: drops.archivedAt,
+      sampleLabel: samples.label,
+      batchId: batches.id,
+      lotCode: batches.lotCode,
+      coatingCode: coatings.code,
+      coatingName: coatings.name,
+      liquidName: probeLiquids.name,
+      photoId: photos.id,
+      photoName: photos.originalName,
+      photoWidth: photos.width,
+      photoHeight: photos.height,
+    })
+    .from(drops)
+    .innerJoin(samples, eq(samples.id, drops.sampleId))
+    .innerJoin(batches, eq(batches.id, samples.batchId))
+    .innerJoin(coatings, eq(coatings.id, batches.coatingId))
+    .innerJoin(probeLiquids, eq(probeLiquids.id, drops.probeLiquidId))
+    .leftJoin(photos, eq(photos.id, drops.photoId))
+    .where(and(eq(drops.organizationId, organizationId), eq(drops.id, dropId)));
+  return row ?? null;
+}
+
+/**
+ * A drop's revisions, newest first, each with who made it, why, and the conditions of its
+ * session (the revision's own, else the drop's for revisions saved before sessions were kept
+ * per revision). With `approved` visibility: only approved revisions, and none unless the
+ * drop's latest revision is approved (db/queries/visibility.ts).
+ */
+export async function listDropRevisions(dropId: string, visibility: ResultVisibility) {
+  const session = sql`coalesce(${analyses.sessionId}, ${drops.sessionId})`;
+  return getDb()
+    .select({
+      id: analyses.id,
+      revision: analyses.revision,
+      createdAt: analyses.createdAt,
+      createdBy: users.name,
+      method: analyses.method,
+      baseline: analyses.baseline,
+      options: analyses.options,
+      reason: analyses.reason,
+      reviewStatus: analyses.reviewStatus,
+      leftDeg: analyses.leftDeg,
+      rightDeg: analyses.rightDeg,
+      meanDeg: analyses.meanDeg,
+      leftUncertaintyDeg: analyses.leftUncertaintyDeg,
+      rightUncertaintyDeg: analyses.rightUncertaintyDeg,
+      softwareVersion: analyses.softwareVersion,
+      warnings: sql<{ code: string; message: string }[] | null>`${analyses.result} -> 'warnings'`,
+      operatorName: measurementSessions.operatorName,
+      temperatureC: measurementSessions.temperatureC,
+      humidityPct: measurementSessions.humidityPct,
+      dropVolumeUl: measurementSessions.dropVolumeUl,
+      scalePxPerMm: measurementSessions.scalePxPerMm,
+    })
+    .from(analyses)
+    .innerJoin(drops, eq(drops.id, analyses.dropId))
+    .leftJoin(users, eq(users.id, analyses.createdByUserId))
+    .leftJoin(measurementSessions, sql`${measurementSessions.id} = ${session}`)
+    .where(
+      and(
+        eq(analyses.dropId, dropId),
+        visibleStatus(visibility, analyses.reviewStatus),
+        visibility === 'all'
+          ? undefined
+          : sql`(select latest.review_status from analyses latest
+                 where latest.drop_id = ${analyses.dropId}
+                 order by latest.revision desc limit 1) = 'approved'`,
+      ),
+    )
+    .orderBy(desc(analyses.revision));
 }

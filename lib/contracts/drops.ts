@@ -95,6 +95,8 @@ export const saveDropAnalysisSchema = z.object({
     .min(0),
   /** Stored with the result (`result.settings`, complete) so the analysis can be reproduced. */
   settings: analysisSettingsSchema.optional(),
+  /** Why a saved drop is analysed again; required from the second revision on. */
+  reason: z.string().trim().max(500, 'Say why in at most 500 characters.').optional(),
 });
 export type SaveDropAnalysisInput = z.infer<typeof saveDropAnalysisSchema>;
 

@@ -20,3 +20,10 @@ export const TOO_MANY_IMPORT_ROWS = `Import at most ${MAX_IMPORT_ROWS.toLocaleSt
 /** Characters of CSV text one import takes (about 1 MB). */
 export const MAX_IMPORT_CHARS = 1_000_000;
 export const IMPORT_TOO_LONG = `Import at most ${MAX_IMPORT_CHARS.toLocaleString('en')} characters at once; split the file.`;
+
+/**
+ * Calculations one user may have running or waiting in the server's compute pool at once
+ * (server/compute/pool.ts); one more is 429 `busy` with Retry-After. Clients that send many
+ * (the workspace saving a selection) keep below it.
+ */
+export const COMPUTE_JOBS_PER_USER = 4;

@@ -38,7 +38,12 @@ export function tangentEnd(
 export type BaselineHandle = 'start' | 'end' | 'line';
 
 /** Moves one end (or the whole line) of a baseline by (dx, dy) image pixels. */
-export function nudgeBaseline(baseline: Baseline, handle: BaselineHandle, dx: number, dy: number): Baseline {
+export function nudgeBaseline(
+  baseline: Baseline,
+  handle: BaselineHandle,
+  dx: number,
+  dy: number,
+): Baseline {
   const round = (v: number) => Math.round(v * 1000) / 1000;
   const moveStart = handle === 'start' || handle === 'line';
   const moveEnd = handle === 'end' || handle === 'line';
@@ -70,10 +75,82 @@ export function nudgeFromKey(key: string, fine: boolean): [number, number] | nul
 /** The baseline extended across the whole image width, for drawing. */
 export function baselineAcross(baseline: Baseline, width: number): [Point, Point] {
   const { x1, y1, x2, y2 } = baseline;
-  if (Math.abs(x2 - x1) < 1e-9) return [[x1, 0], [x1, width]];
+  if (Math.abs(x2 - x1) < 1e-9)
+    return [
+      [x1, 0],
+      [x1, width],
+    ];
   const slope = (y2 - y1) / (x2 - x1);
   return [
     [0, y1 - slope * x1],
     [width, y1 + slope * (width - x1)],
   ];
+}
+
+/** The point of the baseline's line nearest to `p`. */
+export function projectOnBaseline(baseline: Baseline, p: Point): Point {
+  const { u } = baselineFrame(baseline);
+  const t = (p[0] - baseline.x1) * u[0] + (p[1] - baseline.y1) * u[1];
+  return [baseline.x1 + t * u[0], baseline.y1 + t * u[1]];
+}
+
+const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v));
+
+/**
+ * Where the two baseline handles sit, in image pixels: a baseline set by hand at its own ends,
+ * the automatic one at the contact points (projected on the line); either way kept `margin`
+ * pixels inside the photo so a handle is never cut by the frame.
+ */
+export function baselineHandles(
+  baseline: Baseline,
+  contacts: [Point, Point] | null,
+  size: { width: number; height: number },
+  margin: number,
+): { start: Point; end: Point } {
+  const [start, end]: [Point, Point] = contacts
+    ? [projectOnBaseline(baseline, contacts[0]), projectOnBaseline(baseline, contacts[1])]
+    : [
+        [baseline.x1, baseline.y1],
+        [baseline.x2, baseline.y2],
+      ];
+  const inside = ([x, y]: Point): Point => [
+    clamp(x, margin, size.width - margin),
+    clamp(y, margin, size.height - margin),
+  ];
+  return { start: inside(start), end: inside(end) };
+}
+
+/** The baseline through the two handles (what a drag of one of them gives). */
+export const baselineThrough = (start: Point, end: Point): Baseline => ({
+  x1: start[0],
+  y1: start[1],
+  x2: end[0],
+  y2: end[1],
+});
+
+/**
+ * Zoom and offset (screen pixels) that frame the contact region: both contact points and the
+ * apex height, with a margin, inside a view of `view` screen pixels at `fitScale` px per image px.
+ */
+export function contactZoom(
+  contacts: [Point, Point],
+  heightPx: number,
+  fitScale: number,
+  view: { width: number; height: number },
+): { zoom: number; offset: { x: number; y: number } } {
+  const [[x1, y1], [x2, y2]] = contacts;
+  const margin = Math.max(20, Math.abs(x2 - x1) * 0.12);
+  const left = Math.min(x1, x2) - margin;
+  const right = Math.max(x1, x2) + margin;
+  const bottom = Math.max(y1, y2) + margin;
+  const top = Math.min(y1, y2) - Math.max(heightPx, margin) - margin;
+  const zoom = clamp(
+    Math.min(view.width / ((right - left) * fitScale), view.height / ((bottom - top) * fitScale)),
+    1,
+    16,
+  );
+  const scale = fitScale * zoom;
+  const cx = (left + right) / 2;
+  const cy = (top + bottom) / 2;
+  return { zoom, offset: { x: view.width / 2 - cx * scale, y: view.height / 2 - cy * scale } };
 }

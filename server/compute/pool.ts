@@ -3,6 +3,7 @@ import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { Piscina } from 'piscina';
 import { AppError } from '@/lib/app-error';
+import { COMPUTE_JOBS_PER_USER } from '@/lib/contracts/limits';
 import {
   computeError,
   type ComputeReply,
@@ -19,7 +20,7 @@ import {
  */
 
 /** Computations one user may have running or waiting at once. */
-export const PER_USER_LIMIT = 4;
+export const PER_USER_LIMIT = COMPUTE_JOBS_PER_USER;
 /** Tasks that may wait for a thread, all users together. */
 const MAX_QUEUED = 64;
 /** What Retry-After says: about the time a queued fit takes on a busy machine. */

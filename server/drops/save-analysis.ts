@@ -126,18 +126,37 @@ export async function saveDropAnalysis(
         ];
     if (
       existing &&
-      (existing.sampleId !== input.sampleId || existing.probeLiquidId !== input.probeLiquidId)
+      (existing.sampleId !== input.sampleId ||
+        existing.probeLiquidId !== input.probeLiquidId ||
+        existing.sessionId !== sessionId)
     ) {
       await moveDrop(tx, dropId, { ...placement, sessionId });
       await audit('drop.update', 'drop', dropId, {
-        before: { sampleId: existing.sampleId, probeLiquidId: existing.probeLiquidId },
-        after: placement,
+        before: {
+          sampleId: existing.sampleId,
+          probeLiquidId: existing.probeLiquidId,
+          sessionId: existing.sessionId,
+        },
+        after: { ...placement, sessionId },
       });
     }
     const revision = existing ? await nextRevision(tx, dropId) : 1;
     // Under the photo's lock: a save based on an older revision (another tab, another user, a
     // simultaneous save) would silently pass over the one saved in between.
     if (revision - 1 !== input.expectedRevision) throw staleRevision(revision - 1);
+    const reason = input.reason?.trim() || null;
+    if (existing && !reason) {
+      throw new AppError(
+        'invalid_input',
+        'This drop is saved already: say why it is analysed again.',
+        {
+          fields: {
+            reason:
+              'Say why this drop is analysed again (e.g. baseline moved to the contact points).',
+          },
+        },
+      );
+    }
     const analysisId = newId();
     await insertDropsAndAnalyses(tx, newDrop, [
       engineAnalysisRow({
@@ -153,6 +172,8 @@ export async function saveDropAnalysis(
           settings: result.settings,
         },
         result,
+        reason,
+        sessionId,
         createdByUserId: actor.userId,
       }),
     ]);
@@ -165,6 +186,7 @@ export async function saveDropAnalysis(
         baseline: input.baseline,
         leftDeg: result.leftDeg,
         rightDeg: result.rightDeg,
+        ...(reason ? { reason } : {}),
       },
     });
     return { dropId, analysisId, revision };

@@ -50,6 +50,9 @@ export async function loadPhotoThumbnail(organizationId: string, photoId: string
  * The same gray pixels for the browser's analysis worker (lib/analysis/gray-pixels.ts layout),
  * gzip-compressed: the worker analyses exactly what the server analyses when a result is saved.
  */
-export async function loadPhotoGrayPixels(organizationId: string, photoId: string): Promise<Uint8Array> {
+export async function loadPhotoGrayPixels(
+  organizationId: string,
+  photoId: string,
+): Promise<Uint8Array> {
   return gzipAsync(encodeGrayPixels(await loadPhotoGray(organizationId, photoId)), { level: 3 });
 }

@@ -1,14 +1,41 @@
 import 'server-only';
 import { recordAudit } from '@/db/queries/audit';
 import { newId } from '@/db/queries/ids';
-import { insertPhoto, type NewPhoto } from '@/db/queries/photos';
+import {
+  findUnsavedTwin,
+  insertPhoto,
+  lockUploadsOf,
+  restorePhoto,
+  type NewPhoto,
+} from '@/db/queries/photos';
 import type { InspectedImage } from '@/lib/uploads/inspect-image';
 import { inTransaction } from '@/db/queries/transaction';
 
-/** Keeps an accepted upload as a `photos` row with its audit row, in one transaction. */
-export async function recordUploadedPhoto(input: NewPhoto): Promise<{ photoId: string }> {
-  const photoId = newId();
-  await inTransaction(async (tx) => {
+/**
+ * Keeps an accepted upload as a `photos` row with its audit row, in one transaction. With
+ * `reuseUnsavedTwin` (workspace uploads), the same file uploaded again by the same user while it
+ * is not saved to a sample is the photo already kept (put back in the workspace if it was
+ * removed), never a second row.
+ */
+export async function recordUploadedPhoto(
+  input: NewPhoto,
+  { reuseUnsavedTwin = false }: { reuseUnsavedTwin?: boolean } = {},
+): Promise<{ photoId: string }> {
+  return inTransaction(async (tx) => {
+    if (reuseUnsavedTwin) {
+      await lockUploadsOf(tx, input.uploadedByUserId, input.sha256);
+      const twin = await findUnsavedTwin(tx, {
+        organizationId: input.organizationId,
+        userId: input.uploadedByUserId,
+        sha256: input.sha256,
+        purpose: input.purpose ?? 'sessile-drop',
+      });
+      if (twin) {
+        if (twin.removedAt) await restorePhoto(tx, twin.id);
+        return { photoId: twin.id };
+      }
+    }
+    const photoId = newId();
     await insertPhoto(tx, { id: photoId, ...input });
     await recordAudit(tx, {
       actorUserId: input.uploadedByUserId,
@@ -25,8 +52,8 @@ export async function recordUploadedPhoto(input: NewPhoto): Promise<{ photoId: s
         sha256: input.sha256,
       },
     });
+    return { photoId };
   });
-  return { photoId };
 }
 
 /** The photo row of a stored file whose bytes lib/uploads/inspect-image.ts accepted. */

@@ -6,6 +6,8 @@ import type { ErrorCode } from '@/lib/contracts/errors';
 
 export type Call = { url: string; method: string; body: unknown };
 
+type Reply = { status?: number; body?: unknown; headers?: Record<string, string> };
+
 /**
  * Replaces `fetch` with `answer`, which gets each request (URL, method, parsed JSON body) and
  * returns the reply: `{ status, body }`, or 'offline' for a request that never reaches a server.
@@ -14,8 +16,7 @@ export type Call = { url: string; method: string; body: unknown };
 export function stubFetch(
   answer: (
     call: Call,
-  ) =>
-    { status?: number; body?: unknown } | 'offline' | Promise<{ status?: number; body?: unknown }>,
+  ) => Reply | 'offline' | Promise<Reply>,
 ) {
   const calls: Call[] = [];
   const fetchStub = vi.fn(async (input: RequestInfo | URL, init: RequestInit = {}) => {
@@ -29,7 +30,7 @@ export function stubFetch(
     if (reply === 'offline') throw new TypeError('Failed to fetch');
     return new Response(reply.body === undefined ? null : JSON.stringify(reply.body), {
       status: reply.status ?? 200,
-      headers: { 'content-type': 'application/json' },
+      headers: { 'content-type': 'application/json', ...reply.headers },
     });
   });
   vi.stubGlobal('fetch', fetchStub);

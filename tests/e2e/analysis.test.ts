@@ -42,8 +42,8 @@ async function fullResult(page: Page, method: string) {
 
 async function upload(page: Page, files: string[]) {
   await page.getByTestId('photo-input').setInputFiles(files.map((f) => path.join(FIXTURES, f)));
-  const strip = page.getByRole('list', { name: 'Photos' });
-  await strip.getByRole('button').nth(files.length - 1).waitFor({ timeout: 60_000 });
+  const table = page.getByRole('table', { name: 'Photos' });
+  for (const file of files) await table.getByRole('button', { name: file, exact: true }).waitFor({ timeout: 60_000 });
 }
 
 type TraceEvent = {
@@ -140,11 +140,12 @@ async function dragAndMeasure(page: Page, moves: number) {
     }).observe(element, { attributes: true });
   });
   const box = await canvas(page).boundingBox();
-  const baseline = (await canvas(page).getAttribute('data-baseline'))!.split(',').map(Number);
+  // The right handle, where the canvas draws it (at the contact point, inside the frame).
+  const handles = (await canvas(page).getAttribute('data-handles'))!.split(',').map(Number);
   const scale = Number(await canvas(page).getAttribute('data-scale'));
   if (!box) throw new Error('canvas not visible');
-  const grabX = box.x + Math.min(baseline[2] * scale, box.width) - 3;
-  const grabY = box.y + baseline[3] * scale;
+  const grabX = box.x + handles[2] * scale;
+  const grabY = box.y + handles[3] * scale;
   await page.mouse.move(grabX, grabY);
   await page.mouse.down();
   for (let i = 1; i <= moves; i++) {
@@ -254,15 +255,15 @@ describe('one set of pixels', () => {
     await page.goto(`${BASE_URL}/measure`);
     const files = ['drop-75-16bit.png', 'drop-80-colour.jpg'];
     await upload(page, files);
-    const strip = page.getByRole('list', { name: 'Photos' });
+    const table = page.getByRole('table', { name: 'Photos' });
     for (const file of files) {
-      const button = strip.getByRole('button', { name: new RegExp(file.replace('.', '\\.')) });
+      const button = table.getByRole('button', { name: file, exact: true });
       await button.click();
       const thumbnail = await button.locator('img').getAttribute('src');
       const photoId = /\/api\/photos\/([^/]+)\/thumbnail/.exec(thumbnail ?? '')?.[1];
       expect(photoId).toBeTruthy();
       const browserResult = await fullResult(page, 'young-laplace');
-      await page.getByLabel('Sample').selectOption({ label: 'B-0412 / P1' });
+      await page.getByLabel('Sample', { exact: true }).selectOption({ label: 'B-0412 / P1' });
       await page.getByRole('button', { name: 'Save this drop' }).click();
       await page.getByText(/Saved as revision \d+\./).waitFor({ timeout: 60_000 });
       const saved = await page.evaluate(async (id) => {

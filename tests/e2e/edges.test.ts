@@ -100,8 +100,8 @@ describe('security headers', () => {
       await page
         .getByTestId('photo-input')
         .setInputFiles([path.resolve(__dirname, '../../fixtures/drops/cap-60-noisy.png')]);
-      const strip = page.getByRole('list', { name: 'Photos' });
-      await strip.getByRole('button', { name: /cap-60-noisy/ }).first().click({ timeout: 60_000 });
+      const table = page.getByRole('table', { name: 'Photos' });
+      await table.getByRole('button', { name: 'cap-60-noisy.png', exact: true }).click({ timeout: 60_000 });
       await page.getByTestId('angle-left').waitFor({ timeout: 60_000 });
       // The fixture was rendered at 60° (fixtures/drops/manifest.json); analysed in the worker.
       const left = Number.parseFloat((await page.getByTestId('angle-left').textContent()) ?? 'NaN');

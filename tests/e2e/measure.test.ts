@@ -22,12 +22,12 @@ const angle = async (page: Page, side: 'left' | 'right') =>
 async function dragBaselineStart(page: Page, dx: number, dy: number) {
   const canvas = page.getByTestId('drop-canvas');
   const box = await canvas.boundingBox();
-  const baseline = (await canvas.getAttribute('data-baseline'))!.split(',').map(Number);
+  // The handles are drawn at the contact points (automatic baseline) or the ends set by hand.
+  const handles = (await canvas.getAttribute('data-handles'))!.split(',').map(Number);
   const scale = Number(await canvas.getAttribute('data-scale'));
   if (!box) throw new Error('canvas not visible');
-  // Grab the handle a little inside its circle so it is hit even at the image border.
-  const grabX = box.x + Math.max(baseline[0] * scale, 0) + 3;
-  const grabY = box.y + baseline[1] * scale;
+  const grabX = box.x + handles[0] * scale;
+  const grabY = box.y + handles[1] * scale;
   await page.mouse.move(grabX, grabY);
   await page.mouse.down();
   await page.mouse.move(grabX + dx * scale, grabY + dy * scale, { steps: 8 });
@@ -69,9 +69,9 @@ describe('measurement workspace', () => {
     await page
       .getByTestId('photo-input')
       .setInputFiles([path.join(FIXTURES, 'cap-60-noisy.png'), path.join(FIXTURES, 'drop-105-needle.png')]);
-    const strip = page.getByRole('list', { name: 'Photos' });
-    await strip.getByRole('button').nth(1).waitFor({ timeout: 60_000 });
-    await strip.getByRole('button', { name: /cap-60-noisy/ }).click();
+    const table = page.getByRole('table', { name: 'Photos' });
+    await table.getByRole('button', { name: 'drop-105-needle.png', exact: true }).waitFor({ timeout: 60_000 });
+    await table.getByRole('button', { name: 'cap-60-noisy.png', exact: true }).click();
     await page.getByTestId('angle-left').waitFor({ timeout: 60_000 });
     const automaticLeft = await angle(page, 'left');
     // The fixture was rendered at 60° (fixtures/drops/manifest.json).
@@ -85,7 +85,7 @@ describe('measurement workspace', () => {
     expect(Math.abs(draggedLeft - automaticLeft)).toBeGreaterThan(0.3);
     expect(await page.getByText('adjusted by hand').count()).toBe(1);
 
-    await page.getByLabel('Sample').selectOption({ label: 'B-0412 / P1' });
+    await page.getByLabel('Sample', { exact: true }).selectOption({ label: 'B-0412 / P1' });
     await page.getByRole('button', { name: 'Save this drop' }).click();
     await page.getByText('Saved as revision 1.').waitFor({ timeout: 30_000 });
     const revisions = page.getByTestId('revisions');
@@ -96,7 +96,7 @@ describe('measurement workspace', () => {
 
     // Reload: the same photo comes back with its saved revision.
     await page.reload();
-    await page.getByRole('list', { name: 'Photos' }).getByRole('button', { name: /cap-60-noisy/ }).click();
+    await page.getByRole('table', { name: 'Photos' }).getByRole('button', { name: 'cap-60-noisy.png', exact: true }).click();
     await page.getByTestId('revisions').getByRole('row').first().waitFor({ timeout: 30_000 });
     expect(await page.getByTestId('revisions').getByRole('row').count()).toBe(1);
 
@@ -105,6 +105,8 @@ describe('measurement workspace', () => {
     const beforeSecondDrag = await angle(page, 'left');
     await dragBaselineStart(page, 0, 4);
     await waitForAngleChange(page, beforeSecondDrag);
+    // A saved drop analysed again says why.
+    await page.getByLabel('Reason for the re-analysis').fill('Baseline lowered onto the contact points');
     await page.getByRole('button', { name: 'Save this drop' }).click();
     await page.getByText('Saved as revision 2.').waitFor({ timeout: 30_000 });
     expect(await page.getByTestId('revisions').getByRole('row').count()).toBe(2);

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { MeasureWorkspace } from '@/components/measure/workspace';
 import { PageHeader } from '@/components/ui/empty-state';
+import type { FitMethod } from '@/lib/analysis/types';
 import { requirePage } from '@/lib/auth/guard';
 import { loadMeasureWorkspace } from '@/server/drops/workspace';
 
@@ -13,22 +14,23 @@ export default async function MeasurePage({
 }) {
   const ctx = await requirePage('records:write');
   const { sample, photos } = await searchParams;
-  // ?photos=a,b reopens photos (saved or not) in the strip, e.g. after a reload.
-  const { samples, liquids, photos: strip } = await loadMeasureWorkspace(
-    ctx,
-    (photos ?? '').split(',').filter(Boolean),
-  );
+  // ?photos=a,b opens photos (saved or not), e.g. a drop from its page or after a reload.
+  const workspace = await loadMeasureWorkspace(ctx, (photos ?? '').split(',').filter(Boolean));
   return (
     <>
       <PageHeader
         title="Measure"
-        lead="Upload droplet photos, check the fitted profile and the baseline, drag the baseline where your eye disagrees, and save the left and right angles to a sample."
+        lead="Upload droplet photos, check each fitted profile and baseline in the table and on the canvas, put them on their samples and save the left and right angles."
       />
       <MeasureWorkspace
-        samples={samples}
-        liquids={liquids}
-        initialPhotos={strip.map((p) => ({ id: p.id, name: p.originalName, width: p.width, height: p.height }))}
-        initialSampleId={samples.some((s) => s.id === sample) ? (sample ?? null) : null}
+        samples={workspace.samples}
+        liquids={workspace.liquids}
+        initialPhotos={workspace.photos.map((p) => ({
+          ...p,
+          saved: p.saved ? { ...p.saved, method: p.saved.method as FitMethod } : null,
+        }))}
+        initialSampleId={workspace.samples.some((s) => s.id === sample) ? (sample ?? null) : null}
+        initialSession={workspace.session}
         operatorName={ctx.user.name}
       />
     </>

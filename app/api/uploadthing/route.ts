@@ -28,15 +28,12 @@ const dropPhotoRouter = createDropPhotoRouter({
     return { userId: ctx.user.id, organizationId: ctx.organization.id };
   },
   async onStored(file, inspected, { metadata }) {
-    return recordUploadedPhoto(
-      inspectedPhotoRow(
-        metadata,
-        file,
-        inspected,
-        // Metadata stored by an older release has no purpose.
-        metadata.purpose ?? 'sessile-drop',
-      ),
-    );
+    // Metadata stored by an older release has no purpose.
+    const purpose = metadata.purpose ?? 'sessile-drop';
+    // The workspace keeps one photo per file and user: the same file again is that photo.
+    return recordUploadedPhoto(inspectedPhotoRow(metadata, file, inspected, purpose), {
+      reuseUnsavedTwin: purpose === 'sessile-drop',
+    });
   },
 });
 

@@ -1,6 +1,6 @@
 import { render, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { photoBadge } from '@/components/measure/photo-strip';
+import { photoBadge } from '@/components/measure/photo-table';
 import { ResultsPanel } from '@/components/measure/results-panel';
 import type { WorkspacePhoto } from '@/components/measure/store';
 import { DEFAULT_SETTINGS } from '@/lib/analysis/settings';
@@ -79,6 +79,12 @@ describe('measure results panel', () => {
     expect(screen.queryByText('No quality warnings.')).toBeNull();
   });
 
+  it('says that no photo is shown rather than "Analysing…" when the table is empty', () => {
+    render(<ResultsPanel result={null} status={null} error={null} />);
+    expect(screen.getByRole('region', { name: 'Result' }).textContent).toMatch(/No photo shown/);
+    expect(screen.queryByText('Analysing…')).toBeNull();
+  });
+
   it('says why there is no result', () => {
     render(<ResultsPanel result={null} status="failed" error="No drop was found in the photo." />);
     expect(screen.getByRole('alert').textContent).toBe('No drop was found in the photo.');
@@ -94,7 +100,11 @@ describe('photo badge', () => {
     status: 'ready',
     error: null,
     result: result(),
+    method: 'young-laplace',
     baseline: null,
+    sampleId: '',
+    probeLiquidId: '',
+    dropId: null,
     savedRevision: null,
     dirty: true,
     ...overrides,
@@ -111,6 +121,6 @@ describe('photo badge', () => {
     expect(photoBadge(photo({})).label).toBe('Analysed');
     expect(photoBadge(photo({ savedRevision: 2, dirty: false })).label).toBe('Saved r2');
     // Changed since it was saved: the saved revision no longer describes what is shown.
-    expect(photoBadge(photo({ savedRevision: 2, dirty: true })).label).toBe('Analysed');
+    expect(photoBadge(photo({ savedRevision: 2, dirty: true })).label).toBe('Changed since r2');
   });
 });

@@ -1,10 +1,17 @@
 import { act, render, renderHook, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { beforeEach, describe, expect, it } from 'vitest';
+import { photoBadge } from '@/components/measure/photo-table';
 import { useWorkspace, type WorkspacePhoto } from '@/components/measure/store';
 import { SessionPanel } from '@/components/measure/session-panel';
 import { initialSession } from '@/components/measure/types';
-import { useSaveDrops } from '@/components/measure/use-save-drops';
+import {
+  BUSY_ATTEMPTS,
+  SAVES_AT_ONCE,
+  busyWaitMs,
+  useSaveDrops,
+} from '@/components/measure/use-save-drops';
+import { COMPUTE_JOBS_PER_USER } from '@/lib/contracts/limits';
 import { errorBody, stubFetch } from '../support';
 
 const LIQUIDS = [
@@ -12,7 +19,7 @@ const LIQUIDS = [
   { id: 'liquid-water', name: 'Water', hazardNote: null },
 ];
 
-const analysed = (id: string, name: string): WorkspacePhoto => ({
+const analysed = (id: string, name: string, sampleId = 'sample-1'): WorkspacePhoto => ({
   id,
   name,
   width: 640,
@@ -20,7 +27,11 @@ const analysed = (id: string, name: string): WorkspacePhoto => ({
   status: 'ready',
   error: null,
   result: null,
+  method: 'circle',
   baseline: null,
+  sampleId,
+  probeLiquidId: 'liquid-water',
+  dropId: null,
   savedRevision: null,
   dirty: true,
 });
@@ -49,21 +60,46 @@ const SESSION_CREATED = {
   },
 };
 
-function setup(sampleId: string, liquidLot = '') {
+function setup(liquidLot = '') {
   let reloads = 0;
   const created: string[] = [];
+  const waits: number[] = [];
   const hook = renderHook(() =>
     useSaveDrops({
-      sampleId,
       session: { ...initialSession(LIQUIDS, 'Ana Analyst'), liquidLot },
-      method: 'circle',
       onSessionCreated: (id) => created.push(id),
       onSaved: async () => {
         reloads += 1;
       },
+      // Records the waits instead of waiting them.
+      wait: async (ms) => {
+        waits.push(ms);
+      },
     }),
   );
-  return { hook, created, reloads: () => reloads };
+  return { hook, created, reloads: () => reloads, waits };
+}
+
+const BUSY = {
+  status: 429,
+  headers: { 'retry-after': '5' },
+  body: errorBody(
+    'busy',
+    'You already have 4 calculations running. Wait for one to finish, then try again.',
+  ),
+};
+
+/** Every save-state step each photo went through, in order (repeats folded). */
+function recordSaveSteps() {
+  const steps = new Map<string, string[]>();
+  const unsubscribe = useWorkspace.subscribe((state) => {
+    for (const p of state.photos) {
+      const step = p.saveState?.step ?? (p.savedRevision !== null ? 'saved' : 'none');
+      const seen = steps.get(p.id) ?? [];
+      if (seen.at(-1) !== step) steps.set(p.id, [...seen, step]);
+    }
+  });
+  return { steps, unsubscribe };
 }
 
 beforeEach(() => {
@@ -71,7 +107,7 @@ beforeEach(() => {
     photos: [
       analysed('p1', 'a.png'),
       analysed('p2', 'b.png'),
-      { ...analysed('p3', 'c.png'), dirty: false },
+      { ...analysed('p3', 'c.png'), dirty: false, savedRevision: 1, dropId: 'd3' },
     ],
   });
 });
@@ -87,8 +123,8 @@ describe('saving drops', () => {
         ? SESSION_CREATED
         : { status: 201, body: { revision: 1 } },
     );
-    const { hook } = setup('sample-1', ' W-LOT-0915 ');
-    await act(() => hook.result.current.saveAll(useWorkspace.getState().photos));
+    const { hook } = setup(' W-LOT-0915 ');
+    await act(() => hook.result.current.saveMany(useWorkspace.getState().photos.slice(0, 2)));
     await waitFor(() => expect(hook.result.current.saving).toBe(false));
     expect(calls[0].url).toBe('/api/measurement-sessions');
     expect(calls[0].body).toMatchObject({ liquidLot: 'W-LOT-0915', operatorName: 'Ana Analyst' });
@@ -98,7 +134,6 @@ describe('saving drops', () => {
     let value = { ...initialSession(LIQUIDS, 'Ana Analyst') };
     render(
       <SessionPanel
-        liquids={LIQUIDS}
         value={value}
         onChange={(next) => (value = next)}
         onCalibrate={() => undefined}
@@ -113,13 +148,34 @@ describe('saving drops', () => {
 
   it('asks for a sample before sending anything', async () => {
     const calls = stubFetch(() => ({ body: {} }));
-    const { hook } = setup('');
-    await act(() => hook.result.current.saveAll(useWorkspace.getState().photos));
+    const { hook } = setup();
+    await act(() =>
+      hook.result.current.saveMany([analysed('p1', 'a.png'), analysed('p2', 'b.png', '')]),
+    );
     expect(hook.result.current.message).toEqual({
       kind: 'error',
-      text: 'Choose the sample these drops were placed on, then save.',
+      text: 'Choose the sample b.png was placed on, then save.',
     });
     expect(calls).toHaveLength(0);
+  });
+
+  it('asks why a saved drop is analysed again, and sends the reason with it', async () => {
+    const calls = stubFetch(({ url }) =>
+      url === '/api/measurement-sessions'
+        ? SESSION_CREATED
+        : { status: 201, body: { revision: 2, dropId: 'd3' } },
+    );
+    const { hook } = setup();
+    const p3 = useWorkspace.getState().photos[2];
+    await act(() => hook.result.current.saveOne(p3));
+    expect(hook.result.current.message).toEqual({
+      kind: 'error',
+      text: 'c.png is saved already: say why it is analysed again.',
+    });
+    expect(calls).toHaveLength(0);
+    await act(() => hook.result.current.saveOne(p3, '  baseline on the contact points '));
+    expect(calls[1].body).toMatchObject({ reason: 'baseline on the contact points' });
+    expect(useWorkspace.getState().photos[2].savedRevision).toBe(2);
   });
 
   it('creates the session once, saves every unsaved photo and names the ones that failed', async () => {
@@ -134,8 +190,8 @@ describe('saving drops', () => {
         ),
       };
     });
-    const { hook, created, reloads } = setup('sample-1');
-    await act(() => hook.result.current.saveAll(useWorkspace.getState().photos));
+    const { hook, created, reloads } = setup();
+    await act(() => hook.result.current.saveMany(useWorkspace.getState().photos.slice(0, 2)));
     await waitFor(() => expect(hook.result.current.saving).toBe(false));
     expect(calls.map((c) => c.url)).toEqual([
       '/api/measurement-sessions',
@@ -181,8 +237,10 @@ describe('saving drops', () => {
       photos: [{ ...analysed('p1', 'a.png'), savedRevision: 1 }],
       selectedId: null,
     });
-    const { hook, reloads } = setup('sample-1');
-    await act(() => hook.result.current.saveOne(useWorkspace.getState().photos[0]));
+    const { hook, reloads } = setup();
+    await act(() =>
+      hook.result.current.saveOne(useWorkspace.getState().photos[0], 'moved the baseline'),
+    );
     expect(calls.at(-1)?.body).toMatchObject({ expectedRevision: 1 });
     expect(hook.result.current.message?.kind).toBe('error');
     expect(hook.result.current.stale).toEqual([{ photoId: 'p1', photoName: 'a.png', current: 3 }]);
@@ -196,16 +254,99 @@ describe('saving drops', () => {
     expect(reloads()).toBe(1);
 
     answer = 'saved';
-    await act(() => hook.result.current.saveOne(useWorkspace.getState().photos[0]));
+    await act(() =>
+      hook.result.current.saveOne(useWorkspace.getState().photos[0], 'checked revision 3'),
+    );
     expect(calls.at(-1)?.body).toMatchObject({ expectedRevision: 3 });
     expect(useWorkspace.getState().photos[0].savedRevision).toBe(4);
   });
 
   it('says nothing was lost when the server cannot be reached', async () => {
     stubFetch(() => 'offline');
-    const { hook } = setup('sample-1');
+    const { hook } = setup();
     await act(() => hook.result.current.saveOne(useWorkspace.getState().photos[0]));
     expect(hook.result.current.message?.kind).toBe('error');
     expect(hook.result.current.message?.text).toMatch(/could not be reached.*nothing was lost/);
+  });
+
+  it(`saves ten photos ${SAVES_AT_ONCE} at a time within the per-user compute limit, waits and sends again while the server is busy, and loses none`, async () => {
+    const ten = Array.from({ length: 10 }, (_, i) => analysed(`p${i}`, `drop-${i}.png`));
+    useWorkspace.setState({ photos: ten, selectedId: null });
+    // The server's limit of 4 per user, with 2 taken by the same user's other work while the
+    // first saves run: the third save at once is refused as busy until that work is done.
+    let inFlight = 0;
+    let most = 0;
+    let otherWork = 2;
+    let saved = 0;
+    let refused = 0;
+    const calls = stubFetch(async ({ url }) => {
+      if (url === '/api/measurement-sessions') return SESSION_CREATED;
+      if (inFlight + otherWork >= COMPUTE_JOBS_PER_USER) {
+        refused += 1;
+        if (refused === 3) otherWork = 0;
+        return BUSY;
+      }
+      inFlight += 1;
+      most = Math.max(most, inFlight);
+      await new Promise((resolve) => setTimeout(resolve, 5));
+      inFlight -= 1;
+      saved += 1;
+      return { status: 201, body: { revision: 1, dropId: `d-${url}` } };
+    });
+    const { steps, unsubscribe } = recordSaveSteps();
+    const { hook, waits } = setup();
+    await act(() => hook.result.current.saveMany(useWorkspace.getState().photos));
+    unsubscribe();
+
+    expect(hook.result.current.message).toEqual({ kind: 'ok', text: 'Saved 10 drops.' });
+    expect(
+      useWorkspace.getState().photos.map((p) => [p.savedRevision, p.dirty, p.saveState]),
+    ).toEqual(ten.map(() => [1, false, null]));
+    expect(saved).toBe(10);
+    expect(refused).toBe(3);
+    expect(most).toBeLessThanOrEqual(SAVES_AT_ONCE);
+    expect(calls.filter((c) => c.url.endsWith('/drop'))).toHaveLength(13);
+    // Each wait honours Retry-After (5 s) and grows with the attempts of the same photo.
+    expect(waits).toHaveLength(3);
+    expect(waits.every((ms) => ms >= 5000)).toBe(true);
+    // Every photo waited its turn and was saved; a refused one said the server was busy and
+    // was sent again.
+    const all = [...steps.values()];
+    expect(all).toHaveLength(10);
+    expect(all.filter((s) => s.includes('retrying')).length).toBeGreaterThan(0);
+    for (const s of all) {
+      expect(s.slice(0, 2)).toEqual(['queued', 'saving']);
+      expect(s.at(-1)).toBe('saved');
+      expect(s.slice(2, -1).every((step, i) => step === (i % 2 ? 'saving' : 'retrying'))).toBe(
+        true,
+      );
+    }
+  });
+
+  it('a save the server keeps refusing as busy stops after its attempts; the photo stays unsaved in the table, named', async () => {
+    const calls = stubFetch(({ url }) =>
+      url === '/api/measurement-sessions' ? SESSION_CREATED : BUSY,
+    );
+    const { hook, waits } = setup();
+    const [p1] = useWorkspace.getState().photos;
+    await act(() => hook.result.current.saveMany([p1]));
+    expect(calls.filter((c) => c.url === '/api/photos/p1/drop')).toHaveLength(BUSY_ATTEMPTS);
+    // Retry-After (5 s) or the doubling from 2 s, whichever is longer, never above 30 s.
+    expect(waits).toEqual([5000, 5000, 8000, 16000, 30000, 30000, 30000]);
+    expect(waits.map((_, i) => busyWaitMs(i + 1, 5))).toEqual(waits);
+    const kept = useWorkspace.getState().photos[0];
+    expect(photoBadge(kept).label).toBe('Not saved');
+    expect(
+      photoBadge({ ...kept, saveState: { step: 'retrying', attempt: 2, seconds: 8 } }).label,
+    ).toBe('Server busy: retry in 8 s');
+    expect([kept.id, kept.savedRevision, kept.dirty, kept.saveState?.step]).toEqual([
+      'p1',
+      null,
+      true,
+      'failed',
+    ]);
+    expect(hook.result.current.message?.text).toMatch(
+      /^Saved 0 of 1\. Not saved: a\.png: You already have 4 calculations running/,
+    );
   });
 });

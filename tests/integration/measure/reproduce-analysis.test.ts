@@ -43,7 +43,8 @@ afterAll(async () => {
   await closeDb();
 });
 
-/** The photo's drop revision the next save is based on (saves carry expectedRevision). */
+/** The photo's drop revision the next save is based on (saves carry expectedRevision; every
+ * save after the first is a re-analysis, which says why). */
 let latestRevision = 0;
 
 async function save(body: Record<string, unknown>) {
@@ -51,7 +52,7 @@ async function save(body: Record<string, unknown>) {
     apiRequest(`/api/photos/${photoId}/drop`, {
       method: 'POST',
       sessionId: analyst.sessionId,
-      body: { ...body, expectedRevision: latestRevision },
+      body: { reason: 'reproduce', ...body, expectedRevision: latestRevision },
     }),
     { params: Promise.resolve({ id: photoId }) },
   );

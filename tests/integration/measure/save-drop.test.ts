@@ -4,11 +4,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
 import { ensureProbeLiquidLibrary } from '@/db/probe-liquid-library';
 import { newId } from '@/db/queries/ids';
-import { auditEvents, batches, coatings, samples } from '@/db/schema';
+import { analyses, auditEvents, batches, coatings, samples } from '@/db/schema';
 import { GET, POST } from '@/app/api/photos/[id]/drop/route';
 import { analyseDrop } from '@/lib/analysis';
 import { decodeImageBytes } from '@/lib/analysis/node/decode';
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import { apiRequest } from '../support/request';
 import { createMember, createOrganization } from '../support/fixtures';
 import { insertPhotoWithBytes } from '../support/seed';
@@ -69,9 +69,18 @@ describe('saving a drop analysis', () => {
     expect(saved.result.baseline).toEqual(baseline);
   });
 
-  it('every later save is a new revision; earlier ones are kept', async () => {
-    const second = await save(analyst.sessionId, { sampleId, probeLiquidId: 'liquid-water', method: 'young-laplace', baseline: null, expectedRevision: 1 });
+  it('a later save says why (400 naming `reason` without one) and keeps the reason with its revision', async () => {
+    const body = { sampleId, probeLiquidId: 'liquid-water', method: 'young-laplace', baseline: null, expectedRevision: 1 };
+    const unexplained = await save(analyst.sessionId, body);
+    expect(unexplained.status).toBe(400);
+    expect(Object.keys((await unexplained.json()).error.fields)).toEqual(['reason']);
+    const second = await save(analyst.sessionId, { ...body, reason: 'Young–Laplace for a flattened drop' });
     expect((await second.json()).revision).toBe(2);
+    const [row] = await getDb().select().from(analyses).where(and(eq(analyses.dropId, (await (await GET(apiRequest(`/api/photos/${photoId}/drop`, { sessionId: analyst.sessionId }), { params: Promise.resolve({ id: photoId }) })).json()).drop.id), eq(analyses.revision, 2)));
+    expect(row.reason).toBe('Young–Laplace for a flattened drop');
+  });
+
+  it('every later save is a new revision; earlier ones are kept', async () => {
     const listed = await GET(apiRequest(`/api/photos/${photoId}/drop`, { sessionId: analyst.sessionId }), {
       params: Promise.resolve({ id: photoId }),
     });
@@ -117,7 +126,7 @@ describe('saving a drop analysis', () => {
   });
 
   it('two simultaneous saves of one drop make exactly one revision; the other is told it is stale', async () => {
-    const body = { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null, expectedRevision: 2 };
+    const body = { sampleId, probeLiquidId: 'liquid-water', method: 'circle', baseline: null, expectedRevision: 2, reason: 'same drop, two tabs' };
     const replies = await Promise.all([save(analyst.sessionId, body), save(analyst.sessionId, body)]);
     expect(replies.map((r) => r.status).sort()).toEqual([201, 409]);
     const refused = await replies.find((r) => r.status === 409)!.json();

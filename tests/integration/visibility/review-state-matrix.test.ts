@@ -16,6 +16,7 @@ import * as compareCsv from '@/app/api/compare/drops.csv/route';
 import { refreshBatchVerdict } from '@/server/alerts/refresh-verdict';
 import { loadComparePage } from '@/server/compare/load';
 import { loadDashboard } from '@/server/dashboard/load';
+import { loadDropPage } from '@/server/drops/load';
 import { loadBatchPage } from '@/server/records/detail-pages';
 import { loadSurfaceEnergyPage } from '@/server/surface-energy/read';
 import { createMember, createOrganization } from '../support/fixtures';
@@ -41,6 +42,7 @@ type Fixture = {
   lotCode: string;
   batchId: string;
   sampleId: string;
+  dropId: string;
 };
 
 const WATER = builtInProbeLiquidId('water');
@@ -61,15 +63,18 @@ async function labIn(state: State): Promise<Fixture> {
   const batchId = await seed.insertBatch(lab.id, coatingId, lotCode);
   const sampleId = await seed.insertSample(lab.id, batchId, 'S1');
   const stored = state === 'revoked' ? 'draft' : state;
+  const dropIds: string[] = [];
   for (const [probeLiquidId, means] of [
     [WATER, [96, 97, 98]],
     [DIIODOMETHANE, [51, 52, 53]],
   ] as const) {
     for (const meanDeg of means) {
-      await seed.insertDrop(lab.id, sampleId, {
-        probeLiquidId,
-        revisions: [{ meanDeg, reviewStatus: stored }],
-      });
+      dropIds.push(
+        await seed.insertDrop(lab.id, sampleId, {
+          probeLiquidId,
+          revisions: [{ meanDeg, reviewStatus: stored }],
+        }),
+      );
     }
   }
   const analysisIds = (
@@ -115,7 +120,7 @@ async function labIn(state: State): Promise<Fixture> {
     },
   );
   expect(saved.status).toBe(201);
-  return { state, lab, members, coatingCode, lotCode, batchId, sampleId };
+  return { state, lab, members, coatingCode, lotCode, batchId, sampleId, dropId: dropIds[0] };
 }
 
 type Handler = (
@@ -226,6 +231,10 @@ const RESOURCES: Record<string, (f: Fixture, role: Role) => Promise<boolean>> = 
       (page.evaluation.angleTable.some((r) => r.n > 0) || page.saved.length > 0)
     );
   },
+  'page /drops/[id]': async (f, role) => {
+    const page = await loadDropPage(ctxOf(f, role), f.dropId);
+    return (page?.revisions.length ?? 0) > 0;
+  },
   'page /dashboard': async (f, role) => {
     const page = await loadDashboard(ctxOf(f, role));
     return page.drops.some((d) => d.lotCode === f.lotCode);
@@ -321,6 +330,7 @@ const NOT_IN_MATRIX: Record<string, string> = {
   'api/batches/[id]/import': 'records:write',
   'api/coatings/[id]/watch': 'results:read-all',
   'api/uploadthing': 'records:write (uploads)',
+  'api/photos/remove': 'records:write',
   // Records, team, account and service routes: no analysis results in them.
   'api/batches': 'records',
   'api/batches/[id]': 'records',

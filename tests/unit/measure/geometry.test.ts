@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import {
   baselineAcross,
+  baselineHandles,
+  baselineThrough,
+  contactZoom,
   nudgeBaseline,
   nudgeFromKey,
   tangentEnd,
@@ -49,5 +52,59 @@ describe('baseline editing', () => {
     expect([x0, y0]).toEqual([0, 19]);
     expect(x1).toBe(100);
     expect(y1).toBeCloseTo(29, 9);
+  });
+});
+
+describe('baseline handles and the contact zoom', () => {
+  const size = { width: 640, height: 480 };
+  const level = { x1: 0, y1: 300, x2: 639, y2: 300 };
+
+  it('puts the automatic baseline handles at the contact points, inside the frame', () => {
+    const { start, end } = baselineHandles(
+      level,
+      [
+        [200, 301],
+        [440, 299],
+      ],
+      size,
+      8,
+    );
+    expect(start).toEqual([200, 300]);
+    expect(end).toEqual([440, 300]);
+    // A baseline set by hand keeps its ends, pulled inside the photo by the margin.
+    const hand = baselineHandles(level, null, size, 8);
+    expect(hand.start).toEqual([8, 300]);
+    expect(hand.end).toEqual([632, 300]);
+    // The baseline through the handles is the same line.
+    const through = baselineThrough(start, end);
+    expect((through.y2 - through.y1) / (through.x2 - through.x1)).toBeCloseTo(0, 12);
+  });
+
+  it('frames both contact points and the drop height when zooming to the contact region', () => {
+    const view = { width: 800, height: 600 };
+    const fit = 800 / 640;
+    const { zoom, offset } = contactZoom(
+      [
+        [200, 300],
+        [440, 300],
+      ],
+      100,
+      fit,
+      view,
+    );
+    expect(zoom).toBeGreaterThan(1);
+    const scale = fit * zoom;
+    for (const [x, y] of [
+      [200, 300],
+      [440, 300],
+      [320, 200],
+    ]) {
+      const sx = x * scale + offset.x;
+      const sy = y * scale + offset.y;
+      expect(sx).toBeGreaterThanOrEqual(0);
+      expect(sx).toBeLessThanOrEqual(view.width);
+      expect(sy).toBeGreaterThanOrEqual(0);
+      expect(sy).toBeLessThanOrEqual(view.height);
+    }
   });
 });
