@@ -33,32 +33,16 @@ BEGIN
 END;
 $$;
 --> statement-breakpoint
-CREATE CONSTRAINT TRIGGER coatings_data_version AFTER INSERT OR UPDATE OR DELETE ON coatings
-  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION bump_organization_data_version();
---> statement-breakpoint
-CREATE CONSTRAINT TRIGGER specs_data_version AFTER INSERT OR UPDATE OR DELETE ON specs
-  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION bump_organization_data_version();
---> statement-breakpoint
-CREATE CONSTRAINT TRIGGER batches_data_version AFTER INSERT OR UPDATE OR DELETE ON batches
-  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION bump_organization_data_version();
---> statement-breakpoint
-CREATE CONSTRAINT TRIGGER samples_data_version AFTER INSERT OR UPDATE OR DELETE ON samples
-  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION bump_organization_data_version();
---> statement-breakpoint
-CREATE CONSTRAINT TRIGGER drops_data_version AFTER INSERT OR UPDATE OR DELETE ON drops
-  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION bump_organization_data_version();
---> statement-breakpoint
-CREATE CONSTRAINT TRIGGER analyses_data_version AFTER INSERT OR UPDATE OR DELETE ON analyses
-  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION bump_organization_data_version();
---> statement-breakpoint
-CREATE CONSTRAINT TRIGGER dynamic_measurements_data_version AFTER INSERT OR UPDATE OR DELETE ON dynamic_measurements
-  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION bump_organization_data_version();
---> statement-breakpoint
-CREATE CONSTRAINT TRIGGER dynamic_analyses_data_version AFTER INSERT OR UPDATE OR DELETE ON dynamic_analyses
-  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION bump_organization_data_version();
---> statement-breakpoint
-CREATE CONSTRAINT TRIGGER probe_liquids_data_version AFTER INSERT OR UPDATE OR DELETE ON probe_liquids
-  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION bump_organization_data_version();
---> statement-breakpoint
-CREATE CONSTRAINT TRIGGER reviews_data_version AFTER INSERT OR UPDATE OR DELETE ON reviews
-  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION bump_organization_data_version();
+DO $$
+DECLARE
+  t text;
+BEGIN
+  FOREACH t IN ARRAY ARRAY['coatings', 'specs', 'batches', 'samples', 'drops', 'analyses',
+    'dynamic_measurements', 'dynamic_analyses', 'probe_liquids', 'reviews'] LOOP
+    EXECUTE format(
+      'CREATE CONSTRAINT TRIGGER %I AFTER INSERT OR UPDATE OR DELETE ON %I '
+      'DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION bump_organization_data_version()',
+      t || '_data_version', t);
+  END LOOP;
+END;
+$$;
