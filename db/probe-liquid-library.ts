@@ -3,6 +3,7 @@ import {
   type ProbeLiquid as LibraryLiquid,
   type ValueSource,
 } from '@/lib/surface-energy';
+import { and, eq, isNull, sql } from 'drizzle-orm';
 import type { Database } from './client';
 import { recordAudit } from './queries/audit';
 import { probeLiquids } from './schema';
@@ -21,9 +22,7 @@ export type BuiltInProbeLiquid = typeof probeLiquids.$inferInsert & {
 export const builtInProbeLiquidId = (id: LibraryLiquid['id']) => `liquid-${id}` as const;
 
 function cite(source: ValueSource): string {
-  return source.fromMemory
-    ? `${source.citation} (from memory; confirm against the original)`
-    : source.citation;
+  return source.citation;
 }
 
 function toRow(liquid: LibraryLiquid): BuiltInProbeLiquid {
@@ -69,6 +68,31 @@ export async function ensureProbeLiquidLibrary(db: Database): Promise<string[]> 
       .onConflictDoNothing({ target: probeLiquids.id })
       .returning({ id: probeLiquids.id });
     const ids = inserted.map((row) => row.id);
+    // Built-in rows already present take the library's current citations.
+    const recited: string[] = [];
+    for (const liquid of PROBE_LIQUID_LIBRARY) {
+      const updated = await tx
+        .update(probeLiquids)
+        .set({ sources: liquid.sources })
+        .where(
+          and(
+            eq(probeLiquids.id, liquid.id),
+            isNull(probeLiquids.organizationId),
+            sql`${probeLiquids.sources} is distinct from ${JSON.stringify(liquid.sources)}::jsonb`,
+          ),
+        )
+        .returning({ id: probeLiquids.id });
+      recited.push(...updated.map((row) => row.id));
+    }
+    if (recited.length > 0) {
+      await recordAudit(tx, {
+        actorUserId: null,
+        organizationId: null,
+        action: 'probe_liquid.library_sources',
+        entityType: 'probe_liquid',
+        after: { ids: recited },
+      });
+    }
     if (ids.length > 0) {
       await recordAudit(tx, {
         actorUserId: null,

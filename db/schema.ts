@@ -354,6 +354,8 @@ export const measurementSessions = pgTable(
     dropVolumeUl: doublePrecision('drop_volume_ul'),
     scalePxPerMm: doublePrecision('scale_px_per_mm'),
     instrumentNotes: text('instrument_notes').notNull().default(''),
+    /** The probe liquid's lot or bottle number, for the certificate. */
+    liquidLot: text('liquid_lot').notNull().default(''),
     ...createdRecordTail(),
   },
   (t) => [index('measurement_sessions_org_time_idx').on(t.organizationId, t.measuredAt)],
@@ -841,6 +843,38 @@ export const apiIdempotencyKeys = pgTable(
 );
 
 // ---------------------------------------------------------------------------------------------
+// Certificates of analysis, built once by a job and reused while the batch's data is unchanged.
+// ---------------------------------------------------------------------------------------------
+
+/**
+ * A built certificate (PDF/A-2b) of a batch for one audience ('all' results, or 'approved' only
+ * for viewers). `fingerprint` is the SHA-256 of everything the certificate shows; a change to the
+ * batch's data gives a new fingerprint and so a new certificate.
+ */
+export const certificates = pgTable(
+  'certificates',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    batchId: text('batch_id')
+      .notNull()
+      .references(() => batches.id, { onDelete: 'cascade' }),
+    audience: text('audience').$type<'all' | 'approved'>().notNull(),
+    fingerprint: text('fingerprint').notNull(),
+    fileName: text('file_name').notNull(),
+    pdf: bytea('pdf').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('certificates_batch_audience_fingerprint_unique').on(
+      t.batchId,
+      t.audience,
+      t.fingerprint,
+    ),
+  ],
+);
+
+// ---------------------------------------------------------------------------------------------
 // Cached results (server/cache/results.ts) are keyed by their organization's data version.
 // ---------------------------------------------------------------------------------------------
 
@@ -849,7 +883,7 @@ export const apiIdempotencyKeys = pgTable(
  * comparison, the dashboard or a list reads (coatings, specs, batches, samples, drops and their
  * analyses, dynamic measurements and theirs, probe liquids, reviews) sets it to a new value of
  * organization_data_version_seq when its transaction commits (deferred trigger, migration
- * 0017). Values only grow and are never reused, even after rows are truncated. No foreign key:
+ * 0018). Values only grow and are never reused, even after rows are truncated. No foreign key:
  * the commit of an organization's deletion still bumps it.
  */
 export const organizationDataVersions = pgTable('organization_data_versions', {

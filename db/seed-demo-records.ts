@@ -164,6 +164,7 @@ export async function seedDemoRecords(
                 dropVolumeUl: drop.liquid === 'water' ? 3 : 2,
                 scalePxPerMm: SCALE_PX_PER_MM,
                 instrumentNotes: 'Demo session (photos rendered synthetically).',
+                liquidLot: `${drop.liquid.toUpperCase().slice(0, 3)}-2026-01`,
                 createdByUserId: owner.analystUserId,
               });
             }

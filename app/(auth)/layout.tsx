@@ -7,10 +7,6 @@ export default function AuthLayout({ children }: { children: React.ReactNode }) 
         <Wordmark />
       </div>
       <div className="card w-full max-w-md">{children}</div>
-      <p className="mt-6 max-w-md text-center text-xs text-ink-500">
-        Beadline supports your lab&apos;s validated procedure and qualified sign-off; it does not
-        replace them.
-      </p>
     </main>
   );
 }

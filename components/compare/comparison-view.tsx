@@ -34,7 +34,7 @@ export function VerdictBadge({ outcome }: { outcome: BatchVerdict['outcome'] }) 
   );
 }
 
-function VerdictDetail({ verdict, noSpec }: { verdict: BatchVerdict; noSpec: string }) {
+export function VerdictDetail({ verdict, noSpec }: { verdict: BatchVerdict; noSpec: string }) {
   return (
     <>
       <VerdictBadge outcome={verdict.outcome} />
@@ -352,15 +352,6 @@ function SurfaceEnergySection({ se }: { se: SurfaceEnergyComparison }) {
 export function ComparisonView({ comparison }: { comparison: Comparison }) {
   return (
     <div className="compare-results">
-      <div
-        className="mb-6 rounded-md border border-amber-500 bg-amber-50 px-4 py-3 text-sm text-amber-900"
-        role="note"
-        aria-label="Safety note"
-      >
-        <strong>Safety note:</strong> these verdicts support the lab&apos;s judgement. Results that
-        release product for safety-relevant uses must follow the lab&apos;s validated procedure and
-        qualified sign-off.
-      </div>
       <p className="mb-4 text-xs text-ink-600">
         {comparison.angleBasis} A verdict needs at least 3 drops; with fewer it says so instead of
         passing or failing.

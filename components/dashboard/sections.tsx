@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import type { OutOfSpecBatch, RecentDrop } from '@/lib/contracts/dashboard';
+import type { OutOfSpecBatch, PendingReviewRequests, RecentDrop } from '@/lib/contracts/dashboard';
 import { fmtUtc } from '@/components/ui/format';
 import { PlainTable } from '@/components/ui/plain-table';
 
@@ -60,28 +60,46 @@ export function RecentDrops({
   );
 }
 
-export function PendingReviews({ count }: { count: number | null }) {
+export function PendingReviews({ pending }: { pending: PendingReviewRequests | null }) {
   return (
-    <section className="card" aria-labelledby="pending-reviews">
-      <h2 id="pending-reviews">Pending reviews</h2>
-      {count === null ? (
+    <section className="card lg:col-span-3" aria-labelledby="pending-reviews">
+      <h2 id="pending-reviews">Review requests</h2>
+      {pending === null ? (
         <p className="mt-2 text-sm text-ink-600">
           Reviews are handled by reviewers; you see results once they are approved.
         </p>
       ) : (
-        <>
-          <p
-            className="mt-2 text-3xl font-semibold tabular-nums text-ink-950"
-            data-testid="pending-reviews-count"
-          >
-            {count}
-          </p>
-          <p className="text-sm text-ink-600">
-            {count === 0
-              ? 'Nothing is waiting for review.'
-              : `${count === 1 ? 'result is' : 'results are'} submitted and waiting for a reviewer.`}
-          </p>
-        </>
+        <div className="mt-2 flex flex-wrap items-start gap-x-8 gap-y-3">
+          <Link href="/reviews" className="group block">
+            <span
+              className="block text-3xl font-semibold tabular-nums text-ink-950 group-hover:underline"
+              data-testid="pending-reviews-count"
+            >
+              {pending.count}
+            </span>
+            <span className="text-sm text-ink-600 group-hover:underline">
+              {pending.count === 0
+                ? 'Nothing is waiting for review.'
+                : `${pending.count === 1 ? 'request is' : 'requests are'} waiting for a reviewer.`}
+            </span>
+          </Link>
+          {pending.newest.length > 0 ? (
+            <ul className="min-w-0 flex-1 space-y-1 text-sm" data-testid="pending-reviews">
+              {pending.newest.map((r) => (
+                <li key={r.id}>
+                  <Link href={`/reviews/${r.id}`} className="font-medium text-lagoon-700 underline">
+                    {r.title}
+                  </Link>{' '}
+                  <span className="text-ink-600">
+                    {r.analysisCount} result{r.analysisCount === 1 ? '' : 's'} from{' '}
+                    {r.submittedBy ?? 'a former member'},{' '}
+                    <span className="whitespace-nowrap">{fmtUtc(r.submittedAt)}</span>
+                  </span>
+                </li>
+              ))}
+            </ul>
+          ) : null}
+        </div>
       )}
     </section>
   );
@@ -115,10 +133,6 @@ export function OutOfSpec({ batches }: { batches: OutOfSpecBatch[] }) {
           ))}
         </ul>
       )}
-      <p className="mt-2 text-xs text-ink-600">
-        Results that release product for safety-relevant uses must follow the lab&apos;s validated
-        procedure and qualified sign-off.
-      </p>
     </section>
   );
 }

@@ -39,6 +39,11 @@ export function SessionPanel(props: {
         {...bind('probeLiquidId')}
         id="session-liquid"
       />
+      <TextField
+        label="Liquid lot"
+        hint="From the bottle; printed on certificates"
+        {...bind('liquidLot')}
+      />
       <TextField label="Operator" {...bind('operatorName')} />
       <div className="grid grid-cols-3 gap-2">
         <NumberField label="Temp." unit="°C" {...bind('temperatureC')} />

@@ -16,6 +16,8 @@ export type SessionDetails = {
   humidityPct: string;
   dropVolumeUl: string;
   scalePxPerMm: string;
+  /** The lot of the probe liquid's bottle, printed on certificates; empty when not recorded. */
+  liquidLot: string;
   /** Created on the first save with these details; cleared when they change. */
   sessionId: string | null;
 };
@@ -29,6 +31,7 @@ export function initialSession(liquids: LiquidChoice[], operatorName: string): S
     humidityPct: '50',
     dropVolumeUl: '3',
     scalePxPerMm: '',
+    liquidLot: '',
     sessionId: null,
   };
 }

@@ -68,6 +68,7 @@ export function useSaveDrops({
           dropVolumeUl: session.dropVolumeUl ? Number(session.dropVolumeUl) : undefined,
           scalePxPerMm: scale ?? undefined,
           instrumentNotes: '',
+          liquidLot: session.liquidLot.trim(),
         },
         schema: measurementSessionReplies.one,
       }),

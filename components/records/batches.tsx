@@ -34,23 +34,50 @@ const columns: ColumnDef<BatchListItem, unknown>[] = [
     id: 'coating',
     header: 'Coating',
     cell: ({ row }) => (
-      <TableLink href={`/coatings/${row.original.coatingId}`}>
-        {row.original.coatingCode} · {row.original.coatingName}
-      </TableLink>
+      <span className="block min-w-[11rem] max-w-[16rem]">
+        <TableLink href={`/coatings/${row.original.coatingId}`}>
+          {row.original.coatingCode}
+        </TableLink>
+        <span className="block text-xs text-ink-600">{row.original.coatingName}</span>
+      </span>
     ),
   },
-  { id: 'producedOn', header: 'Produced on', accessorKey: 'producedOn' },
-  ...PARAMETER_KEYS.map((key): ColumnDef<BatchListItem, unknown> => ({
-    id: key,
-    header: `${PROCESS_PARAMETERS[key].label} (${PROCESS_PARAMETERS[key].unit})`,
-    cell: ({ row }) => row.original.process[key] ?? '—',
-  })),
+  {
+    id: 'producedOn',
+    header: 'Produced on',
+    cell: ({ row }) => <span className="whitespace-nowrap">{row.original.producedOn}</span>,
+  },
+  {
+    // One column for the process: five columns of mostly empty cells do not fit a laptop screen.
+    id: 'process',
+    header: 'Process',
+    cell: ({ row }) => {
+      const recorded = PARAMETER_KEYS.filter((key) => row.original.process[key] !== undefined);
+      if (recorded.length === 0) return '—';
+      return (
+        <ul className="min-w-[10rem] text-xs">
+          {recorded.map((key) => (
+            <li key={key} className="whitespace-nowrap">
+              {PROCESS_PARAMETERS[key].label}: {row.original.process[key]}{' '}
+              {PROCESS_PARAMETERS[key].unit}
+            </li>
+          ))}
+        </ul>
+      );
+    },
+  },
   {
     id: 'notes',
     header: 'Notes',
-    cell: ({ row }) => <span className="line-clamp-2">{row.original.notes}</span>,
+    cell: ({ row }) => (
+      <span className="line-clamp-2 min-w-[10rem] max-w-[18rem]">{row.original.notes}</span>
+    ),
   },
-  { id: 'createdAt', header: 'Recorded', cell: ({ row }) => fmtDate(row.original.createdAt) },
+  {
+    id: 'createdAt',
+    header: 'Recorded',
+    cell: ({ row }) => <span className="whitespace-nowrap">{fmtDate(row.original.createdAt)}</span>,
+  },
   {
     id: 'status',
     header: 'Status',

@@ -41,18 +41,32 @@ const VALUES: {
   { key: 'density', field: 'densityGPerCm3', label: 'Density', unit: 'g/cm³', digits: 3 },
 ];
 
-/** A value with its source under it, so every number says where it comes from. */
-function Sourced({ liquid, value }: { liquid: ProbeLiquid; value: (typeof VALUES)[number] }) {
+/** A value; its source is in the liquid's Sources cell. */
+function Value({ liquid, value }: { liquid: ProbeLiquid; value: (typeof VALUES)[number] }) {
   const number = liquid[value.field] as number | null;
-  if (number === null) return <>—</>;
-  const source = liquid.sources[value.key];
   return (
-    <span>
-      {fmtNumber(number, value.digits)}
-      <span className="block text-xs text-ink-500">
-        {source ? `Source: ${source}` : 'No source given'}
-      </span>
+    <span className="whitespace-nowrap tabular-nums">
+      {number === null ? '—' : fmtNumber(number, value.digits)}
     </span>
+  );
+}
+
+/** Each distinct source of a liquid's values once, with the values it gives. */
+function Sources({ liquid }: { liquid: ProbeLiquid }) {
+  const groups = new Map<string, string[]>();
+  for (const value of VALUES) {
+    if (liquid[value.field] === null) continue;
+    const source = liquid.sources[value.key] || 'No source given';
+    groups.set(source, [...(groups.get(source) ?? []), value.label]);
+  }
+  return (
+    <ul className="min-w-[16rem] max-w-[26rem] space-y-1 text-xs text-ink-700">
+      {[...groups].map(([source, labels]) => (
+        <li key={source}>
+          <span className="font-medium">{labels.join(', ')}:</span> {source}
+        </li>
+      ))}
+    </ul>
   );
 }
 
@@ -70,10 +84,9 @@ export function ProbeLiquidsPanel({
       cell: ({ row }) => (
         <span>
           <span className="font-medium">{row.original.name}</span>
-          <span className="block text-xs text-ink-500">
+          <span className="block whitespace-nowrap text-xs text-ink-700">
             {row.original.builtIn ? 'Built-in library' : 'Your organization'}
           </span>
-          <span className="block font-mono text-xs text-ink-400">{row.original.id}</span>
         </span>
       ),
     },
@@ -83,7 +96,7 @@ export function ProbeLiquidsPanel({
       cell: ({ row }) =>
         row.original.hazardNote ? (
           <strong
-            className="block w-56 rounded border border-amber-500 bg-amber-50 px-2 py-1 text-amber-900"
+            className="block w-52 rounded border border-amber-500 bg-amber-50 px-2 py-1 text-xs font-medium text-amber-900"
             role="note"
           >
             ⚠ {row.original.hazardNote}
@@ -94,9 +107,14 @@ export function ProbeLiquidsPanel({
     },
     ...VALUES.map((value): ColumnDef<ProbeLiquid, unknown> => ({
       id: value.key === 'total' ? 'totalMnM' : value.key,
-      header: `${value.label} (${value.unit})`,
-      cell: ({ row }) => <Sourced liquid={row.original} value={value} />,
+      header: () => (
+        <span className="whitespace-normal">
+          {value.label} <span className="whitespace-nowrap">({value.unit})</span>
+        </span>
+      ),
+      cell: ({ row }) => <Value liquid={row.original} value={value} />,
     })),
+    { id: 'sources', header: 'Sources', cell: ({ row }) => <Sources liquid={row.original} /> },
     ...(canManage
       ? [
           {

@@ -18,6 +18,7 @@ import { fmtDateTime, fmtNumber, fmtSince, fromLocalInput, toLocalInput } from '
 import { RecordEditor, RowActions } from './record-editor';
 import { RecordForm } from './record-form';
 import { useRecordForm } from './use-record-form';
+import { analysisMethodName } from '@/lib/contracts/drops';
 
 /** The samples of a batch with their drop counts and mean water angle; writers edit in place. */
 export function SamplesPanel({
@@ -187,7 +188,11 @@ const dropColumns: ColumnDef<BatchDrop, unknown>[] = [
     header: 'Source',
     cell: ({ row }) => (row.original.source === 'import' ? 'imported' : 'photo'),
   },
-  { id: 'method', header: 'Method', cell: ({ row }) => row.original.method ?? '—' },
+  {
+    id: 'method',
+    header: 'Method',
+    cell: ({ row }) => (row.original.method ? analysisMethodName(row.original.method) : '—'),
+  },
   { id: 'left', header: 'Left (°)', cell: ({ row }) => fmtNumber(row.original.leftDeg, 1) },
   { id: 'right', header: 'Right (°)', cell: ({ row }) => fmtNumber(row.original.rightDeg, 1) },
   { id: 'mean', header: 'Mean (°)', cell: ({ row }) => fmtNumber(row.original.meanDeg, 1) },

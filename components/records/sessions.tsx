@@ -39,6 +39,11 @@ const columns: ColumnDef<MeasurementSessionListItem, unknown>[] = [
     header: 'Scale (px/mm)',
     cell: ({ row }) => fmtNumber(row.original.scalePxPerMm, 1),
   },
+  {
+    id: 'liquidLot',
+    header: 'Liquid lot',
+    cell: ({ row }) => <span className="whitespace-nowrap">{row.original.liquidLot || '—'}</span>,
+  },
   { id: 'notes', header: 'Instrument notes', accessorKey: 'instrumentNotes' },
 ];
 

@@ -18,14 +18,17 @@ import { useRecordForm } from './use-record-form';
 
 export type { Choice };
 
-const limits = (min: number | null, max: number | null, unit: string, digits = 0) =>
-  min === null && max === null
+/** "≥ 105°", "30–40 mN/m": the degree sign sits on its number, other units after a space. */
+const limits = (min: number | null, max: number | null, unit: string, digits = 0) => {
+  const u = unit === '°' ? unit : ` ${unit}`;
+  return min === null && max === null
     ? '—'
     : min !== null && max !== null
-      ? `${fmtNumber(min, digits)}–${fmtNumber(max, digits)} ${unit}`
+      ? `${fmtNumber(min, digits)}–${fmtNumber(max, digits)}${u}`
       : min !== null
-        ? `≥ ${fmtNumber(min, digits)} ${unit}`
-        : `≤ ${fmtNumber(max, digits)} ${unit}`;
+        ? `≥ ${fmtNumber(min, digits)}${u}`
+        : `≤ ${fmtNumber(max, digits)}${u}`;
+};
 
 /** A coating's specs; admins edit and archive them in place. */
 export function SpecsPanel({

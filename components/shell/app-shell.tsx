@@ -50,7 +50,7 @@ export function AppShell({ ctx, children }: { ctx: OrgContext; children: React.R
         </nav>
         <SignOutButton className="hidden px-4 py-4 md:block" />
       </aside>
-      <main id="main" className="flex-1 px-4 py-6 md:px-10 md:py-8">
+      <main id="main" className="min-w-0 flex-1 px-4 py-6 md:px-10 md:py-8">
         {children}
         <SignOutButton className="mt-10 md:hidden" />
       </main>

@@ -190,7 +190,10 @@ export function EnvelopeChart({ envelope }: { envelope: EnvelopePlot }) {
           {envelope.liquids
             .map((l) => `${l.name} (γd ${l.gammaDispersive}, γp ${l.gammaPolar} mN/m)`)
             .join('; ')}
-          . A liquid inside the curve wets the surface at less than {envelope.angleDeg}°.
+          .{' '}
+          {envelope.angleDeg === 0
+            ? 'A liquid whose point lies inside the curve spreads completely on the surface (θ = 0°); one outside it stands as a drop.'
+            : `A liquid whose point lies inside the curve wets the surface with a contact angle below ${envelope.angleDeg}°; one outside it stands at a larger angle.`}
         </>
       }
     />

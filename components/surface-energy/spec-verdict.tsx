@@ -1,5 +1,7 @@
-import type { SubjectSummary } from '@/lib/contracts/surface-energy';
+import { useSurfaceEnergyCalculation } from '@/components/data/resources';
+import type { SpecWindow, SubjectSummary } from '@/lib/contracts/surface-energy';
 import { fmt } from '@/components/ui/format';
+import type { MethodChoice } from './use-surface-energy';
 import { headlineTotal, type SurfaceEnergyOutputs } from '@/lib/surface-energy/compute';
 
 type Spec = SubjectSummary['surfaceEnergySpecs'][number];
@@ -30,56 +32,96 @@ const limitsText = (spec: Pick<Spec, 'min' | 'max'>) =>
 export function SpecVerdict({
   coatingCode,
   specs,
+  windows,
+  choice,
   outputs,
 }: {
   coatingCode: string;
   specs: Spec[];
+  /** Specs with an age window: the drops that count for them (the compare page's rule). */
+  windows: SpecWindow[];
+  choice: MethodChoice;
   outputs: SurfaceEnergyOutputs;
 }) {
   if (specs.length === 0) return null;
-  const headline = headlineTotal(outputs);
-  const total = headline?.components.gammaTotal;
   return (
     <section className="card" aria-label="Spec check">
       <h2 className="mb-2">Spec check — {coatingCode}</h2>
       {specs.map((spec) => {
-        const limits = limitsText(spec);
-        if (!headline || !total) {
-          return (
-            <p key={spec.id} className="text-sm text-ink-700">
-              Surface free energy {limits} mN/m: no total to compare yet (choose OWRK, Wu or
-              acid–base with enough liquids).
-            </p>
-          );
-        }
-        const { meets, nearLimit } = judgeTotal(spec, total);
-        return (
-          <p
-            key={spec.id}
-            data-testid="spec-verdict"
-            className={`rounded-md px-3 py-2 text-sm ${meets ? 'bg-leaf-50 text-leaf-900' : 'bg-coral-50 text-coral-900'}`}
-          >
-            <strong>{meets ? 'Meets' : 'Does not meet'}</strong> the spec surface free energy{' '}
-            {limits} mN/m: {headline.label} total {fmt(total.value)} ±{' '}
-            {fmt(total.standardUncertainty)} mN/m.
-            {nearLimit
-              ? ' The limit lies within two standard uncertainties of the result; confirm with more drops.'
-              : ''}
-            {spec.maxDaysSinceTreatment !== null ? (
-              <span className="mt-1 block text-xs" data-testid="spec-window">
-                The spec counts only drops measured within {spec.maxDaysSinceTreatment} days of
-                treatment; this page uses every drop shown above, the compare page applies the
-                window.
-              </span>
-            ) : null}
-          </p>
+        const window = windows.find((w) => w.specId === spec.id);
+        return window && window.excluded > 0 ? (
+          <WindowedSpecLine key={spec.id} spec={spec} window={window} choice={choice} />
+        ) : (
+          <SpecLine key={spec.id} spec={spec} window={window} outputs={outputs} />
         );
       })}
-      <p className="mt-2 text-xs text-ink-600">
-        Results that release product for safety-relevant uses (medical, food contact, structural
-        bonding) must follow the lab’s validated procedure and applicable standards, with qualified
-        sign-off; this check supports that procedure and does not replace it.
-      </p>
     </section>
+  );
+}
+
+/**
+ * A spec whose age window leaves drops out: its total is computed from the drops that count,
+ * with the methods chosen on the page.
+ */
+function WindowedSpecLine({
+  spec,
+  window,
+  choice,
+}: {
+  spec: Spec;
+  window: SpecWindow;
+  choice: MethodChoice;
+}) {
+  const calculation = useSurfaceEnergyCalculation(
+    choice.methods.length > 0 && window.liquids.length > 0
+      ? { liquids: window.liquids, methods: choice.methods, uncertaintyBasis: choice.basis }
+      : null,
+    window.outputs,
+  );
+  return <SpecLine spec={spec} window={window} outputs={calculation.outputs ?? window.outputs} />;
+}
+
+function SpecLine({
+  spec,
+  window,
+  outputs,
+}: {
+  spec: Spec;
+  window: SpecWindow | undefined;
+  outputs: SurfaceEnergyOutputs;
+}) {
+  const limits = limitsText(spec);
+  const headline = headlineTotal(outputs);
+  const total = headline?.components.gammaTotal;
+  const windowNote = window ? (
+    <span className="mt-1 block text-xs" data-testid="spec-window">
+      Only drops measured within {window.maxDaysSinceTreatment} days of treatment count for this
+      spec, as on the compare page: {window.counted} of {window.counted + window.excluded}{' '}
+      {window.counted + window.excluded === 1 ? 'drop' : 'drops'}.
+    </span>
+  ) : null;
+  if (!headline || !total) {
+    return (
+      <p data-testid="spec-verdict" className="text-sm text-ink-700">
+        Surface free energy {limits} mN/m: no total to compare
+        {window && window.excluded > 0 ? ' from the drops within the window' : ' yet'} (choose OWRK,
+        Wu or acid–base with enough liquids).
+        {windowNote}
+      </p>
+    );
+  }
+  const { meets, nearLimit } = judgeTotal(spec, total);
+  return (
+    <p
+      data-testid="spec-verdict"
+      className={`rounded-md px-3 py-2 text-sm ${meets ? 'bg-leaf-50 text-leaf-900' : 'bg-coral-50 text-coral-900'}`}
+    >
+      <strong>{meets ? 'Meets' : 'Does not meet'}</strong> the spec surface free energy {limits}{' '}
+      mN/m: {headline.label} total {fmt(total.value)} ± {fmt(total.standardUncertainty)} mN/m.
+      {nearLimit
+        ? ' The limit lies within two standard uncertainties of the result; confirm with more drops.'
+        : ''}
+      {windowNote}
+    </p>
   );
 }

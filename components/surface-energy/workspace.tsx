@@ -1,6 +1,6 @@
 'use client';
 
-import type { AngleTableRow, SubjectSummary } from '@/lib/contracts/surface-energy';
+import type { AngleTableRow, SpecWindow, SubjectSummary } from '@/lib/contracts/surface-energy';
 import type { SavedSurfaceEnergy } from '@/components/data/resources';
 import type {
   LiquidAngle,
@@ -29,6 +29,7 @@ export function SurfaceEnergyWorkspace({
   subject,
   angleTable,
   liquids,
+  specWindows,
   availability,
   initialOutputs,
   initialSaved,
@@ -38,6 +39,7 @@ export function SurfaceEnergyWorkspace({
   subject: Serialized<SubjectSummary>;
   angleTable: AngleTableRow[];
   liquids: LiquidAngle[];
+  specWindows: SpecWindow[];
   availability: MethodAvailability[];
   initialOutputs: SurfaceEnergyOutputs | null;
   initialSaved: SavedResult[];
@@ -118,6 +120,8 @@ export function SurfaceEnergyWorkspace({
           <SpecVerdict
             coatingCode={subject.coatingCode}
             specs={subject.surfaceEnergySpecs}
+            windows={specWindows}
+            choice={data.choice}
             outputs={outputs}
           />
 

@@ -1,5 +1,6 @@
 import type { SavedTensiometry } from '@/components/data/resources';
 import { fmt } from '@/components/ui/format';
+import { FLAG_TEXT } from './labels';
 
 const KIND_LABELS: Record<string, string> = {
   'wilhelmy-tension': 'Wilhelmy, surface tension',
@@ -12,7 +13,7 @@ const KIND_LABELS: Record<string, string> = {
 export function summary(r: SavedTensiometry): string {
   const o: Record<string, unknown> = { ...r.outputs };
   if (r.kind === 'water-check')
-    return `${fmt(Number(o.measuredMilliNewtonPerM), 2)} vs ${fmt(Number(o.referenceMilliNewtonPerM), 2)} mN/m — ${String(o.flag)}`;
+    return `${fmt(Number(o.measuredMilliNewtonPerM), 2)} vs ${fmt(Number(o.referenceMilliNewtonPerM), 2)} mN/m — ${FLAG_TEXT[o.flag as keyof typeof FLAG_TEXT]?.label ?? String(o.flag)}`;
   if (r.kind === 'wilhelmy-angle') return `θ = ${fmt(Number(o.contactAngleDeg), 1)}°`;
   if (r.kind === 'wilhelmy-tension' || r.kind === 'pendant-drop')
     return `γ = ${fmt(Number(o.surfaceTensionMilliNewtonPerM), 2)} mN/m`;

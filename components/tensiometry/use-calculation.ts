@@ -1,6 +1,6 @@
 'use client';
 
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import type { SavedTensiometry } from '@/components/data/resources';
 import { useMutation } from '@/components/data/use-mutation';
 
@@ -44,13 +44,19 @@ export function useCalculation<Field extends string, Reply extends { saved?: Sav
   const mutation = useMutation<Reply>({ fields: [...Object.keys(initial), 'photoId'] });
   const [reply, setReply] = useState<Reply | null>(null);
 
+  // Bumped by `clear`: an answer to a request sent before it (another mode) is not shown.
+  const generation = useRef(0);
+
   async function submit(body: Record<string, unknown>) {
+    const sentIn = generation.current;
     const outcome = await mutation.run(url, { method: 'POST', json: body });
-    setReply(outcome.ok ? outcome.data : null);
     if (outcome.ok && outcome.data.saved) onSaved?.(outcome.data.saved);
+    if (sentIn !== generation.current) return;
+    setReply(outcome.ok ? outcome.data : null);
   }
 
   function clear() {
+    generation.current += 1;
     setReply(null);
     mutation.reset();
   }

@@ -5,19 +5,9 @@ import { DefinitionList } from '@/components/ui/definition-list';
 import { fmt } from '@/components/ui/format';
 import type { ProbeLiquidCheck } from '@/lib/tensiometry';
 import { CalculationForm, NumberInputs, type NumberInput } from './calculation-form';
+import { FLAG_TEXT } from './labels';
 import { toNumbers, useCalculation } from './use-calculation';
 
-const FLAG_TEXT: Record<ProbeLiquidCheck['flag'], { label: string; tone: string }> = {
-  'within-tolerance': { label: 'Within tolerance', tone: 'bg-leaf-50 text-leaf-900' },
-  'low-likely-contamination': {
-    label: 'Low — likely contaminated',
-    tone: 'bg-coral-50 text-coral-900',
-  },
-  'high-check-instrument': {
-    label: 'High — check the instrument',
-    tone: 'bg-amber-50 text-amber-900',
-  },
-};
 
 type Field = 'measuredMilliNewtonPerM' | 'temperatureC' | 'toleranceMilliNewtonPerM';
 

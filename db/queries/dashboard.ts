@@ -59,14 +59,13 @@ export async function recentDrops(
   }));
 }
 
-/** Drops whose latest analysis is submitted for review. */
+/** Review requests (submitted results of a batch or sample) waiting for a decision. */
 export async function pendingReviewCount(organizationId: string): Promise<number> {
   const [row] = await getDb().execute<{ n: number | string }>(sql`
     select count(*) as n
-    from analyses a
-    where a.organization_id = ${organizationId}
-      and a.review_status = 'submitted'
-      and a.revision = (select max(x.revision) from analyses x where x.drop_id = a.drop_id)
+    from reviews r
+    where r.organization_id = ${organizationId}
+      and r.status = 'submitted'
   `);
   return Number(row?.n ?? 0);
 }

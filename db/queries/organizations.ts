@@ -1,5 +1,5 @@
 import 'server-only';
-import { and, asc, eq, sql } from 'drizzle-orm';
+import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import type { Member, MembershipSummary } from '@/lib/contracts/team';
 import { memberships, organizations, sessions, users, type Role } from '../schema';
 import { slugify } from './ids';
@@ -56,6 +56,17 @@ export async function listMembers(organizationId: string): Promise<Member[]> {
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(eq(memberships.organizationId, organizationId))
+    .orderBy(asc(users.name));
+}
+
+/** The members of the organization who hold one of `roles`, with their name and e-mail. */
+export async function listMembersWithRoles(db: Executor, organizationId: string, roles: Role[]) {
+  if (roles.length === 0) return [];
+  return db
+    .select({ userId: users.id, name: users.name, email: users.email })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.organizationId, organizationId), inArray(memberships.role, roles)))
     .orderBy(asc(users.name));
 }
 

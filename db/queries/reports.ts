@@ -1,8 +1,18 @@
 import 'server-only';
 import { dynamicLimitColumns } from './comparison';
 import { and, desc, eq, isNull, sql } from 'drizzle-orm';
-import { analyses, drops, probeLiquids, reviews, samples, specs, users } from '../schema';
-import { database } from './transaction';
+import {
+  analyses,
+  certificates,
+  drops,
+  measurementSessions,
+  probeLiquids,
+  reviews,
+  samples,
+  specs,
+  users,
+} from '../schema';
+import { database, type Executor } from './transaction';
 
 /*
  * What the certificate of analysis of a batch reads besides the comparison (db/queries/comparison).
@@ -41,14 +51,6 @@ export async function listSamplesWithDropCounts(batchId: string) {
     .where(and(eq(samples.batchId, batchId), isNull(samples.archivedAt)))
     .groupBy(samples.id)
     .orderBy(samples.label);
-}
-
-/** Every probe liquid's hazard note, by id. */
-export async function probeLiquidHazards(): Promise<Map<string, string | null>> {
-  const rows = await database()
-    .select({ id: probeLiquids.id, hazardNote: probeLiquids.hazardNote })
-    .from(probeLiquids);
-  return new Map(rows.map((l) => [l.id, l.hazardNote]));
 }
 
 /** A drop's photo with its latest analysis (method, baseline, revision). */
@@ -96,4 +98,77 @@ export async function methodsUsedInBatch(batchId: string): Promise<string[]> {
     .innerJoin(samples, eq(samples.id, drops.sampleId))
     .where(eq(samples.batchId, batchId));
   return rows.map((m) => m.method);
+}
+
+/**
+ * The measurement sessions of the batch's live drops, per probe liquid: operator, conditions,
+ * instrument, liquid lot, and the first and last measurement of the liquid's drops in it.
+ */
+export async function sessionsOfBatch(batchId: string) {
+  return database()
+    .select({
+      liquidName: probeLiquids.name,
+      operatorName: measurementSessions.operatorName,
+      temperatureC: measurementSessions.temperatureC,
+      humidityPct: measurementSessions.humidityPct,
+      dropVolumeUl: measurementSessions.dropVolumeUl,
+      instrumentNotes: measurementSessions.instrumentNotes,
+      liquidLot: measurementSessions.liquidLot,
+      firstMeasuredAt: sql<Date>`min(${drops.measuredAt})`.mapWith((v: string | Date) => new Date(v)),
+      lastMeasuredAt: sql<Date>`max(${drops.measuredAt})`.mapWith((v: string | Date) => new Date(v)),
+      dropCount: sql<number>`count(${drops.id})::int`,
+    })
+    .from(drops)
+    .innerJoin(samples, eq(samples.id, drops.sampleId))
+    .innerJoin(probeLiquids, eq(probeLiquids.id, drops.probeLiquidId))
+    .leftJoin(measurementSessions, eq(measurementSessions.id, drops.sessionId))
+    .where(and(eq(samples.batchId, batchId), isNull(drops.archivedAt), isNull(samples.archivedAt)))
+    .groupBy(probeLiquids.name, measurementSessions.id)
+    .orderBy(probeLiquids.name, sql`min(${drops.measuredAt})`);
+}
+
+/** The batch's newest whole-batch review of any status, with who decided it. */
+export async function latestBatchReview(batchId: string) {
+  const [review] = await database()
+    .select({
+      status: reviews.status,
+      reviewerName: users.name,
+      decidedAt: reviews.decidedAt,
+      signature: reviews.signature,
+      comment: reviews.decisionComment,
+      analysisIds: reviews.analysisIds,
+    })
+    .from(reviews)
+    .leftJoin(users, eq(users.id, reviews.decidedByUserId))
+    .where(and(eq(reviews.batchId, batchId), eq(reviews.scope, 'batch')))
+    .orderBy(desc(reviews.submittedAt))
+    .limit(1);
+  return review ?? null;
+}
+
+/** The stored certificate of a batch for an audience and fingerprint, or null. */
+export async function findCertificate(
+  batchId: string,
+  audience: 'all' | 'approved',
+  fingerprint: string,
+) {
+  const [row] = await database()
+    .select()
+    .from(certificates)
+    .where(
+      and(
+        eq(certificates.batchId, batchId),
+        eq(certificates.audience, audience),
+        eq(certificates.fingerprint, fingerprint),
+      ),
+    );
+  return row ?? null;
+}
+
+/** Stores a built certificate; a second build of the same fingerprint keeps the first. */
+export async function insertCertificate(
+  db: Executor,
+  row: typeof certificates.$inferInsert,
+): Promise<void> {
+  await db.insert(certificates).values(row).onConflictDoNothing();
 }

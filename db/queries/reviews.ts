@@ -8,6 +8,7 @@ import {
   batches,
   coatings,
   drops,
+  photos,
   probeLiquids,
   reviewItems,
   reviews,
@@ -173,7 +174,7 @@ export async function decideIfSubmitted(
 /** A sample that belongs to the batch, or null. */
 export async function findSampleOfBatch(organizationId: string, batchId: string, sampleId: string) {
   const [row] = await getDb()
-    .select({ id: samples.id })
+    .select({ id: samples.id, label: samples.label })
     .from(samples)
     .where(
       and(
@@ -273,4 +274,23 @@ export async function listBatchesWithResults(organizationId: string) {
     .innerJoin(drops, eq(drops.sampleId, samples.id))
     .where(and(eq(batches.organizationId, organizationId), isNull(batches.archivedAt)))
     .orderBy(coatings.code, desc(batches.producedOn));
+}
+
+/** The stored geometry of analysis revisions with their drop's photo size, for the review page. */
+export async function analysesWithPhotos(organizationId: string, analysisIds: string[]) {
+  if (analysisIds.length === 0) return [];
+  return getDb()
+    .select({
+      analysisId: analyses.id,
+      dropId: analyses.dropId,
+      result: analyses.result,
+      photoId: photos.id,
+      photoWidth: photos.width,
+      photoHeight: photos.height,
+      photoName: photos.originalName,
+    })
+    .from(analyses)
+    .innerJoin(drops, eq(drops.id, analyses.dropId))
+    .leftJoin(photos, eq(photos.id, drops.photoId))
+    .where(and(eq(analyses.organizationId, organizationId), inArray(analyses.id, analysisIds)));
 }

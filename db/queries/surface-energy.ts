@@ -93,7 +93,8 @@ export async function findSurfaceEnergySubject(
 
 /**
  * Every live drop of a sample (or of every live sample of a batch) by its latest analysis (max
- * revision), with its probe liquid, as `visibility` allows.
+ * revision), with its probe liquid, when it was measured and when its sample was treated, as
+ * `visibility` allows.
  */
 export async function listLatestDropAngles(
   organizationId: string,
@@ -121,9 +122,12 @@ export async function listLatestDropAngles(
     .select({
       analysisId: analyses.id,
       meanDeg: analyses.meanDeg,
+      measuredAt: drops.measuredAt,
+      treatedAt: samples.treatedAt,
       liquid: probeLiquids,
     })
     .from(drops)
+    .innerJoin(samples, eq(samples.id, drops.sampleId))
     .innerJoin(latest, eq(latest.dropId, drops.id))
     .innerJoin(
       analyses,

@@ -28,8 +28,10 @@ import type {
 import { overall } from './outcome';
 import { compareDynamic } from './dynamic';
 import { compareSurfaceEnergy } from './surface-energy';
+import { ageInDays, countsInWindow } from './window';
 
-const DAY_MS = 86_400_000;
+export { ageInDays, countsInWindow };
+
 export const WATER_LIQUID_ID = 'liquid-water';
 export const OUTLIER_RULE =
   "Tukey's fences (k = 1.5): a drop outside [Q1 − 1.5·IQR, Q3 + 1.5·IQR] of its batch is flagged, never removed";
@@ -39,12 +41,6 @@ export const ANGLE_BASIS =
 /** p-value in words: three decimals, or "p < 0.001". */
 export function formatP(p: number): string {
   return p < 0.001 ? 'p < 0.001' : `p = ${p.toFixed(3)}`;
-}
-
-/** Days from treatment to measurement; null when the sample has no treatment time. */
-export function ageInDays(measuredAt: string, treatedAt: string | null): number | null {
-  if (!treatedAt) return null;
-  return (Date.parse(measuredAt) - Date.parse(treatedAt)) / DAY_MS;
 }
 
 /** Production order: oldest first, ties by lot code. */
@@ -58,10 +54,9 @@ function plural(n: number, word: string): string {
   return `${n} ${word}${n === 1 ? '' : 's'}`;
 }
 
-/** Does a drop count for a spec with an age window? Drops without a treatment time do not. */
+/** Does a drop count for a spec with an age window? */
 function countsFor(spec: ComparisonSpecInput, drop: DropPoint): boolean {
-  if (spec.maxDaysSinceTreatment === null) return true;
-  return drop.ageDays !== null && drop.ageDays <= spec.maxDaysSinceTreatment;
+  return countsInWindow(spec.maxDaysSinceTreatment, drop.ageDays);
 }
 
 function judgeSpec(

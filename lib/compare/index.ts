@@ -5,6 +5,7 @@ export {
   WATER_LIQUID_ID,
   ageInDays,
   batchesOutOfSpec,
+  countsInWindow,
   buildComparison,
   formatP,
   productionOrder,

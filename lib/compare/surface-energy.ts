@@ -15,6 +15,7 @@ import type {
   SurfaceEnergyComparison,
   SurfaceEnergyValue,
 } from './types';
+import { countsInWindow } from './window';
 import { overall } from './outcome';
 
 /*
@@ -50,13 +51,8 @@ function isSplit(liquid: ComparisonLiquidInput): liquid is SplitLiquid {
 /** Specs of the coating that set a surface-energy limit. */
 export function surfaceEnergySpecs(specs: readonly ComparisonSpecInput[]): ComparisonSpecInput[] {
   return specs.filter(
-    (s) =>
-      (s.minSurfaceEnergyMnM ?? null) !== null || (s.maxSurfaceEnergyMnM ?? null) !== null,
+    (s) => (s.minSurfaceEnergyMnM ?? null) !== null || (s.maxSurfaceEnergyMnM ?? null) !== null,
   );
-}
-
-function inWindow(maxDays: number | null, drop: DropPoint): boolean {
-  return maxDays === null || (drop.ageDays !== null && drop.ageDays <= maxDays);
 }
 
 /**
@@ -69,7 +65,9 @@ function batchValue(
   liquids: ReadonlyMap<string, SplitLiquid>,
   maxDays: number | null,
 ): SurfaceEnergyValue {
-  const counted = drops.filter((d) => liquids.has(d.probeLiquidId) && inWindow(maxDays, d));
+  const counted = drops.filter(
+    (d) => liquids.has(d.probeLiquidId) && countsInWindow(maxDays, d.ageDays),
+  );
   const excluded = drops.filter((d) => liquids.has(d.probeLiquidId)).length - counted.length;
   const byLiquid = new Map<string, number[]>();
   for (const d of counted) {
@@ -141,8 +139,10 @@ function limitWords(spec: ComparisonSpecInput): string {
 /** The limit line label, e.g. "≥ 38 mN/m, ≤ 7 d". */
 export function surfaceEnergyLimitLabel(spec: ComparisonSpecInput): string {
   const parts: string[] = [];
-  if ((spec.minSurfaceEnergyMnM ?? null) !== null) parts.push(`≥ ${mnm(spec.minSurfaceEnergyMnM as number)}`);
-  if ((spec.maxSurfaceEnergyMnM ?? null) !== null) parts.push(`≤ ${mnm(spec.maxSurfaceEnergyMnM as number)}`);
+  if ((spec.minSurfaceEnergyMnM ?? null) !== null)
+    parts.push(`≥ ${mnm(spec.minSurfaceEnergyMnM as number)}`);
+  if ((spec.maxSurfaceEnergyMnM ?? null) !== null)
+    parts.push(`≤ ${mnm(spec.maxSurfaceEnergyMnM as number)}`);
   const window = spec.maxDaysSinceTreatment !== null ? `, ≤ ${spec.maxDaysSinceTreatment} d` : '';
   return `${parts.join(' and ')}${window}`;
 }
@@ -169,7 +169,11 @@ function judge(
       ? ` ${value.excluded} drop${value.excluded === 1 ? '' : 's'} outside the ${spec.maxDaysSinceTreatment}-day window did not count.`
       : '';
   if (!value.total) {
-    return { ...base, outcome: 'not-enough-data', reason: `No surface free energy: ${value.note}${later}` };
+    return {
+      ...base,
+      outcome: 'not-enough-data',
+      reason: `No surface free energy: ${value.note}${later}`,
+    };
   }
   const few = value.liquids.filter((l) => l.n < minDrops);
   if (few.length > 0) {
@@ -199,7 +203,11 @@ function judge(
         : min !== null
           ? `${shown} meets the minimum of ${mnm(min)}.`
           : `${shown} meets the maximum of ${mnm(max as number)}.`;
-  return { ...base, outcome: below || above ? 'fail' : 'pass', reason: `${reason}${caution}${later}` };
+  return {
+    ...base,
+    outcome: below || above ? 'fail' : 'pass',
+    reason: `${reason}${caution}${later}`,
+  };
 }
 
 /**

@@ -27,3 +27,15 @@ export const outOfSpecBatchSchema = z.object({
   reason: z.string(),
 });
 export type OutOfSpecBatch = z.output<typeof outOfSpecBatchSchema>;
+
+/** The dashboard's review requests waiting for a decision: how many, and the newest to open. */
+export type PendingReviewRequests = {
+  count: number;
+  newest: {
+    id: string;
+    title: string;
+    submittedBy: string | null;
+    submittedAt: Date;
+    analysisCount: number;
+  }[];
+};

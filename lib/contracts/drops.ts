@@ -31,6 +31,21 @@ const _everyMethod: Exclude<FitMethod, (typeof FIT_METHOD_VALUES)[number]> exten
 export const ANALYSIS_METHODS = [...FIT_METHOD_VALUES, 'manual'] as const;
 export type AnalysisMethod = (typeof ANALYSIS_METHODS)[number];
 
+/** How each analysis method is named on screen and in documents. */
+export const ANALYSIS_METHOD_NAMES: Record<AnalysisMethod, string> = {
+  'young-laplace': 'Young–Laplace',
+  circle: 'Circle',
+  polynomial: 'Polynomial tangent',
+  ellipse: 'Ellipse',
+  'height-width': 'Height–width',
+  manual: 'Read by hand',
+};
+
+/** The on-screen name of a stored method; an unknown one is shown as stored. */
+export function analysisMethodName(method: string): string {
+  return (ANALYSIS_METHOD_NAMES as Record<string, string>)[method] ?? method;
+}
+
 export const fitMethodSchema = z.enum(FIT_METHOD_VALUES, {
   error: `Choose a method: ${FIT_METHODS.join(', ')}.`,
 });

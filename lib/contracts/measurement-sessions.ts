@@ -48,11 +48,13 @@ const measurementSessionShape = {
       'Enter the camera scale in pixels per mm, above 0 (from the calibration target or the needle), or leave it empty.',
   }),
   instrumentNotes: text(4000),
+  liquidLot: text(200),
 };
 
 export const measurementSessionCreateSchema = z.object({
   ...measurementSessionShape,
   instrumentNotes: measurementSessionShape.instrumentNotes.optional(),
+  liquidLot: measurementSessionShape.liquidLot.optional(),
 });
 export const measurementSessionUpdateSchema = updateSchema(measurementSessionShape);
 export type MeasurementSessionCreate = z.output<typeof measurementSessionCreateSchema>;
@@ -80,6 +82,7 @@ export const measurementSessionSchema = z.object({
   dropVolumeUl: z.number().nullable(),
   scalePxPerMm: z.number().nullable(),
   instrumentNotes: z.string(),
+  liquidLot: z.string(),
   createdByUserId: id.nullable(),
 });
 export type MeasurementSession = z.output<typeof measurementSessionSchema>;

@@ -109,3 +109,14 @@ export const revokeReviewSchema = z.object({
 export type RevokeReview = z.output<typeof revokeReviewSchema>;
 
 export const revokeReviewResponseSchema = z.object({ status: z.literal('revoked') });
+/** What the review page draws over a drop's photo: its analysis's stored geometry (null: no photo). */
+export type ReviewDropOverlay = {
+  photoId: string;
+  photoName: string;
+  width: number;
+  height: number;
+  baseline: { x1: number; y1: number; x2: number; y2: number };
+  contactLeft: [number, number];
+  contactRight: [number, number];
+  heightPx: number;
+} | null;

@@ -209,11 +209,27 @@ export const surfaceEnergyCalculationSchema = z.object({
 });
 export type SurfaceEnergyCalculation = z.output<typeof surfaceEnergyCalculationSchema>;
 
+/**
+ * A surface-energy spec with an age window (days since treatment): the drops that count for it
+ * (lib/compare/window.ts, the compare page's rule), as liquids, and what they compute to.
+ */
+export const specWindowSchema = z.object({
+  specId: z.string(),
+  maxDaysSinceTreatment: z.number(),
+  /** Drops that count, and drops outside the window (or on a sample without a treatment time). */
+  counted: z.number().int(),
+  excluded: z.number().int(),
+  liquids: z.array(liquidAngleSchema),
+  outputs: z.custom<SurfaceEnergyOutputs>(),
+});
+export type SpecWindow = z.output<typeof specWindowSchema>;
+
 /** An evaluation of a sample or batch: its angle table and what it computes to. */
 export type SurfaceEnergyEvaluation = SurfaceEnergyCalculation & {
   subject: SubjectSummary;
   angleTable: AngleTableRow[];
   liquids: LiquidAngle[];
+  specWindows: SpecWindow[];
   readAll: boolean;
 };
 
@@ -221,6 +237,7 @@ export type SurfaceEnergyEvaluation = SurfaceEnergyCalculation & {
 export const surfaceEnergyReplySchema = surfaceEnergyCalculationSchema.extend({
   subject: subjectSummarySchema,
   angleTable: z.array(angleTableRowSchema),
+  specWindows: z.array(specWindowSchema),
   readAll: z.boolean(),
   options: sampleSurfaceEnergySchema,
   saved: z.array(savedSurfaceEnergyResultSchema),

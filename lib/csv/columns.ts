@@ -107,5 +107,6 @@ export const measurementSessionColumns: CsvColumn<MeasurementSessionListItem>[] 
   { header: 'Drop volume (µL)', value: (s) => s.dropVolumeUl },
   { header: 'Scale (px/mm)', value: (s) => s.scalePxPerMm },
   { header: 'Instrument notes', value: (s) => s.instrumentNotes },
+  { header: 'Liquid lot', value: (s) => s.liquidLot },
   { header: 'Id', value: (s) => s.id },
 ];

@@ -36,3 +36,28 @@ export function reviewOutcomeMail(input: {
     footer: 'You get this mail because you submitted these results for review in Beadline.',
   });
 }
+
+/** The mail that asks a reviewer to look at newly submitted results (queued by server/reviews/submit.ts). */
+export function reviewRequestMail(input: {
+  to: { email: string; name: string | null };
+  organizationName: string;
+  submitterName: string;
+  analysisCount: number;
+  note: string;
+  /** What was submitted, e.g. "HT-200 B-0412 / P-01". */
+  subject: string;
+  link: string;
+}): MailMessage {
+  const results = `${input.analysisCount} result${input.analysisCount === 1 ? '' : 's'}`;
+  return noticeMail({
+    to: input.to.email,
+    subject: `Results to review: ${input.subject}`,
+    paragraphs: [
+      `Hello ${input.to.name ?? ''},`.trim(),
+      `${input.submitterName} submitted ${results} of ${input.subject} for review in ${input.organizationName}.`,
+      ...(input.note ? [`Note: ${input.note}`] : []),
+    ],
+    link: { href: input.link, label: 'Open the review' },
+    footer: 'You get this mail because you may approve results in Beadline.',
+  });
+}

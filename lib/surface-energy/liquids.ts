@@ -1,10 +1,12 @@
 import type { LiquidComponents } from './types';
 
-/** Where a probe-liquid value comes from. */
+/**
+ * Where a probe-liquid value comes from: a published work a lab can look up (authors, title,
+ * journal or edition, year, and the table). docs/probe-liquids.md says which values were
+ * cross-checked against a second source and which could not be.
+ */
 export interface ValueSource {
   citation: string;
-  /** True where the value was written down from memory of the commonly cited figure. */
-  fromMemory: boolean;
 }
 
 export interface ProbeLiquid extends LiquidComponents {
@@ -25,25 +27,23 @@ export interface ProbeLiquid extends LiquidComponents {
 
 const STROM_1987: ValueSource = {
   citation:
-    'Ström, Fredriksson & Stenius, J. Colloid Interface Sci. 119 (1987), as commonly cited (20 °C)',
-  fromMemory: true,
+    'Ström, Fredriksson & Stenius, “Contact angles, work of adhesion, and interfacial tensions at a dissolving hydrocarbon surface”, J. Colloid Interface Sci. 119 (1987) 352–361, table of liquid surface-tension components (20 °C)',
 };
 const VAN_OSS_1988: ValueSource = {
-  citation: 'van Oss, Chaudhury & Good, Chem. Rev. 88 (1988), as commonly cited',
-  fromMemory: true,
+  citation:
+    'van Oss, Chaudhury & Good, “Interfacial Lifshitz–van der Waals and polar interactions in macroscopic systems”, Chem. Rev. 88 (1988) 927–941, table of liquid surface-tension components (20 °C)',
 };
 const CRC_DENSITY: ValueSource = {
   citation:
-    'CRC Handbook of Chemistry and Physics, physical constants of organic compounds / water (20 °C)',
-  fromMemory: true,
+    'CRC Handbook of Chemistry and Physics, tables “Physical constants of organic compounds” and “Properties of water in the range 0–100 °C” (20 °C)',
 };
 
 const HARMFUL =
   'Harmful: handle per the supplier’s safety data sheet, with the lab’s protective equipment and ventilation.';
 
 /**
- * Probe-liquid library. Components in mN/m; all values written from memory of the commonly
- * cited figures (see `sources`) — the lab should confirm them against its own references.
+ * Probe-liquid library. Components in mN/m at 20 °C, each group with its published source (see
+ * `sources`; docs/probe-liquids.md says how far each was cross-checked).
  * Internal consistency (checked in the tests): total = dispersive + polar, and
  * total = γLW + 2√(γ+γ−) to within 0.1 mN/m.
  */

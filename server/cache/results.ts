@@ -5,7 +5,7 @@ import type { ResultVisibility } from '../visibility';
 /*
  * Results computed from an organization's lab data (comparisons, the dashboard's lists), kept in
  * this process under the organization's data version. Every change to that data commits a new
- * version (migration 0017, in the writing transaction, from any web instance), so an entry is
+ * version (migration 0018, in the writing transaction, from any web instance), so an entry is
  * served only while the data it was computed from is unchanged; the first request after a change
  * computes afresh. The visibility of the asking role is part of every key: a viewer's request
  * never reads what was computed for a role that sees drafts.

@@ -2,9 +2,10 @@ import 'server-only';
 import { emailVerifiedAt } from '@/db/queries/account-tokens';
 import { listComparisonCoatings, loadComparison } from '@/db/queries/comparison';
 import { pendingReviewCount, recentDrops } from '@/db/queries/dashboard';
+import { listReviews } from '@/db/queries/reviews';
 import type { OrgContext } from '@/lib/auth/context';
 import { batchesOutOfSpec, buildComparison } from '@/lib/compare';
-import type { OutOfSpecBatch } from '@/lib/contracts/dashboard';
+import type { OutOfSpecBatch, PendingReviewRequests } from '@/lib/contracts/dashboard';
 import { resultCache } from '../cache/results';
 import { resultVisibility, type ResultVisibility } from '../visibility';
 
@@ -43,9 +44,27 @@ async function computeOutOfSpecBatches(
   return perCoating.flat().sort((a, b) => b.producedOn.localeCompare(a.producedOn));
 }
 
+/** The review requests waiting for a decision: how many, and the newest five to link to. */
+async function pendingReviewRequests(organizationId: string): Promise<PendingReviewRequests> {
+  const [count, newest] = await Promise.all([
+    pendingReviewCount(organizationId),
+    listReviews(organizationId, 'submitted'),
+  ]);
+  return {
+    count,
+    newest: newest.slice(0, 5).map((r) => ({
+      id: r.id,
+      title: `${r.coatingCode} · ${r.lotCode}${r.sampleLabel ? ` / ${r.sampleLabel}` : ''}`,
+      submittedBy: r.submittedBy,
+      submittedAt: r.submittedAt,
+      analysisCount: r.analysisIds.length,
+    })),
+  };
+}
+
 /**
  * The dashboard: recent drops, batches out of spec (approved results only for those who may not
- * read every result), results waiting for review, and whether the address is confirmed.
+ * read every result), review requests waiting for a decision, and whether the address is confirmed.
  */
 export async function loadDashboard(ctx: OrgContext) {
   const organizationId = ctx.organization.id;
@@ -55,7 +74,7 @@ export async function loadDashboard(ctx: OrgContext) {
     emailVerifiedAt(ctx.user.id),
     recentDrops(organizationId, { visibility }),
     outOfSpecBatches(organizationId, { visibility }),
-    approvedOnly ? Promise.resolve(null) : pendingReviewCount(organizationId),
+    approvedOnly ? Promise.resolve(null) : pendingReviewRequests(organizationId),
   ]);
   return { emailVerified: verified !== null, approvedOnly, drops, outOfSpec, pending };
 }

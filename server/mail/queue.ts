@@ -22,14 +22,16 @@ export type MailJob = MailMessage & { kind: string };
 
 const globalForQueue = globalThis as typeof globalThis & {
   beadlineBoss?: Promise<PgBoss>;
-  beadlineQueues?: Set<string>;
 };
+
+/** Per queue client: the queues it knows exist, and the tail of its queue creations. */
+const clientQueues = new WeakMap<PgBoss, { known: Set<string>; creating: Promise<unknown> }>();
 
 function createBoss(): Promise<PgBoss> {
   const boss = new PgBoss({
     connectionString: databaseUrl(),
     max: 3,
-    application_name: 'beadline-mail',
+    application_name: 'beadline-jobs',
     // A queued mail holds its link; delivered ones leave the queue's tables soon.
     archiveCompletedAfterSeconds: 300,
     deleteAfterHours: 1,
@@ -47,18 +49,49 @@ export async function getBoss(): Promise<PgBoss> {
   return globalForQueue.beadlineBoss;
 }
 
-/** Creates `name` once per process (another process may have created it first). */
-export async function ensureQueue(boss: PgBoss, name: string): Promise<void> {
-  const known = (globalForQueue.beadlineQueues ??= new Set());
-  if (known.has(name)) return;
-  if (!(await boss.getQueue(name))) {
+/**
+ * Creates `name` once per queue client (another client or process may have created it first).
+ * `options` for a queue other than mail's (its policy, retries, expiry).
+ *
+ * pg-boss's create_queue alters tables shared by every queue, so two creations at once can
+ * deadlock (the mail and certificate workers starting together on a fresh database did, and mail
+ * stayed queued). One client creates its queues one at a time; a deadlock with another process
+ * is retried after a short random pause.
+ */
+export async function ensureQueue(
+  boss: PgBoss,
+  name: string,
+  options: Partial<Omit<PgBoss.Queue, 'name'>> = {},
+): Promise<void> {
+  let state = clientQueues.get(boss);
+  if (!state) clientQueues.set(boss, (state = { known: new Set(), creating: Promise.resolve() }));
+  if (state.known.has(name)) return;
+  const created = state.creating.then(() => createQueueOnce(boss, name, options));
+  state.creating = created.catch(() => undefined);
+  await created;
+  state.known.add(name);
+}
+
+const DEADLOCK = '40P01';
+const CREATE_ATTEMPTS = 5;
+
+async function createQueueOnce(
+  boss: PgBoss,
+  name: string,
+  options: Partial<Omit<PgBoss.Queue, 'name'>>,
+): Promise<void> {
+  for (let attempt = 1; ; attempt++) {
+    if (await boss.getQueue(name)) return;
     try {
-      await boss.createQueue(name, { name, ...RETRY, expireInSeconds: 120 });
+      await boss.createQueue(name, { name, ...RETRY, expireInSeconds: 120, ...options });
+      return;
     } catch (error) {
-      if (!(await boss.getQueue(name))) throw error;
+      if (await boss.getQueue(name)) return;
+      const deadlock = (error as { code?: unknown } | null)?.code === DEADLOCK;
+      if (!deadlock || attempt >= CREATE_ATTEMPTS) throw error;
+      await new Promise((resolve) => setTimeout(resolve, 20 + Math.random() * 80 * attempt));
     }
   }
-  known.add(name);
 }
 
 /**
@@ -158,6 +191,5 @@ export async function stopMailWorker(id: string): Promise<void> {
 export async function closeMailQueue(): Promise<void> {
   const pending = globalForQueue.beadlineBoss;
   globalForQueue.beadlineBoss = undefined;
-  globalForQueue.beadlineQueues = undefined;
   if (pending) await (await pending).stop({ graceful: false, wait: true }).catch(() => undefined);
 }

@@ -306,6 +306,7 @@ export const measurementSessionRecords = defineRecordKind({
     dropVolumeUl: input.dropVolumeUl,
     scalePxPerMm: input.scalePxPerMm,
     instrumentNotes: input.instrumentNotes ?? '',
+    liquidLot: input.liquidLot ?? '',
     createdByUserId: actor.userId,
   }),
   toUpdate: ({ measuredAt, ...changes }) => ({

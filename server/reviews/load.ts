@@ -6,7 +6,6 @@ import {
   listReviews,
 } from '@/db/queries/reviews';
 import { can, type Role } from '@/lib/auth/permissions';
-import { decidersOfReview } from './deciders';
 
 /** A review with the rows it covers that are still each drop's latest revision. */
 export async function loadReview(organizationId: string, reviewId: string) {
@@ -23,17 +22,6 @@ export async function loadReview(organizationId: string, reviewId: string) {
   };
 }
 export type LoadedReview = NonNullable<Awaited<ReturnType<typeof loadReview>>>;
-
-/**
- * The review page: the review, and who besides its submitter may decide it (four-eyes), so the
- * page can tell the submitter who decides, or a lab with a single reviewer to invite another.
- */
-export async function loadReviewPage(organizationId: string, reviewId: string) {
-  const review = await loadReview(organizationId, reviewId);
-  if (!review) return null;
-  const { others } = await decidersOfReview(organizationId, review.submittedByUserId);
-  return { review, otherDeciders: others };
-}
 
 export { listReviews };
 

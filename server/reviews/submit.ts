@@ -1,7 +1,8 @@
 import 'server-only';
 import { recordAudit } from '@/db/queries/audit';
 import { newId } from '@/db/queries/ids';
-import { findRecord, ownedBy, violatedUniqueConstraint } from '@/db/queries/records';
+import { findBatchWithCoating } from '@/db/queries/batches';
+import { violatedUniqueConstraint } from '@/db/queries/records';
 import {
   findSampleOfBatch,
   insertReview,
@@ -9,29 +10,32 @@ import {
   lockBatchForSubmission,
   setAnalysesReviewStatus,
 } from '@/db/queries/reviews';
-import { database, inTransaction } from '@/db/queries/transaction';
-import { batches } from '@/db/schema';
+import { inTransaction } from '@/db/queries/transaction';
 import { AppError } from '@/lib/app-error';
 import type { SubmitReview } from '@/lib/contracts/reviews';
 import type { Actor } from '../actor';
+import { queueReviewRequestMails } from './notify';
 
 /**
  * Submits the latest new or rejected results of a batch (or one sample of it) for review: the
- * review lists exactly those analysis revisions, which become 'submitted', with an audit row.
+ * review lists exactly those analysis revisions, which become 'submitted', with an audit row and
+ * a mail to each member who may decide it.
  */
 export async function submitForReview(
   actor: Actor,
   input: SubmitReview,
 ): Promise<{ reviewId: string; analysisCount: number }> {
   const sampleId = input.sampleId ?? null;
-  if (
-    !(await findRecord(database(), batches, ownedBy(batches, actor.organizationId), input.batchId))
-  ) {
+  const batch = await findBatchWithCoating(actor.organizationId, input.batchId);
+  if (!batch) {
     throw new AppError('not_found', 'That batch was not found in this organization.', {
       fields: { batchId: 'Choose a batch of this organization.' },
     });
   }
-  if (sampleId && !(await findSampleOfBatch(actor.organizationId, input.batchId, sampleId))) {
+  const sample = sampleId
+    ? await findSampleOfBatch(actor.organizationId, input.batchId, sampleId)
+    : null;
+  if (sampleId && !sample) {
     throw new AppError('not_found', 'That sample is not part of the batch.', {
       fields: { sampleId: 'Choose a sample of this batch.' },
     });
@@ -64,6 +68,16 @@ export async function submitForReview(
         entityType: 'review',
         entityId: reviewId,
         after: { batchId: input.batchId, sampleId, analyses: rows.length, note: input.note },
+      });
+      await queueReviewRequestMails(tx, {
+        organizationId: actor.organizationId,
+        reviewId,
+        submittedByUserId: actor.userId,
+        coatingCode: batch.coatingCode,
+        lotCode: batch.lotCode,
+        sampleLabel: sample?.label ?? null,
+        analysisCount: rows.length,
+        note: input.note,
       });
       return { reviewId, analysisCount: rows.length };
     });

@@ -54,7 +54,12 @@ describe('lab records pages', () => {
     await spec.getByText('Make the maximum angle at least the minimum angle.').waitFor();
     await spec.getByLabel('Max angle (°)').fill('');
     await spec.getByRole('button', { name: 'Add spec' }).click();
-    await page.getByTestId('table-specs').getByRole('cell', { name: '≥ 95 °' }).waitFor();
+    // The rule reads as written on a drawing: the degree sign on its number (issue 14).
+    await page
+      .getByTestId('table-specs')
+      .getByRole('cell', { name: '≥ 95°', exact: true })
+      .waitFor();
+    expect(await page.getByTestId('table-specs').getByText('>=').count()).toBe(0);
     await page.context().close();
   });
 
@@ -107,7 +112,9 @@ describe('lab records pages', () => {
     expect(await page.getByTestId('drops-P-01').textContent()).toBe('2');
     expect(await page.getByTestId('mean-water-P-01').textContent()).toBe('101.5 (n = 2)');
     const drops = page.getByTestId('table-drops');
-    expect(await drops.getByRole('cell', { name: 'manual', exact: true }).count()).toBe(2);
+    // Angles read by hand are named in words, not by the stored code 'manual' (issue 14).
+    expect(await drops.getByRole('cell', { name: 'Read by hand', exact: true }).count()).toBe(2);
+    expect(await drops.getByRole('cell', { name: 'manual', exact: true }).count()).toBe(0);
     expect(await drops.getByRole('cell', { name: 'imported', exact: true }).count()).toBe(2);
 
     // The export downloads the same numbers the page shows.

@@ -51,7 +51,7 @@ describe('surface energy page (demo seed)', () => {
     expect(await page.getByTestId('spec-verdict').textContent()).toMatch(
       /Meets the spec surface free energy ≥ 38 mN\/m/,
     );
-    // Its 7-day window is named, since this page uses every drop of the sample.
+    // Its 7-day window is named with the drops it counts, by the compare page’s rule.
     expect(await page.getByTestId('spec-window').textContent()).toMatch(/within 7 days of\s+treatment/);
 
     const before = await page.getByTestId('saved-result').count();

@@ -48,11 +48,35 @@ function readFilters(search: Search): { filters: AuditFilters; errors: string[] 
   return { filters, errors };
 }
 
-function describe(value: unknown): string {
-  if (value === null || value === undefined) return '';
-  return Object.entries(value as Record<string, unknown>)
-    .map(([key, v]) => `${key}: ${typeof v === 'object' ? JSON.stringify(v) : String(v)}`)
-    .join(', ');
+/** "maxDeg" → "max deg", "probe_liquid_id" → "probe liquid id". */
+function words(key: string): string {
+  return key
+    .replace(/([a-z0-9])([A-Z])/g, '$1 $2')
+    .replace(/[_-]+/g, ' ')
+    .toLowerCase();
+}
+
+/** An audit row's before/after in words: "name: HT-200; limits: min 100, max none". */
+function describe(value: unknown, depth = 0): string {
+  if (value === null || value === undefined || value === '') return 'none';
+  if (typeof value === 'boolean') return value ? 'yes' : 'no';
+  if (Array.isArray(value)) {
+    if (value.length === 0) return 'none';
+    const items = value.map((v) => describe(v, depth + 1));
+    return items.length > 5
+      ? `${items.slice(0, 5).join(', ')} and ${items.length - 5} more`
+      : items.join(', ');
+  }
+  if (typeof value === 'object') {
+    const entries = Object.entries(value as Record<string, unknown>);
+    if (entries.length === 0) return 'none';
+    const text = entries.map(([key, v]) => `${words(key)}: ${describe(v, depth + 1)}`);
+    return depth === 0 ? text.join('; ') : `(${text.join(', ')})`;
+  }
+  const text = String(value);
+  return /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/.test(text)
+    ? `${text.slice(0, 16).replace('T', ' ')} UTC`
+    : text;
 }
 
 function timestamp(date: Date): string {

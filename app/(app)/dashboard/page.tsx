@@ -19,8 +19,8 @@ export default async function DashboardPage() {
         lead={`Signed in as ${ctx.user.name} (${ROLE_LABELS[ctx.organization.role].name}). ${ROLE_LABELS[ctx.organization.role].summary}.`}
       />
       <div className="grid gap-4 lg:grid-cols-3">
+        <PendingReviews pending={pending} />
         <RecentDrops drops={drops} approvedOnly={approvedOnly} />
-        <PendingReviews count={pending} />
         <OutOfSpec batches={outOfSpec} />
       </div>
     </>

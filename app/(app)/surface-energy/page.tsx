@@ -48,6 +48,7 @@ export default async function SurfaceEnergyPage({
         subject={{ ...subject, treatedAt: subject.treatedAt?.toISOString() ?? null }}
         angleTable={evaluation.angleTable}
         liquids={evaluation.liquids}
+        specWindows={evaluation.specWindows}
         availability={evaluation.availability}
         initialOutputs={evaluation.angleTable.length > 0 ? evaluation.outputs : null}
         initialSaved={saved.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }))}

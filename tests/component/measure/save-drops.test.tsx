@@ -1,6 +1,8 @@
-import { act, renderHook, waitFor } from '@testing-library/react';
+import { act, render, renderHook, screen, waitFor } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
 import { beforeEach, describe, expect, it } from 'vitest';
 import { useWorkspace, type WorkspacePhoto } from '@/components/measure/store';
+import { SessionPanel } from '@/components/measure/session-panel';
 import { initialSession } from '@/components/measure/types';
 import { useSaveDrops } from '@/components/measure/use-save-drops';
 import { errorBody, stubFetch } from '../support';
@@ -41,18 +43,19 @@ const SESSION_CREATED = {
       dropVolumeUl: null,
       scalePxPerMm: null,
       instrumentNotes: '',
+      liquidLot: 'W-LOT-0915',
       createdByUserId: 'user-analyst',
     },
   },
 };
 
-function setup(sampleId: string) {
+function setup(sampleId: string, liquidLot = '') {
   let reloads = 0;
   const created: string[] = [];
   const hook = renderHook(() =>
     useSaveDrops({
       sampleId,
-      session: initialSession(LIQUIDS, 'Ana Analyst'),
+      session: { ...initialSession(LIQUIDS, 'Ana Analyst'), liquidLot },
       method: 'circle',
       onSessionCreated: (id) => created.push(id),
       onSaved: async () => {
@@ -76,6 +79,36 @@ beforeEach(() => {
 describe('saving drops', () => {
   it('starts with water as the probe liquid when the library has it', () => {
     expect(initialSession(LIQUIDS, 'Ana Analyst').probeLiquidId).toBe('liquid-water');
+  });
+
+  it('sends the liquid lot typed with the session conditions, for the certificate', async () => {
+    const calls = stubFetch(({ url }) =>
+      url === '/api/measurement-sessions'
+        ? SESSION_CREATED
+        : { status: 201, body: { revision: 1 } },
+    );
+    const { hook } = setup('sample-1', ' W-LOT-0915 ');
+    await act(() => hook.result.current.saveAll(useWorkspace.getState().photos));
+    await waitFor(() => expect(hook.result.current.saving).toBe(false));
+    expect(calls[0].url).toBe('/api/measurement-sessions');
+    expect(calls[0].body).toMatchObject({ liquidLot: 'W-LOT-0915', operatorName: 'Ana Analyst' });
+  });
+
+  it('the session panel has a liquid-lot field beside the conditions', async () => {
+    let value = { ...initialSession(LIQUIDS, 'Ana Analyst') };
+    render(
+      <SessionPanel
+        liquids={LIQUIDS}
+        value={value}
+        onChange={(next) => (value = next)}
+        onCalibrate={() => undefined}
+        picked={null}
+        onCalibrated={() => undefined}
+      />,
+    );
+    const field = screen.getByLabelText(/Liquid lot/);
+    await userEvent.type(field, 'D');
+    expect(value.liquidLot).toBe('D');
   });
 
   it('asks for a sample before sending anything', async () => {

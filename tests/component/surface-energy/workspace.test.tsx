@@ -1,7 +1,7 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
-import type { AngleTableRow } from '@/lib/contracts/surface-energy';
+import type { AngleTableRow, SpecWindow } from '@/lib/contracts/surface-energy';
 import type { SavedSurfaceEnergy } from '@/components/data/resources';
 import { judgeTotal } from '@/components/surface-energy/spec-verdict';
 import { SurfaceEnergyWorkspace } from '@/components/surface-energy/workspace';
@@ -88,7 +88,10 @@ function server(calls: { saved: number }) {
   });
 }
 
-function renderWorkspace(specs: { min: number | null; max: number | null }[] = []) {
+function renderWorkspace(
+  specs: { min: number | null; max: number | null; maxDaysSinceTreatment?: number }[] = [],
+  specWindows: SpecWindow[] = [],
+) {
   return renderFresh(
     <SurfaceEnergyWorkspace
       subject={{
@@ -103,13 +106,15 @@ function renderWorkspace(specs: { min: number | null; max: number | null }[] = [
         treatedAt: null,
         surfaceEnergySpecs: specs.map((s, i) => ({
           id: `spec-${i}`,
-          ...s,
-          maxDaysSinceTreatment: null,
+          min: s.min,
+          max: s.max,
+          maxDaysSinceTreatment: s.maxDaysSinceTreatment ?? null,
           note: '',
         })),
       }}
       angleTable={ANGLES}
       liquids={LIQUIDS}
+      specWindows={specWindows}
       availability={methodAvailability(LIQUIDS)}
       initialOutputs={FIRST}
       initialSaved={[]}
@@ -179,6 +184,48 @@ describe('surface-energy workspace', () => {
     renderWorkspace([{ min: Math.floor(total!.value) - 5, max: null }]);
     await waitFor(() =>
       expect(screen.getByTestId('spec-verdict').textContent).toMatch(/^Meets the spec/),
+    );
+  });
+});
+
+describe('spec check with a days-since-treatment window', () => {
+  it('judges only the drops within the window, as the compare page does', async () => {
+    stubFetch(() => ({ status: 500 }));
+    // All drops: water 68° → about 47 mN/m. Within the 7-day window only the later, less
+    // wetting drops (water 95°, invented) count → about 39 mN/m, below a 42 mN/m limit.
+    const windowLiquids = LIQUIDS.map((l) =>
+      l.probeLiquidId === 'liquid-water' ? { ...l, angleDeg: 95, n: 2 } : l,
+    );
+    const windowOutputs = computeSurfaceEnergy(windowLiquids, {
+      methods: ['owrk'],
+      uncertaintyBasis: 'mean',
+      envelopeAngleDeg: 0,
+    });
+    const all = FIRST.results[0].status === 'ok' ? FIRST.results[0].components.gammaTotal : null;
+    const windowed =
+      windowOutputs.results[0].status === 'ok'
+        ? windowOutputs.results[0].components.gammaTotal
+        : null;
+    expect(all!.value).toBeGreaterThan(42);
+    expect(windowed!.value).toBeLessThan(42);
+    renderWorkspace(
+      [{ min: 42, max: null, maxDaysSinceTreatment: 7 }],
+      [
+        {
+          specId: 'spec-0',
+          maxDaysSinceTreatment: 7,
+          counted: 7,
+          excluded: 3,
+          liquids: windowLiquids,
+          outputs: windowOutputs,
+        },
+      ],
+    );
+    const verdict = screen.getByTestId('spec-verdict').textContent ?? '';
+    expect(verdict).toMatch(/^Does not meet the spec surface free energy ≥ 42 mN\/m/);
+    expect(verdict).toContain(`total ${windowed!.value.toFixed(1)}`);
+    expect(screen.getByTestId('spec-window').textContent).toMatch(
+      /within 7 days of treatment count for this spec, as on the compare page: 7 of 10 drops/,
     );
   });
 });

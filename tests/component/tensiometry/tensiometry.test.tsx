@@ -130,6 +130,30 @@ describe('tensiometry forms', () => {
     });
   });
 
+  it('Wilhelmy: an answer that arrives after switching what is computed is not shown', async () => {
+    let answer: (reply: { body: unknown }) => void = () => undefined;
+    stubFetch((call: Call) => {
+      const body = call.body as WilhelmyBody;
+      const result = wilhelmySurfaceTension({
+        plate: { widthMm: body.plateWidthMm, thicknessMm: body.plateThicknessMm },
+        forceMilliNewton: Number(body.forceMilliNewton),
+      });
+      return new Promise((resolve) => {
+        answer = resolve;
+        void result;
+      }).then(() => ({ body: { result } }));
+    });
+    renderPage();
+    const wilhelmy = within(screen.getByRole('region', { name: 'Wilhelmy plate' }));
+    await userEvent.type(wilhelmy.getByLabelText('Force (mN)'), '2.8689');
+    await userEvent.click(wilhelmy.getByRole('button', { name: 'Compute' }));
+    await userEvent.click(wilhelmy.getByLabelText(/Contact angle on a plate/));
+    answer({ body: null });
+    await waitFor(() => expect(wilhelmy.getByRole('button', { name: 'Compute' })).toBeTruthy());
+    await new Promise((r) => setTimeout(r, 50));
+    expect(screen.queryByTestId('wilhelmy-result')).toBeNull();
+  });
+
   it('Wilhelmy: puts the server’s error on the field, keeps what was typed, says it once', async () => {
     server();
     renderPage();

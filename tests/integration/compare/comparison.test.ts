@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb } from '@/db/client';
 import { comparisonDrops, findComparisonCoating, loadComparison } from '@/db/queries/comparison';
 import { outOfSpecBatches, pendingReviewCount, recentDrops } from '@/server/dashboard/load';
+import { submitForReview } from '@/server/reviews/submit';
 import * as exportRoute from '@/app/api/compare/drops.csv/route';
 import { CSV_HEADER } from '@/lib/compare';
 import { apiRequest } from '../support/request';
@@ -217,7 +218,16 @@ describe('dashboard queries', () => {
     ]);
   });
 
-  it('counts drops whose latest analysis is submitted', async () => {
+  it('counts review requests waiting for a decision, not drops', async () => {
+    // A drop marked submitted without a review request is not a request.
+    expect(await pendingReviewCount(lab.id)).toBe(0);
+    const analyst = lab.members.analyst;
+    const { analysisCount } = await submitForReview(
+      { organizationId: lab.id, userId: analyst.userId },
+      { batchId: batchNew, note: '' },
+    );
+    // One request covering several drops counts once.
+    expect(analysisCount).toBeGreaterThan(1);
     expect(await pendingReviewCount(lab.id)).toBe(1);
     expect(await pendingReviewCount(other.id)).toBe(0);
   });

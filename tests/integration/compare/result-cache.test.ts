@@ -1,6 +1,6 @@
 /**
  * Comparisons and the dashboard's out-of-spec list are cached under the organization's data
- * version (server/cache/results.ts, migration 0017). Every write below goes straight to the
+ * version (server/cache/results.ts, migration 0018). Every write below goes straight to the
  * database, as another web instance's would, so only the version can tell this process that the
  * data changed.
  */

@@ -173,14 +173,14 @@ describe('validation', () => {
 });
 
 describe('built-in probe-liquid library', () => {
-  it('holds the five liquids with stable ids and the commonly cited values (Ström et al. 1987; van Oss et al.)', async () => {
+  it('holds the five liquids with stable ids and the published values (Ström et al. 1987; van Oss et al. 1988)', async () => {
     const rows = await getDb()
       .select()
       .from(probeLiquids)
       .where(isNull(probeLiquids.organizationId));
     const byId = new Map(rows.map((row) => [row.id, row]));
     const expected: Record<string, [number, number, number, number, number, number, number]> = {
-      // total, dispersive, polar, LW, γ+, γ−, density (g/cm³, 20 °C) — values as commonly cited
+      // total, dispersive, polar, LW, γ+, γ−, density (g/cm³, 20 °C) — values as published
       'liquid-water': [72.8, 21.8, 51.0, 21.8, 25.5, 25.5, 0.998],
       'liquid-diiodomethane': [50.8, 50.8, 0, 50.8, 0, 0, 3.325],
       'liquid-ethylene-glycol': [48.0, 29.0, 19.0, 29.0, 1.92, 47.0, 1.113],
@@ -199,8 +199,17 @@ describe('built-in probe-liquid library', () => {
         row!.baseMnM,
         row!.densityGPerCm3,
       ]).toEqual(values);
-      expect(row!.sources.total).toMatch(/Ström.*1987.*as commonly cited/);
-      expect(row!.sources.acid).toMatch(/van Oss/);
+      // Issue 14: each value names a published work a lab can look up (title, year, pages, table),
+      // not a figure "as commonly cited" or "from memory".
+      expect(row!.sources.total).toMatch(
+        /^Ström, Fredriksson & Stenius, “Contact angles, .*”, J\. Colloid Interface Sci\. 119 \(1987\) 352–361, table /,
+      );
+      expect(row!.sources.acid).toMatch(
+        /^van Oss, Chaudhury & Good, “Interfacial Lifshitz–van der Waals .*”, Chem\. Rev\. 88 \(1988\) 927–941, table /,
+      );
+      for (const source of Object.values(row!.sources)) {
+        expect(source).not.toMatch(/commonly cited|from memory/);
+      }
     }
     for (const id of ['liquid-diiodomethane', 'liquid-formamide', 'liquid-ethylene-glycol']) {
       expect(byId.get(id)!.hazardNote).toMatch(/Harmful.*safety data sheet/);

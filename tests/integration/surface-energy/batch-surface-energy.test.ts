@@ -11,6 +11,7 @@ import { buildComparison, batchesOutOfSpec, SURFACE_ENERGY_LABEL } from '@/lib/c
 import * as batchEnergyRoute from '@/app/api/batches/[id]/surface-energy/route';
 import { api, bodies, createLab, ensureLibrary, resources, type Lab } from '../records/helpers';
 import { owrkByHand } from '../../support/owrk-by-hand';
+import { insertDrop, insertSample } from '../support/seed';
 import { addDrop, call, idParams } from './helpers';
 
 let lab: Lab;
@@ -22,7 +23,10 @@ let foreignBatchId: string;
 
 async function makeBatch(target: Lab, options: { samples: number; minSurfaceEnergyMnM?: number }) {
   const admin = target.members.admin.sessionId;
-  const coating = await api.create(resources.coatings, { sessionId: admin, body: bodies.coating() });
+  const coating = await api.create(resources.coatings, {
+    sessionId: admin,
+    body: bodies.coating(),
+  });
   const id = coating.body.coating.id as string;
   if (options.minSurfaceEnergyMnM !== undefined) {
     const spec = await api.create(resources.specs, {
@@ -63,7 +67,9 @@ beforeAll(async () => {
     [p2, 42],
     [p2, 44],
   ] as const)
-    await addDrop(lab.id, sample, 'liquid-diiodomethane', [{ meanDeg: deg, reviewStatus: 'approved' }]);
+    await addDrop(lab.id, sample, 'liquid-diiodomethane', [
+      { meanDeg: deg, reviewStatus: 'approved' },
+    ]);
   emptyBatchId = (await makeBatch(lab, { samples: 1 })).batchId;
   foreignBatchId = (await makeBatch(otherLab, { samples: 1 })).batchId;
 });
@@ -93,8 +99,12 @@ describe('GET /api/batches/[id]/surface-energy', () => {
     const { subject, angleTable, outputs } = response.body;
     expect(subject.kind).toBe('batch');
     expect(subject.sampleLabel).toBeNull();
-    const water = angleTable.find((r: { probeLiquidId: string }) => r.probeLiquidId === 'liquid-water');
-    const dim = angleTable.find((r: { probeLiquidId: string }) => r.probeLiquidId === 'liquid-diiodomethane');
+    const water = angleTable.find(
+      (r: { probeLiquidId: string }) => r.probeLiquidId === 'liquid-water',
+    );
+    const dim = angleTable.find(
+      (r: { probeLiquidId: string }) => r.probeLiquidId === 'liquid-diiodomethane',
+    );
     expect(water).toMatchObject({ n: 3 });
     expect(water.meanDeg).toBeCloseTo(72, 10);
     expect(dim).toMatchObject({ n: 3 });
@@ -164,5 +174,66 @@ describe('surface-energy verdict of the comparison', () => {
     expect(row.total?.value).toBeCloseTo(total, 9);
     expect(row.verdict.outcome).toBe('fail');
     expect(batchesOutOfSpec(comparison).map((b) => b.liquidName)).toContain(SURFACE_ENERGY_LABEL);
+  });
+});
+
+describe('spec check with a days-since-treatment window', () => {
+  it('the surface-energy page counts the drops the compare page counts, by one rule', async () => {
+    const admin = lab.members.admin.sessionId;
+    const coating = await api.create(resources.coatings, {
+      sessionId: admin,
+      body: bodies.coating(),
+    });
+    const id = coating.body.coating.id as string;
+    const spec = await api.create(resources.specs, {
+      sessionId: admin,
+      body: { ...bodies.spec(id), minDeg: null, minSurfaceEnergyMnM: 42, maxDaysSinceTreatment: 7 },
+    });
+    expect(spec.status, JSON.stringify(spec.body)).toBe(201);
+    const batch = await api.create(resources.batches, { sessionId: admin, body: bodies.batch(id) });
+    const windowBatchId = batch.body.batch.id as string;
+    const treatedAt = new Date('2026-03-01T08:00:00Z');
+    const sampleId = await insertSample(lab.id, windowBatchId, 'W1', treatedAt);
+    const day = (n: number) => new Date(treatedAt.getTime() + n * 86_400_000);
+    // Invented angles: within 7 days water 95°, 97°, 96° and diiodomethane 42°, 44°, 43°; a fortnight
+    // later the film has been re-cleaned and wets better (water 60°), which must not count.
+    for (const [liquid, deg, age] of [
+      ['liquid-water', 95, 1],
+      ['liquid-water', 97, 2],
+      ['liquid-water', 96, 3],
+      ['liquid-water', 60, 14],
+      ['liquid-water', 62, 15],
+      ['liquid-diiodomethane', 42, 1],
+      ['liquid-diiodomethane', 44, 2],
+      ['liquid-diiodomethane', 43, 3],
+      ['liquid-diiodomethane', 30, 14],
+    ] as const) {
+      await insertDrop(lab.id, sampleId, {
+        probeLiquidId: liquid,
+        measuredAt: day(age),
+        revisions: [{ meanDeg: deg, reviewStatus: 'approved' }],
+      });
+    }
+    const response = await call(batchEnergyRoute.GET, path(windowBatchId), {
+      sessionId: lab.members.viewer.sessionId,
+      params: idParams(windowBatchId),
+    });
+    expect(response.status).toBe(200);
+    const [window] = response.body.specWindows;
+    expect(window).toMatchObject({ maxDaysSinceTreatment: 7, counted: 6, excluded: 3 });
+    const windowTotal = window.outputs.results[0].components.gammaTotal.value;
+    expect(windowTotal).toBeCloseTo(owrkByHand(96, 43).total, 9);
+    // Every drop together would meet the limit; the drops within the window do not.
+    expect(response.body.outputs.results[0].components.gammaTotal.value).toBeGreaterThan(42);
+    expect(windowTotal).toBeLessThan(42);
+
+    // The compare page judges the same drops and reaches the same value.
+    const comparison = buildComparison(
+      await loadComparison(lab.id, id, { visibility: 'approved' }),
+    );
+    const [row] = comparison.surfaceEnergy!.batches;
+    expect(row.excluded).toBe(3);
+    expect(row.total?.value).toBeCloseTo(windowTotal, 9);
+    expect(row.verdict.outcome).toBe('fail');
   });
 });

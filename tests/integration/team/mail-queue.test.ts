@@ -3,9 +3,12 @@ import { createServer } from 'node:net';
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
 import { recordAudit } from '@/db/queries/audit';
+import PgBoss from 'pg-boss';
+import { databaseUrl } from '@/db/url';
 import {
   closeMailQueue,
   enqueueMail,
+  ensureQueue,
   getBoss,
   startMailWorker,
   stopMailWorker,
@@ -54,6 +57,35 @@ afterAll(async () => {
 });
 
 describe('mail queue', () => {
+  it('queues created at the same time (mail and certificate workers starting, two servers) all come up', async () => {
+    // A fresh database: the workers of one server and of a second one create their queues at
+    // once. pg-boss's create_queue alters shared tables, which deadlocked and left mail unsent.
+    const names = Array.from({ length: 6 }, (_, i) => `${QUEUE}-start-${i}`);
+    const other = new PgBoss({
+      connectionString: databaseUrl(),
+      max: 3,
+      supervise: false,
+      schedule: false,
+    });
+    await other.start();
+    const boss = await getBoss();
+    try {
+      const results = await Promise.allSettled([
+        ...names.map((name) => ensureQueue(boss, name)),
+        // The second server: its own client, the same queues and queues of its own.
+        ...names.map((name) => ensureQueue(other, name)),
+        ...names.map((name) => ensureQueue(other, `${name}-other`)),
+      ]);
+      expect(results.filter((r) => r.status === 'rejected')).toEqual([]);
+      for (const name of [...names, ...names.map((n) => `${n}-other`)]) {
+        expect(await boss.getQueue(name)).toMatchObject({ name });
+        await boss.deleteQueue(name);
+      }
+    } finally {
+      await other.stop({ graceful: false, wait: true });
+    }
+  });
+
   it('a job is written with its transaction or not at all', async () => {
     const to = uniqueEmail('rolled-back');
     const lab = await createOrganization();

@@ -43,12 +43,15 @@ describe('probe-liquid library', () => {
     expect(PROBE_LIQUIDS.water.gammaMinus).toBe(25.5);
   });
 
-  it('names a source for every value group and marks memory values', () => {
+  it('names a published source a lab can look up for every value group (title, year, table)', () => {
     for (const l of liquids) {
       for (const s of [l.sources.split, l.sources.acidBase, l.sources.density]) {
         expect(s.citation.length).toBeGreaterThan(10);
-        expect(s.fromMemory).toBe(true);
+        expect(s.citation).toMatch(/table/i);
+        expect(s.citation).not.toMatch(/memory|confirm against/i);
       }
+      expect(l.sources.split.citation).toMatch(/1987/);
+      expect(l.sources.acidBase.citation).toMatch(/1988/);
       expect(l.sources.split.citation).toMatch(/Ström/);
       expect(l.sources.acidBase.citation).toMatch(/van Oss/);
     }
