@@ -1,4 +1,5 @@
 import {
+  bigint,
   bigserial,
   boolean,
   check,
@@ -9,6 +10,7 @@ import {
   index,
   jsonb,
   pgEnum,
+  pgSequence,
   pgTable,
   primaryKey,
   text,
@@ -846,6 +848,8 @@ export const apiIdempotencyKeys = pgTable(
   },
   (t) => [primaryKey({ columns: [t.tokenId, t.key] })],
 );
+
+// ---------------------------------------------------------------------------------------------
 // Certificates of analysis, built once by a job and reused while the batch's data is unchanged.
 // ---------------------------------------------------------------------------------------------
 
@@ -876,3 +880,23 @@ export const certificates = pgTable(
     ),
   ],
 );
+
+// ---------------------------------------------------------------------------------------------
+// Cached results (server/cache/results.ts) are keyed by their organization's data version.
+// ---------------------------------------------------------------------------------------------
+
+/**
+ * The version of an organization's lab data: every insert, update or delete of a row that a
+ * comparison, the dashboard or a list reads (coatings, specs, batches, samples, drops and their
+ * analyses, dynamic measurements and theirs, probe liquids, reviews) sets it to a new value of
+ * organization_data_version_seq when its transaction commits (deferred trigger, migration
+ * 0018). Values only grow and are never reused, even after rows are truncated. No foreign key:
+ * the commit of an organization's deletion still bumps it.
+ */
+export const organizationDataVersions = pgTable('organization_data_versions', {
+  organizationId: text('organization_id').primaryKey(),
+  version: bigint('version', { mode: 'bigint' }).notNull(),
+});
+
+/** Where organization_data_versions takes its values from. */
+export const organizationDataVersionSeq = pgSequence('organization_data_version_seq');

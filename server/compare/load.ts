@@ -1,17 +1,38 @@
 import 'server-only';
 import {
   DEFAULT_BATCH_COUNT,
-  findComparisonCoating,
   listComparisonCoatings,
   loadComparison,
+  type ComparisonCoating,
 } from '@/db/queries/comparison';
 import type { OrgContext } from '@/lib/auth/context';
 import { resultVisibility } from '../visibility';
 import { can } from '@/lib/auth/permissions';
 import { buildComparison, compareSearch, dropsCsv, type CompareQuery } from '@/lib/compare';
 import { AppError } from '@/lib/app-error';
+import { resultCache, type ResultCache } from '../cache/results';
 
 export { DEFAULT_BATCH_COUNT };
+
+/** The live coatings (cached with the organization's data). */
+const liveCoatings = (cache: ResultCache, organizationId: string) =>
+  cache.get('coatings', () => listComparisonCoatings(organizationId));
+
+/** The coating of the query among the live ones, by id or code. */
+const coatingOf = (coatings: ComparisonCoating[], idOrCode: string) =>
+  coatings.find((c) => c.id === idOrCode || c.code === idOrCode) ?? null;
+
+/** What a comparison of `coatingId` over the chosen batches reads (cached with the data). */
+function comparisonData(
+  cache: ResultCache,
+  organizationId: string,
+  coatingId: string,
+  batches: readonly string[],
+) {
+  return cache.get(`comparison-data\u0000${coatingId}\u0000${batches.join('\u0001')}`, () =>
+    loadComparison(organizationId, coatingId, { batches, visibility: cache.visibility }),
+  );
+}
 
 /**
  * The compare page: the coatings to choose from and, for the chosen coating, its batches, the
@@ -23,27 +44,30 @@ export async function loadComparePage(ctx: OrgContext, query: CompareQuery) {
   const role = ctx.organization.role;
   const visibility = resultVisibility(role);
   const approvedOnly = visibility === 'approved';
-  const coatings = await listComparisonCoatings(organizationId);
+  const cache = await resultCache(organizationId, visibility);
+  const coatings = await liveCoatings(cache, organizationId);
   // The chosen coating is one of the live coatings just listed: no second round trip.
-  const coating = query.coating
-    ? (coatings.find((c) => c.id === query.coating || c.code === query.coating) ?? null)
-    : null;
+  const coating = query.coating ? coatingOf(coatings, query.coating) : null;
   const data = coating
-    ? await loadComparison(organizationId, coating.id, { batches: query.batches, visibility })
+    ? await comparisonData(cache, organizationId, coating.id, query.batches)
     : null;
   const known = new Set(data?.allBatches.flatMap((b) => [b.id, b.lotCode]) ?? []);
   const reference =
     data?.batches.find((b) => b.id === query.ref || b.lotCode === query.ref) ?? null;
   const comparison =
     data && coating
-      ? buildComparison({
-          batches: data.batches,
-          liquids: data.liquids,
-          specs: data.specs,
-          drops: data.drops,
-          dynamic: data.dynamic,
-          referenceBatchId: reference?.id ?? null,
-        })
+      ? await cache.get(
+          `comparison\u0000${coating.id}\u0000${query.batches.join('\u0001')}\u0000${reference?.id ?? ''}`,
+          async () =>
+            buildComparison({
+              batches: data.batches,
+              liquids: data.liquids,
+              specs: data.specs,
+              drops: data.drops,
+              dynamic: data.dynamic,
+              referenceBatchId: reference?.id ?? null,
+            }),
+        )
       : null;
   const chosenLots = data?.batches.map((b) => b.lotCode) ?? [];
   const exportHref =
@@ -76,7 +100,9 @@ export async function exportComparisonDrops(
       fields: { coating: 'Choose a coating.' },
     });
   }
-  const coating = await findComparisonCoating(ctx.organization.id, query.coating);
+  const organizationId = ctx.organization.id;
+  const cache = await resultCache(organizationId, resultVisibility(ctx.organization.role));
+  const coating = coatingOf(await liveCoatings(cache, organizationId), query.coating);
   if (!coating) {
     throw new AppError(
       'not_found',
@@ -86,27 +112,30 @@ export async function exportComparisonDrops(
       },
     );
   }
-  const data = await loadComparison(ctx.organization.id, coating.id, {
-    batches: query.batches,
-    visibility: resultVisibility(ctx.organization.role),
-  });
-  const names = new Map(data.liquids.map((l) => [l.id, l.name]));
-  const csv = dropsCsv(
-    data.drops.map((d) => ({
-      coatingCode: coating.code,
-      lotCode: d.lotCode,
-      producedOn: d.producedOn,
-      sampleLabel: d.sampleLabel,
-      liquidName: names.get(d.probeLiquidId) ?? d.probeLiquidId,
-      dropId: d.dropId,
-      revision: d.revision,
-      reviewStatus: d.reviewStatus,
-      measuredAt: d.measuredAt,
-      treatedAt: d.treatedAt,
-      leftDeg: d.leftDeg,
-      rightDeg: d.rightDeg,
-      meanDeg: d.meanDeg,
-    })),
+  const batches = query.batches;
+  const csv = await cache.get(
+    `drops-csv\u0000${coating.id}\u0000${batches.join('\u0001')}`,
+    async () => {
+      const data = await comparisonData(cache, organizationId, coating.id, batches);
+      const names = new Map(data.liquids.map((l) => [l.id, l.name]));
+      return dropsCsv(
+        data.drops.map((d) => ({
+          coatingCode: coating.code,
+          lotCode: d.lotCode,
+          producedOn: d.producedOn,
+          sampleLabel: d.sampleLabel,
+          liquidName: names.get(d.probeLiquidId) ?? d.probeLiquidId,
+          dropId: d.dropId,
+          revision: d.revision,
+          reviewStatus: d.reviewStatus,
+          measuredAt: d.measuredAt,
+          treatedAt: d.treatedAt,
+          leftDeg: d.leftDeg,
+          rightDeg: d.rightDeg,
+          meanDeg: d.meanDeg,
+        })),
+      );
+    },
   );
   const fileName = `beadline-${coating.code.replace(/[^A-Za-z0-9._-]+/g, '_')}-drops.csv`;
   return { csv, fileName };

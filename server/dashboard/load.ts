@@ -6,10 +6,22 @@ import { listReviews } from '@/db/queries/reviews';
 import type { OrgContext } from '@/lib/auth/context';
 import { batchesOutOfSpec, buildComparison } from '@/lib/compare';
 import type { OutOfSpecBatch, PendingReviewRequests } from '@/lib/contracts/dashboard';
+import { resultCache } from '../cache/results';
 import { resultVisibility, type ResultVisibility } from '../visibility';
 
-/** Batches (each coating's newest twelve) whose comparison verdict is fail for some liquid. */
+/**
+ * Batches (each coating's newest twelve) whose comparison verdict is fail for some liquid;
+ * computed once per data version of the organization (server/cache/results.ts).
+ */
 export async function outOfSpecBatches(
+  organizationId: string,
+  options: { visibility: ResultVisibility },
+): Promise<OutOfSpecBatch[]> {
+  const cache = await resultCache(organizationId, options.visibility);
+  return cache.get('out-of-spec', () => computeOutOfSpecBatches(organizationId, options));
+}
+
+async function computeOutOfSpecBatches(
   organizationId: string,
   options: { visibility: ResultVisibility },
 ): Promise<OutOfSpecBatch[]> {

@@ -114,6 +114,24 @@ describe.skipIf(!FIRST)('two web instances on one database', () => {
     expect(revisions).toEqual([{ revision: 1 }]);
   }, 60_000);
 
+  it('a comparison cached by one instance shows a change made through the other', async () => {
+    const code = `TC-${newId().slice(0, 5)}`;
+    const coatingId = await insertCoating(lab.id, code);
+    const batchId = await insertBatch(lab.id, coatingId, 'L-CACHE');
+    const sampleId = await insertSample(lab.id, batchId, 'S1');
+    const dropId = await insertDrop(lab.id, sampleId, { revisions: [{ meanDeg: 93 }] });
+    const csvRow = async (base: string) => {
+      const response = await send(base, analyst.sessionId, `/api/compare/drops.csv?coating=${code}`);
+      expect(response.status).toBe(200);
+      return (await response.text()).split('\n').find((line) => line.includes(dropId));
+    };
+    // Both instances compute and keep the comparison.
+    for (const base of [FIRST!, SECOND]) expect(await csvRow(base)).toMatch(/draft/);
+    const submitted = await send(SECOND, analyst.sessionId, '/api/reviews', { batchId, note: '' });
+    expect(submitted.status).toBe(201);
+    for (const base of [FIRST!, SECOND]) expect(await csvRow(base)).toMatch(/submitted/);
+  });
+
   it('each mail is sent once and its job runs once, with both mail workers running', async () => {
     const coatingId = await insertCoating(lab.id, `TM-${newId().slice(0, 5)}`);
     const batchId = await insertBatch(lab.id, coatingId, 'L-MAIL');
