@@ -1,17 +1,28 @@
 /**
  * Runs once when a Next.js server process starts. The Node.js server also runs the mail worker
- * (server/mail/queue.ts): it takes queued mails from PostgreSQL and hands them to SMTP_URL.
- * Not during `next build`, not in the edge runtime, and not when MAIL_WORKER=off.
+ * (server/mail/queue.ts), which takes queued mails from PostgreSQL and hands them to SMTP_URL,
+ * and the webhook worker (server/webhooks/queue.ts), which sends queued webhook deliveries.
+ * Not during `next build`, not in the edge runtime; MAIL_WORKER=off and WEBHOOK_WORKER=off
+ * leave either out (pg-boss hands each job to one worker of one process either way).
  */
 export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME !== 'nodejs') return;
   if (process.env.NEXT_PHASE === 'phase-production-build') return;
-  if (process.env.MAIL_WORKER === 'off') return;
-  const { startMailWorker } = await import('./server/mail/queue');
-  startMailWorker().then(
-    (id) => {
-      if (id) console.log('[mail] worker started');
-    },
-    (error: unknown) => console.error('[mail] worker did not start; mails stay queued', error),
-  );
+  if (process.env.MAIL_WORKER !== 'off') {
+    const { startMailWorker } = await import('./server/mail/queue');
+    startMailWorker().then(
+      (id) => {
+        if (id) console.log('[mail] worker started');
+      },
+      (error: unknown) => console.error('[mail] worker did not start; mails stay queued', error),
+    );
+  }
+  if (process.env.WEBHOOK_WORKER !== 'off') {
+    const { startWebhookWorker } = await import('./server/webhooks/queue');
+    startWebhookWorker().then(
+      () => console.log('[webhooks] worker started'),
+      (error: unknown) =>
+        console.error('[webhooks] worker did not start; deliveries stay queued', error),
+    );
+  }
 }

@@ -47,13 +47,23 @@ export async function getBoss(): Promise<PgBoss> {
   return globalForQueue.beadlineBoss;
 }
 
-/** Creates `name` once per process (another process may have created it first). */
-export async function ensureQueue(boss: PgBoss, name: string): Promise<void> {
+export type RetryPolicy = { retryLimit: number; retryDelay: number; retryBackoff: boolean };
+
+/**
+ * Creates `name` once per process (another process may have created it first), with the mail
+ * queue's retries unless `retry` says otherwise.
+ */
+export async function ensureQueue(
+  boss: PgBoss,
+  name: string,
+  retry: RetryPolicy = RETRY,
+  expireInSeconds = 120,
+): Promise<void> {
   const known = (globalForQueue.beadlineQueues ??= new Set());
   if (known.has(name)) return;
   if (!(await boss.getQueue(name))) {
     try {
-      await boss.createQueue(name, { name, ...RETRY, expireInSeconds: 120 });
+      await boss.createQueue(name, { name, ...retry, expireInSeconds });
     } catch (error) {
       if (!(await boss.getQueue(name))) throw error;
     }
@@ -65,7 +75,7 @@ export async function ensureQueue(boss: PgBoss, name: string): Promise<void> {
  * pg-boss sends `$1`-numbered SQL; run it on the caller's drizzle transaction so the job is
  * written, or not, together with the change that asked for it.
  */
-function onTransaction(tx: Executor): PgBoss.Db {
+export function onTransaction(tx: Executor): PgBoss.Db {
   return {
     async executeSql(text: string, values: unknown[]) {
       const pieces = text.split(/\$(\d+)/);
