@@ -1,6 +1,5 @@
 import 'server-only';
 import { findWebhook, listDeliveries, listWebhooks } from '@/db/queries/webhooks';
-import { notFound } from '@/lib/app-error';
 import type { WebhookDelivery, WebhookSummary } from '@/lib/contracts/webhooks';
 
 /** The organization's webhooks for the admin's list (never their secrets). */
@@ -8,13 +7,18 @@ export async function loadWebhooks(organizationId: string): Promise<WebhookSumma
   return listWebhooks(organizationId);
 }
 
-/** One webhook and its newest deliveries; another organization's webhook is not found. */
+type WebhookLog = {
+  webhook: Omit<WebhookSummary, 'delivered' | 'failing' | 'createdBy'>;
+  deliveries: WebhookDelivery[];
+};
+
+/** One webhook and its newest deliveries; null for another organization's (or none). */
 export async function loadWebhookLog(
   organizationId: string,
   webhookId: string,
-): Promise<{ webhook: Omit<WebhookSummary, 'delivered' | 'failing' | 'createdBy'>; deliveries: WebhookDelivery[] }> {
+): Promise<WebhookLog | null> {
   const webhook = await findWebhook(organizationId, webhookId);
-  if (!webhook) throw notFound('That webhook');
+  if (!webhook) return null;
   const deliveries = await listDeliveries(organizationId, webhookId);
   const { secret: _secret, organizationId: _org, createdByUserId: _by, ...shown } = webhook;
   return { webhook: shown, deliveries };

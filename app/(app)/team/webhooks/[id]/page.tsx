@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { notFound } from 'next/navigation';
 import { ActionButton } from '@/components/webhooks/action-button';
 import { PageHeader } from '@/components/ui/empty-state';
 import { PlainTable } from '@/components/ui/plain-table';
@@ -23,7 +24,9 @@ const STATUS_WORDS: Record<WebhookDelivery['status'], string> = {
 export default async function WebhookLogPage({ params }: { params: Promise<{ id: string }> }) {
   const ctx = await requirePage('team:manage');
   const { id } = await params;
-  const { webhook, deliveries } = await loadWebhookLog(ctx.organization.id, id);
+  const log = await loadWebhookLog(ctx.organization.id, id);
+  if (!log) notFound();
+  const { webhook, deliveries } = log;
   return (
     <>
       <PageHeader
