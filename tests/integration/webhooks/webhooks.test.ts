@@ -267,7 +267,7 @@ describe('a receiver that is down', () => {
       }),
     );
     expect(eventId).toBeTruthy();
-    await worker({ queue, retry, pollingIntervalSeconds: 0.25 });
+    await worker({ queue, retry, pollingIntervalSeconds: 0.5 });
 
     // Each failed attempt records when pg-boss will try again: waits of d·2^(k−1) to d·2^k
     // seconds after the k-th failure (d = 1 s; pg-boss adds up to as much again at random).
@@ -379,7 +379,7 @@ describe('addresses that are refused', () => {
       await getDb().transaction((tx) =>
         emitWebhookEvent(tx, lab.id, 'review.decided', { reviewId: 'r-1' }, { queue, retry }),
       );
-      await worker({ queue, retry, pollingIntervalSeconds: 0.25 });
+      await worker({ queue, retry, pollingIntervalSeconds: 0.5 });
       const [row] = await until(
         () => deliveriesOf(hook.id),
         (r) => r[0]?.status === 'failed',
