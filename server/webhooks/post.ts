@@ -1,7 +1,8 @@
 import 'server-only';
 import http from 'node:http';
 import https from 'node:https';
-import { checkedLookup } from './address-guard';
+import { isIP } from 'node:net';
+import { checkedLookup, hostOf, resolvePublic } from './address-guard';
 
 /** How long one attempt may take, connection to the end of the response. */
 export const DELIVERY_TIMEOUT_MS = 10_000;
@@ -11,15 +12,24 @@ export type PostOutcome =
   | { ok: false; statusCode: number | null; error: string };
 
 /**
- * POSTs `body` to `url` once, through the address guard (checkedLookup), without following
+ * POSTs `body` to `url` once, through the address guard (checkedLookup, or the same check for an
+ * IP address in the URL), without following
  * redirects. A 2xx answer is a delivery; anything else, or no answer, is a failure to retry.
  */
-export function postOnce(
+export async function postOnce(
   url: string,
   body: string,
   headers: Record<string, string>,
 ): Promise<PostOutcome> {
   const target = new URL(url);
+  // Node connects to an IP address written in the URL without a lookup: check it here.
+  if (isIP(hostOf(target))) {
+    try {
+      await resolvePublic(hostOf(target));
+    } catch (error) {
+      return { ok: false, statusCode: null, error: (error as Error).message };
+    }
+  }
   const client = target.protocol === 'https:' ? https : http;
   return new Promise((resolve) => {
     const request = client.request(

@@ -369,10 +369,15 @@ describe('addresses that are refused', () => {
     testQueues.push(queue);
     const retry = { retryLimit: 0, retryDelay: 1, retryBackoff: false };
     const target = await receiver();
+    // A name (checked by the connection's lookup) and an address written in the URL.
     const url = `http://localhost:${target.port}/hooks/beadline`;
-    const created = await register(members.admin, url, ['review.decided']);
-    expect(created.message).toBeUndefined();
+    const literal = target.url('/hooks/literal');
+    for (const address of [url, literal]) {
+      const created = await register(members.admin, address, ['review.decided']);
+      expect(created.message).toBeUndefined();
+    }
     const hook = await webhookOf(url);
+    const literalHook = await webhookOf(literal);
     const saved = process.env.WEBHOOK_ALLOW_PRIVATE;
     delete process.env.WEBHOOK_ALLOW_PRIVATE;
     try {
@@ -387,6 +392,12 @@ describe('addresses that are refused', () => {
       );
       expect(row!.status).toBe('failed');
       expect(row!.lastError).toMatch(/resolves to .*loopback.*WEBHOOK_ALLOW_PRIVATE=1/);
+      const [literalRow] = await until(
+        () => deliveriesOf(literalHook.id),
+        (r) => r[0]?.status === 'failed',
+        20_000,
+      );
+      expect(literalRow!.lastError).toMatch(/127\.0\.0\.1 is a loopback address/);
       expect(target.received).toHaveLength(0);
     } finally {
       process.env.WEBHOOK_ALLOW_PRIVATE = saved;
