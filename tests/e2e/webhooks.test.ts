@@ -3,7 +3,8 @@ import type { APIRequestContext, Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/db/demo';
 import { SIGNATURE_HEADER, TIMESTAMP_HEADER, verifyWebhook } from '@/lib/webhooks/signature';
-import { startReceiver, until, type Receiver } from '../support/webhook-receiver';
+import { until } from '../support/until';
+import { startReceiver, type Receiver } from '../support/webhook-receiver';
 import { BASE_URL, launchBrowser, signIn } from './support/browser';
 
 /*
