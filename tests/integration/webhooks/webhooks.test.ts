@@ -34,7 +34,13 @@ import { until } from '../../support/until';
 import { startReceiver, type Receiver, type ReceivedWebhook } from '../../support/webhook-receiver';
 import { createMember, createOrganization } from '../support/fixtures';
 import { simulateRequest } from '../support/request';
-import { insertBatch, insertCoating, insertDrop, insertPhotoWithBytes, insertSample } from '../support/seed';
+import {
+  insertBatch,
+  insertCoating,
+  insertDrop,
+  insertPhotoWithBytes,
+  insertSample,
+} from '../support/seed';
 import { ensureLibrary } from '../records/helpers';
 import { call, idParams } from '../surface-energy/helpers';
 
@@ -131,8 +137,19 @@ const typesOf = (requests: ReceivedWebhook[]) =>
 describe('signed deliveries of each event', () => {
   it('a saved analysis, a changed verdict and a decided review reach the receivers, signed, once per subscription', async () => {
     // Two workers in this process (and the test server's, when it runs): each delivery once.
-    await worker();
-    await worker();
+    // They work the product's queue, so they stop at the end of this test: the tests below turn
+    // WEBHOOK_ALLOW_PRIVATE off for a moment and must not fail other tests' deliveries.
+    const productWorkers = [await worker(), await worker()];
+    try {
+      await deliverEachEvent();
+    } finally {
+      for (const id of productWorkers) await stopWebhookWorker(id);
+    }
+  }, 90_000);
+});
+
+async function deliverEachEvent() {
+  {
     const everything = await receiver();
     const reviewsOnly = await receiver();
     const all = await register(members.admin, everything.url(), [
@@ -158,7 +175,11 @@ describe('signed deliveries of each event', () => {
     const coatingId = await insertCoating(lab.id, `WH-${newId().slice(0, 5)}`);
     const batchId = await insertBatch(lab.id, coatingId, 'L-HOOK');
     const sampleId = await insertSample(lab.id, batchId, 'S1');
-    const photoId = await insertPhotoWithBytes(lab.id, members.analyst.userId, await readFile(FIXTURE));
+    const photoId = await insertPhotoWithBytes(
+      lab.id,
+      members.analyst.userId,
+      await readFile(FIXTURE),
+    );
     const saved = await saveDropAnalysis(
       { organizationId: lab.id, userId: members.analyst.userId },
       photoId,
@@ -188,8 +209,16 @@ describe('signed deliveries of each event', () => {
     });
     expect(decided.status).toBe(200);
 
-    await until(() => everything.received, (r) => r.length >= 3, 30_000);
-    await until(() => reviewsOnly.received, (r) => r.length >= 1, 30_000);
+    await until(
+      () => everything.received,
+      (r) => r.length >= 3,
+      30_000,
+    );
+    await until(
+      () => reviewsOnly.received,
+      (r) => r.length >= 1,
+      30_000,
+    );
     // Give any second worker time to send a repeat, which must not come.
     await new Promise((resolve) => setTimeout(resolve, 2500));
     expect(typesOf(everything.received)).toEqual([
@@ -245,8 +274,8 @@ describe('signed deliveries of each event', () => {
       ['delivered', 1, 200],
       ['delivered', 1, 200],
     ]);
-  }, 90_000);
-});
+  }
+}
 
 describe('a receiver that is down', () => {
   it('is retried with growing waits and gets the delivery once it is back', async () => {
@@ -262,10 +291,16 @@ describe('a receiver that is down', () => {
     const secret = created.values!.secret!;
     const hook = await webhookOf(url);
     const eventId = await getDb().transaction((tx) =>
-      emitWebhookEvent(tx, lab.id, 'analysis.saved', { analysisId: 'a-1', meanDeg: 104.5 }, {
-        queue,
-        retry,
-      }),
+      emitWebhookEvent(
+        tx,
+        lab.id,
+        'analysis.saved',
+        { analysisId: 'a-1', meanDeg: 104.5 },
+        {
+          queue,
+          retry,
+        },
+      ),
     );
     expect(eventId).toBeTruthy();
     await worker({ queue, retry, pollingIntervalSeconds: 0.5 });
@@ -302,7 +337,11 @@ describe('a receiver that is down', () => {
 
     // Back up on the same port: the next retry delivers, once.
     const back = await receiver({ port });
-    await until(() => back.received, (r) => r.length > 0, 40_000);
+    await until(
+      () => back.received,
+      (r) => r.length > 0,
+      40_000,
+    );
     const [done] = await until(
       () => deliveriesOf(hook.id),
       (r) => r[0]?.status === 'delivered',
@@ -327,7 +366,11 @@ describe('a receiver that is down', () => {
       queue,
       retry,
     });
-    await until(() => back.received, (r) => r.length >= 2, 20_000);
+    await until(
+      () => back.received,
+      (r) => r.length >= 2,
+      20_000,
+    );
     expect(back.received[1]!.body).toBe(back.received[0]!.body);
     expect(verified(secret, back.received[1]!)).toEqual({ ok: true });
   }, 120_000);
@@ -358,7 +401,10 @@ describe('addresses that are refused', () => {
         'analysis.saved',
       ]);
       expect(withPassword.fields?.url).toMatch(/user name and password/);
-      const stored = await getDb().select().from(webhooks).where(eq(webhooks.url, 'https://10.0.0.5/hook'));
+      const stored = await getDb()
+        .select()
+        .from(webhooks)
+        .where(eq(webhooks.url, 'https://10.0.0.5/hook'));
       expect(stored).toHaveLength(0);
     } finally {
       process.env.WEBHOOK_ALLOW_PRIVATE = saved;
