@@ -28,6 +28,7 @@ import type {
   StoredSeries,
 } from '../lib/contracts/dynamic';
 import type { Signature } from '../lib/contracts/reviews';
+import type { WebhookEventType } from '../lib/contracts/webhooks';
 import type { SurfaceEnergyInputs } from '../lib/contracts/surface-energy';
 import type { TensiometryInputs, TensiometryOutputs } from '../lib/contracts/tensiometry';
 import type { SurfaceEnergyOutputs } from '../lib/surface-energy/compute';
@@ -900,3 +901,61 @@ export const organizationDataVersions = pgTable('organization_data_versions', {
 
 /** Where organization_data_versions takes its values from. */
 export const organizationDataVersionSeq = pgSequence('organization_data_version_seq');
+/**
+ * Webhooks: an admin's subscription of a URL to some events. The secret signs each delivery
+ * (HMAC-SHA256, lib/webhooks/signature.ts); it is shown to the admin once and kept as it is,
+ * because signing needs it (unlike API tokens, which are only compared).
+ */
+export const webhooks = pgTable(
+  'webhooks',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    url: text('url').notNull(),
+    description: text('description').notNull().default(''),
+    events: text('events').array().notNull().$type<WebhookEventType[]>(),
+    secret: text('secret').notNull(),
+    createdByUserId: userRef('created_by_user_id'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('webhooks_org_idx').on(t.organizationId)],
+);
+
+export const webhookDeliveryStatusEnum = pgEnum('webhook_delivery_status', [
+  'pending',
+  'retrying',
+  'delivered',
+  'failed',
+]);
+
+/**
+ * One event for one webhook: at most one row per (webhook, event), so an event is delivered once
+ * per subscription whichever process runs the job. `body` is the exact JSON sent (a redelivery
+ * sends the same bytes); `claimed_until` keeps two workers from sending the same row at once.
+ */
+export const webhookDeliveries = pgTable(
+  'webhook_deliveries',
+  {
+    id: text('id').primaryKey(),
+    organizationId: orgRef(),
+    webhookId: text('webhook_id')
+      .notNull()
+      .references(() => webhooks.id, { onDelete: 'cascade' }),
+    eventId: text('event_id').notNull(),
+    eventType: text('event_type').notNull().$type<WebhookEventType>(),
+    body: text('body').notNull(),
+    status: webhookDeliveryStatusEnum('status').notNull().default('pending'),
+    attempts: integer('attempts').notNull().default(0),
+    lastStatusCode: integer('last_status_code'),
+    lastError: text('last_error'),
+    lastAttemptAt: timestamp('last_attempt_at', { withTimezone: true }),
+    nextAttemptAt: timestamp('next_attempt_at', { withTimezone: true }),
+    deliveredAt: timestamp('delivered_at', { withTimezone: true }),
+    claimedUntil: timestamp('claimed_until', { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('webhook_deliveries_once').on(t.webhookId, t.eventId),
+    index('webhook_deliveries_webhook_idx').on(t.webhookId, t.createdAt),
+  ],
+);

@@ -28,7 +28,8 @@ if [ "$MODE" = "production" ]; then
   fi
   NODE_ENV=production "$ROOT/node_modules/.bin/tsx" scripts/serve.ts &
 else
-  "$ROOT/node_modules/.bin/tsx" scripts/serve.ts --dev &
+  # The dev server lets webhooks go to a receiver on this machine (README: webhooks).
+  WEBHOOK_ALLOW_PRIVATE="${WEBHOOK_ALLOW_PRIVATE:-1}" "$ROOT/node_modules/.bin/tsx" scripts/serve.ts --dev &
 fi
 BEADLINE_PIDS+=("$!")
 wait_for_url "$APP_URL/api/health" "web"

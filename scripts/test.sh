@@ -9,6 +9,8 @@ source "$(dirname "$0")/ffmpeg.sh"
 export TEST_PORT="${TEST_PORT:-3100}"
 export E2E_BASE_URL="http://127.0.0.1:$TEST_PORT"
 export CHROMIUM_PATH="${CHROMIUM_PATH:-/usr/bin/chromium}"
+# The tests' webhook receivers listen on 127.0.0.1 (README: webhooks).
+export WEBHOOK_ALLOW_PRIVATE=1
 
 stop_all_on_exit
 

@@ -14,6 +14,7 @@ import { outOfSpecMail, overallOutcome, type BatchOutcome } from '@/lib/alerts/o
 import { batchesOutOfSpec, buildComparison, verdictOutcomes } from '@/lib/compare';
 import { appUrl } from '@/lib/config';
 import { enqueueMail } from '../mail/queue';
+import { emitWebhookEvent } from '../webhooks/emit';
 import { resultVisibility } from '../visibility';
 
 /**
@@ -38,6 +39,16 @@ export async function refreshBatchVerdict(
     await lockBatchVerdict(tx, batchId);
     const previous = await findBatchVerdict(tx, batchId);
     await saveBatchVerdict(tx, { organizationId, batchId, outcome });
+    if (outcome !== previous) {
+      await emitWebhookEvent(tx, organizationId, 'batch.verdict_changed', {
+        batchId,
+        lotCode: batch.lotCode,
+        coatingId: batch.coatingId,
+        coatingCode: batch.coatingCode,
+        previous,
+        verdict: outcome,
+      });
+    }
     if (outcome !== 'fail' || previous === 'fail') return;
     await recordAudit(tx, {
       actorUserId: null,

@@ -22,6 +22,7 @@ import type {
 } from '@/lib/contracts/drops';
 import type { Actor } from '../actor';
 import { refreshVerdictOfSampleQuietly } from '../alerts/refresh-verdict';
+import { emitWebhookEvent } from '../webhooks/emit';
 import { runCompute } from '../compute/pool';
 import { loadPhotoGray } from '../photos/pixels';
 import { fromAnalysisError } from './analysis-error';
@@ -188,6 +189,20 @@ export async function saveDropAnalysis(
         rightDeg: result.rightDeg,
         ...(reason ? { reason } : {}),
       },
+    });
+    await emitWebhookEvent(tx, actor.organizationId, 'analysis.saved', {
+      analysisId,
+      dropId,
+      revision,
+      sampleId: input.sampleId,
+      probeLiquidId: input.probeLiquidId,
+      photoId,
+      method: input.method,
+      leftDeg: result.leftDeg,
+      rightDeg: result.rightDeg,
+      meanDeg: result.meanDeg,
+      warnings: result.warnings.map((w) => w.code),
+      savedByUserId: actor.userId,
     });
     return { dropId, analysisId, revision };
   });

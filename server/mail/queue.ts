@@ -49,6 +49,8 @@ export async function getBoss(): Promise<PgBoss> {
   return globalForQueue.beadlineBoss;
 }
 
+export type RetryPolicy = { retryLimit: number; retryDelay: number; retryBackoff: boolean };
+
 /**
  * Creates `name` once per queue client (another client or process may have created it first).
  * `options` for a queue other than mail's (its policy, retries, expiry).
@@ -98,7 +100,7 @@ async function createQueueOnce(
  * pg-boss sends `$1`-numbered SQL; run it on the caller's drizzle transaction so the job is
  * written, or not, together with the change that asked for it.
  */
-function onTransaction(tx: Executor): PgBoss.Db {
+export function onTransaction(tx: Executor): PgBoss.Db {
   return {
     async executeSql(text: string, values: unknown[]) {
       const pieces = text.split(/\$(\d+)/);

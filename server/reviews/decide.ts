@@ -8,6 +8,7 @@ import {
   setAnalysesReviewStatus,
 } from '@/db/queries/reviews';
 import { inTransaction } from '@/db/queries/transaction';
+import { emitWebhookEvent } from '../webhooks/emit';
 import { AppError, notFound } from '@/lib/app-error';
 import type { OrgContext } from '@/lib/auth/context';
 import { checkCredentials } from '@/lib/auth/sign-in';
@@ -116,6 +117,19 @@ export async function decideReview(
       entityId: reviewId,
       before: { status: 'submitted' },
       after: { status, comment: input.comment, signature },
+    });
+    await emitWebhookEvent(tx, organizationId, 'review.decided', {
+      reviewId,
+      decision: status,
+      scope: review.scope,
+      batchId: review.batchId,
+      lotCode: review.lotCode,
+      coatingCode: review.coatingCode,
+      sampleId: review.sampleId,
+      analysisIds: review.analysisIds,
+      comment: input.comment,
+      decidedByUserId: ctx.user.id,
+      decidedAt: decidedAt.toISOString(),
     });
     await queueReviewOutcomeMail(tx, {
       review,

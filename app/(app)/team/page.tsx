@@ -21,7 +21,9 @@ export default async function TeamPage() {
     <>
       <PageHeader title="Team" lead="Who belongs to this organization and what each role may do." />
       <p className="mb-4 text-sm">
-        <Link href="/team/api">API access</Link>: tokens and webhooks for instruments and LIMS.
+        <Link href="/team/api">API access</Link>: tokens for instruments and LIMS.{' '}
+        <Link href="/team/webhooks">Webhooks</Link>: signed notices of saved analyses, decided
+        reviews and changed batch verdicts.
       </p>
       <section className="card mb-6">
         <h2 className="mb-3">Members</h2>

@@ -16,6 +16,7 @@ import {
 import { invitationMail } from '@/lib/email/messages';
 import { startMailFake, type MailFake } from '@/scripts/services/mail-fake';
 import { createOrganization, uniqueEmail } from '../support/fixtures';
+import { until } from '../../support/until';
 import { auditRows, mailJobsTo } from './support';
 
 // A queue of this test's own, so the running server's worker (npm test) does not take its jobs.
@@ -30,20 +31,6 @@ async function freePort(): Promise<number> {
       server.close(() => resolve(port));
     });
   });
-}
-
-async function until<T>(
-  read: () => Promise<T>,
-  done: (value: T) => boolean,
-  timeoutMs: number,
-): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const value = await read();
-    if (done(value)) return value;
-    if (Date.now() > deadline) return value;
-    await new Promise((r) => setTimeout(r, 250));
-  }
 }
 
 let fake: MailFake | null = null;

@@ -382,6 +382,8 @@ const NOT_IN_MATRIX: Record<string, string> = {
   'api/v1/sessions/[id]': 'API token scope',
   '(app)/api-reference': 'service (the API description, no results)',
   '(app)/team/api': 'team (admins: API tokens)',
+  '(app)/team/webhooks': 'team (admins: webhooks, team:manage)',
+  '(app)/team/webhooks/[id]': 'team (admins: a webhook’s delivery log, team:manage)',
   // Pages: through the services in RESOURCES, or without results.
   '(app)/reviews': 'results:read-all',
   '(app)/reviews/[id]': 'results:read-all',
