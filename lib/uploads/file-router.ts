@@ -22,6 +22,8 @@ import {
  */
 
 export const DROP_PHOTO_ROUTE = 'dropPhoto';
+/** Videos of a series of one drop (dynamic wetting), kept as `videos` rows. */
+export const SERIES_VIDEO_ROUTE = 'seriesVideo';
 export const MAX_PHOTOS_PER_UPLOAD = 50;
 
 /**
@@ -123,6 +125,18 @@ export type DropPhotoUploadResult =
   | { status: 'refused'; fileKey: string; code: ImageRefusalCode; message: string }
   | { status: 'failed'; fileKey: string; message: string };
 
+/** A series video as the upload service reports it. */
+export interface UploadedSeriesVideo {
+  key: string;
+  name: string;
+  size: number;
+  url: string;
+}
+
+export type SeriesVideoUploadResult =
+  | { status: 'stored'; videoId: string; fps: number | null; frameCount: number | null; width: number; height: number }
+  | { status: 'refused'; fileKey: string; message: string };
+
 /** Minimal slice of UTApi the route uses; a real UTApi fits. */
 export type UploadStorage = Pick<UTApi, 'deleteFiles' | 'uploadFiles'>;
 
@@ -135,6 +149,14 @@ export interface DropPhotoRouterOptions {
     inspected: InspectedImage,
     context: StoredDropPhotoContext,
   ): Promise<{ photoId: string }>;
+  /**
+   * Records a stored series video (read by ffprobe on the server); throwing refuses it with the
+   * error's message and removes the stored file. Without it the route refuses every video.
+   */
+  onVideoStored?(
+    file: UploadedSeriesVideo,
+    owner: DropPhotoOwner,
+  ): Promise<Extract<SeriesVideoUploadResult, { status: 'stored' }>>;
   /** Downloads the stored original; default fetch() with the 25 MB limit. */
   fetchFile?(url: string): Promise<Buffer>;
   /** Delete and server-side upload; default a UTApi configured by lib/uploads/config. */
@@ -314,7 +336,38 @@ export async function completeDropPhotoUpload(
   }
 }
 
-/** Builds the FileRouter with the single `dropPhoto` route. */
+/**
+ * What happens once the service has stored a series video: the app records it (ffprobe reads it
+ * on the server); a video it refuses is deleted again and the refusal goes back to the browser.
+ */
+export async function completeSeriesVideoUpload(
+  file: UploadedSeriesVideo,
+  owner: DropPhotoOwner,
+  options: DropPhotoRouterOptions & { storage: UploadStorage },
+): Promise<SeriesVideoUploadResult> {
+  const report = options.report ?? defaultReport;
+  try {
+    if (!options.onVideoStored) throw new Error('Videos are not taken here.');
+    return await options.onVideoStored(file, owner);
+  } catch (error) {
+    try {
+      await options.storage.deleteFiles([file.key]);
+    } catch (deleteError) {
+      report('could not delete a refused video', { key: file.key, error: String(deleteError) });
+    }
+    report('refused video', { fileKey: file.key, error: String(error) });
+    return {
+      status: 'refused',
+      fileKey: file.key,
+      message:
+        error instanceof Error && error.message
+          ? error.message
+          : 'The video could not be read on the server. Upload it as MP4 (H.264), WebM or AVI (MJPEG).',
+    };
+  }
+}
+
+/** Builds the FileRouter: drop photos (`dropPhoto`) and series videos (`seriesVideo`). */
 export function createDropPhotoRouter(options: DropPhotoRouterOptions) {
   const f = createUploadthing();
   let defaultStorage: UTApi | null = null;
@@ -371,6 +424,18 @@ export function createDropPhotoRouter(options: DropPhotoRouterOptions) {
           return result;
         }
       }),
+    [SERIES_VIDEO_ROUTE]: f({ video: { maxFileSize: '512MB', maxFileCount: 1 } })
+      .middleware(async ({ req }): Promise<DropPhotoOwner> => {
+        const owner = await options.authorize(req, {});
+        return { userId: owner.userId, organizationId: owner.organizationId };
+      })
+      .onUploadComplete(async ({ metadata, file }) =>
+        completeSeriesVideoUpload(
+          { key: file.key, name: file.name, size: file.size, url: file.ufsUrl },
+          metadata,
+          { ...options, storage: storage() },
+        ),
+      ),
   } satisfies FileRouter;
 
   return router;
