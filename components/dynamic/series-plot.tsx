@@ -46,6 +46,8 @@ function rowsOf(frames: readonly SeriesFrameResult[]): Row[] {
   }));
 }
 
+const seconds = (v: number) => `${Number(v.toPrecision(3))} s`;
+
 function Cross({ cx, cy }: { cx?: number; cy?: number }) {
   if (cx === undefined || cy === undefined) return null;
   return (
@@ -100,7 +102,7 @@ export function SeriesPlot({
       {chart(
         <ComposedChart data={rows} margin={{ top: 8, right: 64, bottom: 4, left: 4 }} {...size}>
           <CartesianGrid stroke="#e6eaef" />
-          <XAxis dataKey="tSec" type="number" domain={domain} unit=" s" tickCount={8} fontSize={11} />
+          <XAxis dataKey="tSec" type="number" domain={domain} tickCount={8} fontSize={11} tickFormatter={seconds} />
           <YAxis
             yAxisId="angle"
             domain={['auto', 'auto']}
@@ -141,7 +143,7 @@ export function SeriesPlot({
       {chart(
         <ComposedChart data={rows} margin={{ top: 8, right: 4, bottom: 4, left: 4 }} {...size}>
           <CartesianGrid stroke="#e6eaef" />
-          <XAxis dataKey="tSec" type="number" domain={domain} unit=" s" tickCount={8} fontSize={11} />
+          <XAxis dataKey="tSec" type="number" domain={domain} tickCount={8} fontSize={11} tickFormatter={seconds} />
           <YAxis
             yAxisId="base"
             domain={['auto', 'auto']}

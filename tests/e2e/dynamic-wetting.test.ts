@@ -29,6 +29,10 @@ async function* fixtureFrames() {
   for (const frame of manifest.frames) yield decodeImageFile(path.join(SERIES, frame.file));
 }
 
+const began = Date.now();
+const step = (what: string) =>
+  console.log(`[dynamic e2e] ${what} after ${((Date.now() - began) / 1000).toFixed(1)} s`);
+
 const degreesIn = async (page: Page, testId: string) =>
   Number(((await page.getByTestId(testId).textContent()) ?? '').replace('°', ''));
 
@@ -69,7 +73,9 @@ describe('dynamic wetting from a video', () => {
     await page.getByRole('button', { name: 'Analyse the series' }).click();
     // The plot fills in while frames finish.
     await page.getByTestId('series-plot').waitFor({ timeout: 120_000 });
+    step('first frames plotted');
     await waitForAnalysis(page, manifest.frames.length);
+    step('series analysed');
 
     const advancing = await degreesIn(page, 'advancing-result');
     const receding = await degreesIn(page, 'receding-result');
@@ -107,6 +113,7 @@ describe('dynamic wetting from a video', () => {
     await page.getByRole('button', { name: 'Save the measurement' }).click();
     const saved = page.getByTestId('series-saved');
     await saved.waitFor({ timeout: 240_000 });
+    step('saved');
     const text = (await saved.textContent()) ?? '';
     const savedAdvancing = Number(text.match(/advancing ([\d.]+)°/)?.[1]);
     const savedReceding = Number(text.match(/receding ([\d.]+)°/)?.[1]);
@@ -122,7 +129,7 @@ describe('dynamic wetting from a video', () => {
     const mean = Number((await row.getByTestId('mean').textContent())?.replace(/[^\d.]/g, ''));
     expect(Math.abs(mean - expected.advancingDeg)).toBeLessThan(0.5);
     await page.close();
-  });
+  }, 600_000);
 });
 
 describe('dynamic wetting from the live camera', () => {
@@ -148,6 +155,7 @@ describe('dynamic wetting from the live camera', () => {
     await page.getByRole('button', { name: 'Start the camera' }).click();
     await page.getByText(/Camera on: 320 × 240 px/).waitFor({ timeout: 60_000 });
     await page.getByLabel('Capture rate (frames/s)').fill(String(fakeFps));
+    await page.getByLabel('Profile fit').selectOption('young-laplace');
     await page.getByRole('button', { name: 'Record' }).click();
     await expect
       .poll(
@@ -175,5 +183,5 @@ describe('dynamic wetting from the live camera', () => {
       expect(m).toBeLessThan(hi + 0.5);
     }
     await page.close();
-  });
+  }, 600_000);
 });
