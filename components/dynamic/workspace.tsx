@@ -64,6 +64,12 @@ function serverFrame(f: SavedDynamicMeasurement['series'][number]): SeriesFrameR
   };
 }
 
+/** The worker's own time per frame (analysis only), median. */
+function medianMs(frames: readonly SeriesFrameResult[]): number {
+  const times = frames.map((f) => f.timeMs).sort((a, b) => a - b);
+  return times.length ? times[Math.floor(times.length / 2)] : 0;
+}
+
 type SourceMode = 'video' | 'frames' | 'camera';
 
 /** What the page analyses: the frames' origin, kept for the save. */
@@ -350,7 +356,9 @@ export function DynamicWorkspace({
               {run.frames.length}
               {total ? ` / ${total}` : ''} frames
               {run.status === 'done' ? ' — done' : run.status === 'stopped' ? ' — stopped' : ''}
-              {run.status === 'done' && run.msPerFrame ? ` (${run.msPerFrame.toFixed(0)} ms per frame)` : ''}
+              {run.status === 'done' && run.msPerFrame
+                ? ` (${run.msPerFrame.toFixed(0)} ms per frame in all; the fit ${medianMs(run.frames).toFixed(0)} ms median)`
+                : ''}
             </span>
           </div>
         ) : null}
