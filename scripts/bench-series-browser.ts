@@ -10,7 +10,9 @@
  * wall time per frame (decoding, transfer, analysis and plotting) and the worker's fit time per
  * frame (median). Targets (issue 16): ≤ 30 ms/frame polynomial, ≤ 60 ms/frame Young–Laplace.
  */
-import { loadavg } from 'node:os';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { loadavg, tmpdir } from 'node:os';
+import path from 'node:path';
 import sharp from 'sharp';
 import { DEMO_PASSWORD } from '../db/demo';
 import { NEEDLE_SERIES, renderNeedleFrame, rescaled } from '../fixtures/generator/series';
@@ -30,15 +32,18 @@ async function main() {
     `Browser series benchmark: ${frameCount} frames ${spec.layout.width}×${spec.layout.height} as PNG frame images, headless Chromium\n` +
       `load average at start: ${load()} (other work on the machine slows every figure)\n`,
   );
-  const files = [];
+  // Written to files: Playwright hands large sets to the page by path.
+  const dir = mkdtempSync(path.join(tmpdir(), 'beadline-bench-series-'));
+  const files: string[] = [];
   for (let i = 0; i < frameCount; i++) {
     const { image } = renderNeedleFrame(spec, i);
-    const buffer = await sharp(Buffer.from(image.data as Uint8Array), {
+    const file = path.join(dir, `frame-${String(i).padStart(4, '0')}.png`);
+    await sharp(Buffer.from(image.data as Uint8Array), {
       raw: { width: image.width, height: image.height, channels: 1 },
     })
       .png({ compressionLevel: 1 })
-      .toBuffer();
-    files.push({ name: `frame-${String(i).padStart(4, '0')}.png`, mimeType: 'image/png', buffer });
+      .toFile(file);
+    files.push(file);
   }
   const browser = await launchBrowser();
   try {
@@ -68,6 +73,7 @@ async function main() {
     process.stdout.write(`load average at the end: ${load()}\n`);
   } finally {
     await browser.close();
+    rmSync(dir, { recursive: true, force: true });
   }
 }
 

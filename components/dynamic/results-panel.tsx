@@ -157,7 +157,8 @@ export function FlaggedFrames({ frames }: { frames: readonly SeriesFrameResult[]
       <p className="mb-2 text-sm text-ink-700">
         These frames failed or carry a warning. Failed frames count in no window; check the others in the plot.
       </p>
-      <div className="max-h-64 overflow-auto">
+      {/* Focusable so the list scrolls from the keyboard too. */}
+      <div className="max-h-64 overflow-auto" tabIndex={0} role="region" aria-label="Flagged frames, scrollable">
         <table className="w-full text-sm" data-testid="flagged-frames">
           <thead>
             <tr className="text-left text-ink-600">
@@ -190,7 +191,7 @@ export function FrameTable({ frames, tiltsDeg }: { frames: readonly SeriesFrameR
   return (
     <details className="card">
       <summary className="cursor-pointer text-sm font-medium text-ink-900">Every frame ({frames.length})</summary>
-      <div className="mt-2 max-h-80 overflow-auto">
+      <div className="mt-2 max-h-80 overflow-auto" tabIndex={0} role="region" aria-label="Every frame, scrollable">
         <table className="w-full text-sm" data-testid="frame-table">
           <thead>
             <tr className="text-left text-ink-600">

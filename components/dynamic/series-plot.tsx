@@ -100,7 +100,7 @@ export function SeriesPlot({
         {windows.length ? `Shaded: ${windows.map((w) => w.name).join(', ')} window.` : null}
       </figcaption>
       {chart(
-        <ComposedChart data={rows} margin={{ top: 8, right: 64, bottom: 4, left: 4 }} {...size}>
+        <ComposedChart data={rows} margin={{ top: 8, right: 8, bottom: 4, left: 4 }} {...size}>
           <CartesianGrid stroke="#e6eaef" />
           <XAxis dataKey="tSec" type="number" domain={domain} tickCount={8} fontSize={11} tickFormatter={seconds} />
           <YAxis
@@ -110,6 +110,10 @@ export function SeriesPlot({
             fontSize={11}
             label={{ value: 'Contact angle', angle: -90, position: 'insideLeft', fontSize: 11 }}
           />
+          {hasVolume ? (
+            // Room for the volume axis of the plot below, so both time axes line up.
+            <YAxis yAxisId="align" orientation="right" tick={false} axisLine={false} width={60} />
+          ) : null}
           <Tooltip formatter={(value) => (typeof value === 'number' ? value.toFixed(2) : String(value))} />
           {windows.map((w) => (
             <ReferenceArea
@@ -141,7 +145,7 @@ export function SeriesPlot({
         </ComposedChart>,
       )}
       {chart(
-        <ComposedChart data={rows} margin={{ top: 8, right: 4, bottom: 4, left: 4 }} {...size}>
+        <ComposedChart data={rows} margin={{ top: 8, right: 8, bottom: 4, left: 4 }} {...size}>
           <CartesianGrid stroke="#e6eaef" />
           <XAxis dataKey="tSec" type="number" domain={domain} tickCount={8} fontSize={11} tickFormatter={seconds} />
           <YAxis
@@ -156,6 +160,7 @@ export function SeriesPlot({
               orientation="right"
               domain={['auto', 'auto']}
               fontSize={11}
+              width={60}
               tickFormatter={(v: number) => v.toExponential(1)}
               label={{ value: 'Volume (px³)', angle: 90, position: 'insideRight', fontSize: 11 }}
             />

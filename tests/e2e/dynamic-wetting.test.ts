@@ -14,6 +14,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD } from '@/db/demo';
 import { decodeImageFile } from '@/lib/analysis/node/decode';
 import { writeVideo } from '@/fixtures/generator/series-video';
+import { wcagViolations } from './support/axe';
 import { BASE_URL, launchBrowser, signIn } from './support/browser';
 
 const SERIES = path.resolve(__dirname, '../../fixtures/series/needle-in');
@@ -86,6 +87,8 @@ describe('dynamic wetting from a video', () => {
     expect(Math.abs(advancing - expected.advancingDeg)).toBeLessThan(0.5);
     expect(Math.abs(receding - expected.recedingDeg)).toBeLessThan(0.5);
     expect(Math.abs(hysteresis - expected.hysteresisDeg)).toBeLessThan(1);
+    // The page with its plot, results and frame lists: no WCAG 2 A/AA violation (axe-core).
+    expect(await wcagViolations(page)).toEqual([]);
 
     // Moving the advancing window: the numbers follow (fewer frames counted, same angle).
     const detail = page.getByTestId('advancing-result').locator('xpath=..');
