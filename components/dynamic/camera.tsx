@@ -1,6 +1,7 @@
 'use client';
 
 import { useEffect, useRef, useState } from 'react';
+import { NumberField } from '@/components/ui/fields';
 import type { GrayImage } from '@/lib/analysis/types';
 import { frameCanvas } from './frame-sources';
 
@@ -155,20 +156,15 @@ export function LiveCamera({ onCaptured }: { onCaptured(series: CapturedSeries):
           </button>
         ) : (
           <>
-            <label className="flex flex-col text-xs text-ink-700" htmlFor="capture-rate">
-              Capture rate (frames/s)
-              <input
-                id="capture-rate"
-                type="number"
-                min={0.1}
-                max={120}
-                step="any"
-                className="field-input w-28"
-                value={rate}
-                disabled={state.kind === 'recording'}
-                onChange={(e) => setRate(e.target.value)}
-              />
-            </label>
+            <NumberField
+              id="capture-rate"
+              label="Capture rate"
+              unit="frames/s"
+              className="w-36"
+              value={rate}
+              disabled={state.kind === 'recording'}
+              onChange={(e) => setRate(e.target.value)}
+            />
             {state.kind === 'recording' ? (
               <button type="button" className="btn-primary" onClick={stopRecording}>
                 Stop recording

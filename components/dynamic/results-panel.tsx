@@ -22,6 +22,22 @@ function Stat({ label, value, detail, testId }: { label: string; value: string; 
   );
 }
 
+/** The advancing and receding windows: which kinds show them and where the detected one is. */
+const PHASE_WINDOWS = [
+  {
+    name: 'advancing',
+    label: 'Advancing',
+    shownFor: (kind: MeasurementResult['kind']) => kind !== 'shrinking',
+    detectedOf: (r: MeasurementResult) => r.advancingWindow,
+  },
+  {
+    name: 'receding',
+    label: 'Receding',
+    shownFor: (kind: MeasurementResult['kind']) => kind !== 'growing',
+    detectedOf: (r: MeasurementResult) => r.recedingWindow,
+  },
+] as const;
+
 const windowDetail = (s: AngleWindowStats | null) =>
   s
     ? `${s.frameCount} frames, ${s.fromSec.toFixed(2)}–${s.toSec.toFixed(2)} s; left ${deg(s.leftDeg)}, right ${deg(s.rightDeg)}${s.sdDeg !== null ? `, SD ${s.sdDeg.toFixed(2)}°` : ''}`
@@ -113,26 +129,17 @@ export function ResultsPanel({
             ) : null}
           </dl>
           <div className="grid gap-2 lg:grid-cols-2">
-            {kind !== 'shrinking' ? (
+            {PHASE_WINDOWS.filter((p) => p.shownFor(kind)).map(({ name, label, detectedOf }) => (
               <WindowControls
-                name="Advancing"
-                window={windows.advancing === undefined ? result.advancingWindow : windows.advancing}
+                key={name}
+                name={label}
+                window={windows[name] === undefined ? detectedOf(result) : (windows[name] ?? null)}
                 span={span}
                 stepSec={stepSec}
-                detected={windows.advancing === undefined}
-                onChange={(w) => onWindow('advancing', w)}
+                detected={windows[name] === undefined}
+                onChange={(w) => onWindow(name, w)}
               />
-            ) : null}
-            {kind !== 'growing' ? (
-              <WindowControls
-                name="Receding"
-                window={windows.receding === undefined ? result.recedingWindow : windows.receding}
-                span={span}
-                stepSec={stepSec}
-                detected={windows.receding === undefined}
-                onChange={(w) => onWindow('receding', w)}
-              />
-            ) : null}
+            ))}
           </div>
         </>
       )}

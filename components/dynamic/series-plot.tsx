@@ -48,6 +48,25 @@ function rowsOf(frames: readonly SeriesFrameResult[]): Row[] {
 
 const seconds = (v: number) => `${Number(v.toPrecision(3))} s`;
 
+/** The time axis both plots share (drawn as an element: the chart reads its children's types). */
+const timeAxis = (domain: [number, number | 'dataMax']) => (
+  <XAxis dataKey="tSec" type="number" domain={domain} tickCount={8} fontSize={11} tickFormatter={seconds} />
+);
+
+/** The shaded windows on one plot; the upper plot names them. */
+const windowAreas = (windows: readonly PlotWindow[], yAxisId: string, named: boolean) =>
+  windows.map((w) => (
+    <ReferenceArea
+      key={w.name}
+      yAxisId={yAxisId}
+      x1={w.window.fromSec}
+      x2={w.window.toSec}
+      fill={w.fill}
+      fillOpacity={0.18}
+      {...(named ? { label: { value: w.name, position: 'insideTop' as const, fontSize: 11, fill: '#263040' } } : {})}
+    />
+  ));
+
 function Cross({ cx, cy }: { cx?: number; cy?: number }) {
   if (cx === undefined || cy === undefined) return null;
   return (
@@ -102,7 +121,7 @@ export function SeriesPlot({
       {chart(
         <ComposedChart data={rows} margin={{ top: 8, right: 8, bottom: 4, left: 4 }} {...size}>
           <CartesianGrid stroke="#e6eaef" />
-          <XAxis dataKey="tSec" type="number" domain={domain} tickCount={8} fontSize={11} tickFormatter={seconds} />
+          {timeAxis(domain)}
           <YAxis
             yAxisId="angle"
             domain={['auto', 'auto']}
@@ -115,17 +134,7 @@ export function SeriesPlot({
             <YAxis yAxisId="align" orientation="right" tick={false} axisLine={false} width={60} />
           ) : null}
           <Tooltip formatter={(value) => (typeof value === 'number' ? value.toFixed(2) : String(value))} />
-          {windows.map((w) => (
-            <ReferenceArea
-              key={w.name}
-              yAxisId="angle"
-              x1={w.window.fromSec}
-              x2={w.window.toSec}
-              fill={w.fill}
-              fillOpacity={0.18}
-              label={{ value: w.name, position: 'insideTop', fontSize: 11, fill: '#263040' }}
-            />
-          ))}
+          {windowAreas(windows, 'angle', true)}
           <Line
             yAxisId="angle"
             dataKey="meanDeg"
@@ -147,7 +156,7 @@ export function SeriesPlot({
       {chart(
         <ComposedChart data={rows} margin={{ top: 8, right: 8, bottom: 4, left: 4 }} {...size}>
           <CartesianGrid stroke="#e6eaef" />
-          <XAxis dataKey="tSec" type="number" domain={domain} tickCount={8} fontSize={11} tickFormatter={seconds} />
+          {timeAxis(domain)}
           <YAxis
             yAxisId="base"
             domain={['auto', 'auto']}
@@ -166,16 +175,7 @@ export function SeriesPlot({
             />
           ) : null}
           <Tooltip formatter={(value) => (typeof value === 'number' ? value.toFixed(1) : String(value))} />
-          {windows.map((w) => (
-            <ReferenceArea
-              key={w.name}
-              yAxisId="base"
-              x1={w.window.fromSec}
-              x2={w.window.toSec}
-              fill={w.fill}
-              fillOpacity={0.18}
-            />
-          ))}
+          {windowAreas(windows, 'base', false)}
           <Line
             yAxisId="base"
             dataKey="baseDiameterPx"

@@ -1,5 +1,6 @@
 'use client';
 
+import { NumberField, TextField } from '@/components/ui/fields';
 import { useDynamicEditor } from './store';
 
 /** Where each frame's tilt comes from (a typed rate or a stage log's CSV column), and the downhill side. */
@@ -30,28 +31,22 @@ export function TiltSettings() {
       </div>
       {tilt.type === 'rate' ? (
         <div className="flex flex-wrap gap-3">
-          <label className="flex flex-col text-sm text-ink-800" htmlFor="tilt-rate">
-            Tilt rate (°/s)
-            <input
-              id="tilt-rate"
-              type="number"
-              step="any"
-              className="field-input mt-1 w-28"
-              value={tilt.rateDegPerSec}
-              onChange={(e) => setTilt({ ...tilt, rateDegPerSec: e.target.value })}
-            />
-          </label>
-          <label className="flex flex-col text-sm text-ink-800" htmlFor="tilt-start">
-            Tilt at the first frame (°)
-            <input
-              id="tilt-start"
-              type="number"
-              step="any"
-              className="field-input mt-1 w-28"
-              value={tilt.startDeg}
-              onChange={(e) => setTilt({ ...tilt, startDeg: e.target.value })}
-            />
-          </label>
+          <NumberField
+            id="tilt-rate"
+            label="Tilt rate"
+            unit="°/s"
+            className="w-40"
+            value={tilt.rateDegPerSec}
+            onChange={(e) => setTilt({ ...tilt, rateDegPerSec: e.target.value })}
+          />
+          <NumberField
+            id="tilt-start"
+            label="Tilt at the first frame"
+            unit="°"
+            className="w-40"
+            value={tilt.startDeg}
+            onChange={(e) => setTilt({ ...tilt, startDeg: e.target.value })}
+          />
         </div>
       ) : (
         <div className="flex flex-wrap items-end gap-3">
@@ -68,24 +63,22 @@ export function TiltSettings() {
               }}
             />
           </label>
-          <label className="flex flex-col text-sm text-ink-800" htmlFor="tilt-column">
-            Tilt column (°)
-            <input
-              id="tilt-column"
-              className="field-input mt-1 w-36"
-              value={tilt.column}
-              onChange={(e) => setTilt({ ...tilt, column: e.target.value })}
-            />
-          </label>
-          <label className="flex flex-col text-sm text-ink-800" htmlFor="tilt-time-column">
-            Time column (s, optional)
-            <input
-              id="tilt-time-column"
-              className="field-input mt-1 w-36"
-              value={tilt.timeColumn}
-              onChange={(e) => setTilt({ ...tilt, timeColumn: e.target.value })}
-            />
-          </label>
+          <TextField
+            id="tilt-column"
+            label="Tilt column"
+            unit="°"
+            className="w-40"
+            value={tilt.column}
+            onChange={(e) => setTilt({ ...tilt, column: e.target.value })}
+          />
+          <TextField
+            id="tilt-time-column"
+            label="Time column"
+            unit="s, optional"
+            className="w-40"
+            value={tilt.timeColumn}
+            onChange={(e) => setTilt({ ...tilt, timeColumn: e.target.value })}
+          />
         </div>
       )}
       <label className="flex flex-col text-sm text-ink-800" htmlFor="downhill-side">

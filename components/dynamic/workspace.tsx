@@ -3,7 +3,8 @@
 import Link from 'next/link';
 import { useMemo, useRef, useState } from 'react';
 import { fetchDynamicMeasurement, type SavedDynamicMeasurement } from '@/components/data/resources';
-import { SelectField } from '@/components/ui/fields';
+import { SampleSelect } from '@/components/measure/save-panel';
+import { NumberField, SelectField } from '@/components/ui/fields';
 import type { LiquidChoice, SampleChoice } from '@/components/measure/types';
 import type { FitMethod } from '@/lib/analysis/types';
 import type { DynamicKind } from '@/lib/dynamic/measurement';
@@ -305,18 +306,14 @@ export function DynamicWorkspace({
                 />
               </label>
             )}
-            <label className="flex flex-col text-sm text-ink-800" htmlFor="series-fps">
-              Frame rate (frames/s)
-              <input
-                id="series-fps"
-                type="number"
-                min={0.001}
-                step="any"
-                className="field-input mt-1 w-28"
-                value={fps}
-                onChange={(e) => setFps(e.target.value)}
-              />
-            </label>
+            <NumberField
+              id="series-fps"
+              label="Frame rate"
+              unit="frames/s"
+              className="w-36"
+              value={fps}
+              onChange={(e) => setFps(e.target.value)}
+            />
             <button type="button" className="btn-primary" disabled={running} onClick={analyseChosen}>
               Analyse the series
             </button>
@@ -400,20 +397,7 @@ export function DynamicWorkspace({
       <section className="card space-y-3" aria-labelledby="series-save-heading">
           <h2 id="series-save-heading">Save to a sample</h2>
           <div className="grid gap-3 md:grid-cols-2">
-            <SelectField
-              id="series-sample"
-              label="Sample"
-              placeholder="Choose a sample…"
-              value={sampleId}
-              onChange={(e) => setSampleId(e.target.value)}
-              hint={samples.length === 0 ? 'No samples yet: add a coating, a batch and a sample first.' : undefined}
-            >
-              {samples.map((s) => (
-                <option key={s.id} value={s.id}>
-                  {s.coatingCode} · {s.lotCode} / {s.label}
-                </option>
-              ))}
-            </SelectField>
+            <SampleSelect id="series-sample" samples={samples} value={sampleId} onChange={setSampleId} />
             <SelectField
               id="series-liquid"
               label="Probe liquid"

@@ -34,39 +34,10 @@ export function SavePanel({
   stale?: StaleSave[];
   onReload?: (entry: StaleSave) => void;
 }) {
-  const byCoating = useMemo(() => {
-    const groups = new Map<string, SampleChoice[]>();
-    for (const s of samples) {
-      const key = `${s.coatingCode} · ${s.coatingName}`;
-      groups.set(key, [...(groups.get(key) ?? []), s]);
-    }
-    return [...groups];
-  }, [samples]);
   return (
     <section className="card space-y-3">
       <h2>Save to a sample</h2>
-      <SelectField
-        id="sample"
-        label="Sample"
-        placeholder="Choose a sample…"
-        value={sampleId}
-        onChange={(e) => onSampleChange(e.target.value)}
-        hint={
-          samples.length === 0
-            ? 'No samples yet: add a coating, a batch and a sample first.'
-            : undefined
-        }
-      >
-        {byCoating.map(([group, choices]) => (
-          <optgroup key={group} label={group}>
-            {choices.map((s) => (
-              <option key={s.id} value={s.id}>
-                {s.lotCode} / {s.label}
-              </option>
-            ))}
-          </optgroup>
-        ))}
-      </SelectField>
+      <SampleSelect id="sample" samples={samples} value={sampleId} onChange={onSampleChange} />
       <div className="flex flex-wrap gap-2">
         <button
           type="button"
@@ -118,5 +89,49 @@ export function SavePanel({
         </div>
       ))}
     </section>
+  );
+}
+
+/** The sample to save to, grouped by coating (also on the dynamic-wetting page). */
+export function SampleSelect({
+  id,
+  samples,
+  value,
+  onChange,
+}: {
+  id: string;
+  samples: SampleChoice[];
+  value: string;
+  onChange: (id: string) => void;
+}) {
+  const byCoating = useMemo(() => {
+    const groups = new Map<string, SampleChoice[]>();
+    for (const s of samples) {
+      const key = `${s.coatingCode} · ${s.coatingName}`;
+      groups.set(key, [...(groups.get(key) ?? []), s]);
+    }
+    return [...groups];
+  }, [samples]);
+  return (
+    <SelectField
+      id={id}
+      label="Sample"
+      placeholder="Choose a sample…"
+      value={value}
+      onChange={(e) => onChange(e.target.value)}
+      hint={
+        samples.length === 0 ? 'No samples yet: add a coating, a batch and a sample first.' : undefined
+      }
+    >
+      {byCoating.map(([group, choices]) => (
+        <optgroup key={group} label={group}>
+          {choices.map((s) => (
+            <option key={s.id} value={s.id}>
+              {s.lotCode} / {s.label}
+            </option>
+          ))}
+        </optgroup>
+      ))}
+    </SelectField>
   );
 }

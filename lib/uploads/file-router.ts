@@ -271,6 +271,19 @@ async function storeDerived(
   return { thumbnail: stored[0], workerPng: stored[1] ?? null };
 }
 
+/** Deletes stored files; a failure is reported, never thrown (the upload's answer matters more). */
+async function removeQuietly(
+  storage: UploadStorage,
+  keys: string[],
+  report: NonNullable<DropPhotoRouterOptions['report']>,
+): Promise<void> {
+  try {
+    await storage.deleteFiles(keys);
+  } catch (error) {
+    report('could not delete stored files', { keys, error: String(error) });
+  }
+}
+
 /**
  * What happens once the service has stored an upload: inspect the bytes; on refusal delete the
  * file and record nothing; on success keep a thumbnail (and worker PNG) beside it and record it.
@@ -284,13 +297,7 @@ export async function completeDropPhotoUpload(
   const report = options.report ?? defaultReport;
   const fetchFile = options.fetchFile ?? ((url: string) => fetchStoredFile(url));
   const { storage } = options;
-  const removeStored = async (keys: string[]) => {
-    try {
-      await storage.deleteFiles(keys);
-    } catch (error) {
-      report('could not delete stored files', { keys, error: String(error) });
-    }
-  };
+  const removeStored = (keys: string[]) => removeQuietly(storage, keys, report);
 
   let inspected: InspectedImage;
   try {
@@ -350,11 +357,7 @@ export async function completeSeriesVideoUpload(
     if (!options.onVideoStored) throw new Error('Videos are not taken here.');
     return await options.onVideoStored(file, owner);
   } catch (error) {
-    try {
-      await options.storage.deleteFiles([file.key]);
-    } catch (deleteError) {
-      report('could not delete a refused video', { key: file.key, error: String(deleteError) });
-    }
+    await removeQuietly(options.storage, [file.key], report);
     report('refused video', { fileKey: file.key, error: String(error) });
     return {
       status: 'refused',

@@ -110,7 +110,7 @@ describe('dynamic wetting from a video', () => {
     // Save to an HT-200 sample: the video goes through the upload service and the server
     // analyses it again with the moved window.
     const sample = page.locator('#series-sample');
-    const option = sample.locator('option', { hasText: 'HT-200' }).first();
+    const option = sample.locator('optgroup[label^="HT-200"] option').first();
     const label = (await option.textContent()) ?? '';
     await sample.selectOption({ label });
     await page.getByRole('button', { name: 'Save the measurement' }).click();
@@ -124,7 +124,7 @@ describe('dynamic wetting from a video', () => {
     expect(Math.abs(savedAdvancing - expected.advancingDeg)).toBeLessThan(0.5);
     expect(Math.abs(savedReceding - expected.recedingDeg)).toBeLessThan(0.5);
 
-    const lotCode = label.split('·')[1]?.split('/')[0]?.trim() ?? '';
+    const lotCode = label.split('/')[0].trim();
     await page.getByRole('link', { name: 'Compare this batch' }).click();
     await page.waitForURL(/\/compare\?/, { timeout: 120_000 });
     const row = page.locator(`[data-testid="batch-row-liquid-water-advancing-${lotCode}"]`);
