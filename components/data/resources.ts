@@ -16,7 +16,11 @@ import {
 import { tensiometryListResponseSchema, type TensiometryResult } from '@/lib/contracts/tensiometry';
 import type { SurfaceEnergyMethod } from '@/lib/surface-energy';
 import type { LiquidAngle, UncertaintyBasis } from '@/lib/surface-energy/compute';
-import type { Wire } from './fetch';
+import {
+  dynamicMeasurementSchema,
+  type DynamicMeasurementReply,
+} from '@/lib/contracts/dynamic';
+import { apiFetch, type Wire } from './fetch';
 import { useApi, useApiPost } from './swr';
 
 // ---------------------------------------------------------------- photos and their drops
@@ -123,4 +127,18 @@ export function useSurfaceEnergyCalculation(
     error: query.error ?? null,
     computing: query.isValidating,
   };
+}
+
+// ---------------------------------------------------------------- dynamic measurements
+
+export type SavedDynamicMeasurement = Wire<DynamicMeasurementReply>;
+
+export const dynamicMeasurementUrl = (id: string) =>
+  `/api/dynamic-measurements/${encodeURIComponent(id)}`;
+
+/** A saved dynamic measurement with its newest result and the server's per-frame series. */
+export function fetchDynamicMeasurement(id: string): Promise<SavedDynamicMeasurement> {
+  return apiFetch<SavedDynamicMeasurement>(dynamicMeasurementUrl(id), {
+    schema: dynamicMeasurementSchema,
+  });
 }

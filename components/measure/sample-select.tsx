@@ -4,9 +4,10 @@ import { useMemo, type ComponentProps } from 'react';
 import { SelectField } from '@/components/ui/fields';
 import type { LiquidChoice, SampleChoice } from './types';
 
-/** A sample picker grouped by coating ("lot / sample"). */
+/** A sample picker grouped by coating ("lot / sample"); with no samples, it says how to add one. */
 export function SampleSelect({
   samples,
+  hint,
   ...field
 }: { samples: SampleChoice[] } & Omit<ComponentProps<typeof SelectField>, 'options'>) {
   const byCoating = useMemo(() => {
@@ -18,7 +19,15 @@ export function SampleSelect({
     return [...groups];
   }, [samples]);
   return (
-    <SelectField {...field}>
+    <SelectField
+      {...field}
+      hint={
+        hint ??
+        (samples.length === 0
+          ? 'No samples yet: add a coating, a batch and a sample first.'
+          : undefined)
+      }
+    >
       {byCoating.map(([group, choices]) => (
         <optgroup key={group} label={group}>
           {choices.map((s) => (

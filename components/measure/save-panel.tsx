@@ -48,11 +48,6 @@ export function SavePanel({
         disabled={!photo}
         value={photo?.sampleId ?? ''}
         onChange={(e) => onAssign({ sampleId: e.target.value })}
-        hint={
-          samples.length === 0
-            ? 'No samples yet: add a coating, a batch and a sample first.'
-            : undefined
-        }
       />
       <SelectField
         id="photo-liquid"

@@ -14,7 +14,10 @@ export function AppShell({ ctx, children }: { ctx: OrgContext; children: React.R
     { href: '/probe-liquids', label: 'Probe liquids' },
     { href: '/sessions', label: 'Sessions' },
     ...(can(ctx.organization.role, 'records:write')
-      ? [{ href: '/measure', label: 'Measure' }]
+      ? [
+          { href: '/measure', label: 'Measure' },
+          { href: '/dynamic-wetting', label: 'Dynamic wetting' },
+        ]
       : []),
     { href: '/compare', label: 'Compare' },
     { href: '/surface-energy', label: 'Surface energy' },

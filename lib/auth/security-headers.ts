@@ -9,6 +9,7 @@
  * - workers from this site (and blob: URLs, which bundlers use to start them);
  * - connections to this site and to the upload service (uploads go from the browser straight to
  *   it, lib/uploads/config.ts), images also from blob:/data: URLs (previews of chosen photos);
+ * - video from blob: URLs (a chosen video file is decoded in the page, frame by frame);
  * - styles from this site and inline style attributes (charts and the canvas set them);
  * - no plugins, no <base> elsewhere, forms only to this site, and no framing by anyone.
  */
@@ -26,6 +27,7 @@ export function contentSecurityPolicy({ nonce, development, uploadOrigins }: Pol
     `script-src 'self' 'nonce-${nonce}' 'strict-dynamic' 'wasm-unsafe-eval'${development ? " 'unsafe-eval'" : ''}`,
     `style-src 'self' 'unsafe-inline'`,
     `img-src 'self' blob: data: ${uploads}`.trim(),
+    `media-src 'self' blob:`,
     `font-src 'self'`,
     `connect-src 'self' ${uploads}${development ? ' ws: wss:' : ''}`.trim(),
     `worker-src 'self' blob:`,

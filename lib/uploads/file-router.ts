@@ -22,6 +22,8 @@ import {
  */
 
 export const DROP_PHOTO_ROUTE = 'dropPhoto';
+/** Videos of a series of one drop (dynamic wetting), kept as `videos` rows. */
+export const SERIES_VIDEO_ROUTE = 'seriesVideo';
 export const MAX_PHOTOS_PER_UPLOAD = 50;
 
 /**
@@ -123,6 +125,18 @@ export type DropPhotoUploadResult =
   | { status: 'refused'; fileKey: string; code: ImageRefusalCode; message: string }
   | { status: 'failed'; fileKey: string; message: string };
 
+/** A series video as the upload service reports it. */
+export interface UploadedSeriesVideo {
+  key: string;
+  name: string;
+  size: number;
+  url: string;
+}
+
+export type SeriesVideoUploadResult =
+  | { status: 'stored'; videoId: string; fps: number | null; frameCount: number | null; width: number; height: number }
+  | { status: 'refused'; fileKey: string; message: string };
+
 /** Minimal slice of UTApi the route uses; a real UTApi fits. */
 export type UploadStorage = Pick<UTApi, 'deleteFiles' | 'uploadFiles'>;
 
@@ -135,6 +149,14 @@ export interface DropPhotoRouterOptions {
     inspected: InspectedImage,
     context: StoredDropPhotoContext,
   ): Promise<{ photoId: string }>;
+  /**
+   * Records a stored series video (read by ffprobe on the server); throwing refuses it with the
+   * error's message and removes the stored file. Without it the route refuses every video.
+   */
+  onVideoStored?(
+    file: UploadedSeriesVideo,
+    owner: DropPhotoOwner,
+  ): Promise<Extract<SeriesVideoUploadResult, { status: 'stored' }>>;
   /** Downloads the stored original; default fetch() with the 25 MB limit. */
   fetchFile?(url: string): Promise<Buffer>;
   /** Delete and server-side upload; default a UTApi configured by lib/uploads/config. */
@@ -249,6 +271,19 @@ async function storeDerived(
   return { thumbnail: stored[0], workerPng: stored[1] ?? null };
 }
 
+/** Deletes stored files; a failure is reported, never thrown (the upload's answer matters more). */
+async function removeQuietly(
+  storage: UploadStorage,
+  keys: string[],
+  report: NonNullable<DropPhotoRouterOptions['report']>,
+): Promise<void> {
+  try {
+    await storage.deleteFiles(keys);
+  } catch (error) {
+    report('could not delete stored files', { keys, error: String(error) });
+  }
+}
+
 /**
  * What happens once the service has stored an upload: inspect the bytes; on refusal delete the
  * file and record nothing; on success keep a thumbnail (and worker PNG) beside it and record it.
@@ -262,13 +297,7 @@ export async function completeDropPhotoUpload(
   const report = options.report ?? defaultReport;
   const fetchFile = options.fetchFile ?? ((url: string) => fetchStoredFile(url));
   const { storage } = options;
-  const removeStored = async (keys: string[]) => {
-    try {
-      await storage.deleteFiles(keys);
-    } catch (error) {
-      report('could not delete stored files', { keys, error: String(error) });
-    }
-  };
+  const removeStored = (keys: string[]) => removeQuietly(storage, keys, report);
 
   let inspected: InspectedImage;
   try {
@@ -314,7 +343,34 @@ export async function completeDropPhotoUpload(
   }
 }
 
-/** Builds the FileRouter with the single `dropPhoto` route. */
+/**
+ * What happens once the service has stored a series video: the app records it (ffprobe reads it
+ * on the server); a video it refuses is deleted again and the refusal goes back to the browser.
+ */
+export async function completeSeriesVideoUpload(
+  file: UploadedSeriesVideo,
+  owner: DropPhotoOwner,
+  options: DropPhotoRouterOptions & { storage: UploadStorage },
+): Promise<SeriesVideoUploadResult> {
+  const report = options.report ?? defaultReport;
+  try {
+    if (!options.onVideoStored) throw new Error('Videos are not taken here.');
+    return await options.onVideoStored(file, owner);
+  } catch (error) {
+    await removeQuietly(options.storage, [file.key], report);
+    report('refused video', { fileKey: file.key, error: String(error) });
+    return {
+      status: 'refused',
+      fileKey: file.key,
+      message:
+        error instanceof Error && error.message
+          ? error.message
+          : 'The video could not be read on the server. Upload it as MP4 (H.264), WebM or AVI (MJPEG).',
+    };
+  }
+}
+
+/** Builds the FileRouter: drop photos (`dropPhoto`) and series videos (`seriesVideo`). */
 export function createDropPhotoRouter(options: DropPhotoRouterOptions) {
   const f = createUploadthing();
   let defaultStorage: UTApi | null = null;
@@ -371,6 +427,18 @@ export function createDropPhotoRouter(options: DropPhotoRouterOptions) {
           return result;
         }
       }),
+    [SERIES_VIDEO_ROUTE]: f({ video: { maxFileSize: '512MB', maxFileCount: 1 } })
+      .middleware(async ({ req }): Promise<DropPhotoOwner> => {
+        const owner = await options.authorize(req, {});
+        return { userId: owner.userId, organizationId: owner.organizationId };
+      })
+      .onUploadComplete(async ({ metadata, file }) =>
+        completeSeriesVideoUpload(
+          { key: file.key, name: file.name, size: file.size, url: file.ufsUrl },
+          metadata,
+          { ...options, storage: storage() },
+        ),
+      ),
   } satisfies FileRouter;
 
   return router;

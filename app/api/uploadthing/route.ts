@@ -1,12 +1,13 @@
 import { UploadThingError } from 'uploadthing/server';
 import { inspectedPhotoRow, recordUploadedPhoto } from '@/server/photos/record-upload';
+import { recordUploadedVideo } from '@/server/dynamic/record-video';
 import { getAuthContext } from '@/lib/auth/context';
 import { can } from '@/lib/auth/permissions';
 import { createDropPhotoRouter } from '@/lib/uploads/file-router';
 import { createUploadRouteHandlers } from '@/lib/uploads/route-handlers';
 
 /**
- * Drop-photo uploads through the uploadthing SDK: signed in, analyst or admin, recorded in the
+ * Drop-photo and series-video uploads through the uploadthing SDK: signed in, analyst or admin, recorded in the
  * active organization. Each accepted photo becomes a `photos` row; a refused one leaves nothing.
  */
 const dropPhotoRouter = createDropPhotoRouter({
@@ -34,6 +35,17 @@ const dropPhotoRouter = createDropPhotoRouter({
     return recordUploadedPhoto(inspectedPhotoRow(metadata, file, inspected, purpose), {
       reuseUnsavedTwin: purpose === 'sessile-drop',
     });
+  },
+  async onVideoStored(file, owner) {
+    const { videoId, info } = await recordUploadedVideo(owner, file);
+    return {
+      status: 'stored',
+      videoId,
+      fps: info.fps,
+      frameCount: info.frameCount,
+      width: info.width,
+      height: info.height,
+    };
   },
 });
 

@@ -2,8 +2,8 @@ import { chromium, type Browser, type Page } from 'playwright-core';
 
 export const BASE_URL = process.env.E2E_BASE_URL ?? 'http://127.0.0.1:3100';
 
-/** Debian's Chromium, never a downloaded browser. */
-export async function launchBrowser(): Promise<Browser> {
+/** Debian's Chromium, never a downloaded browser; `extraArgs` e.g. the fake-camera flags. */
+export async function launchBrowser(extraArgs: string[] = []): Promise<Browser> {
   return chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     args: [
@@ -14,6 +14,7 @@ export async function launchBrowser(): Promise<Browser> {
       '--disable-component-update',
       '--disable-sync',
       '--no-first-run',
+      ...extraArgs,
     ],
   });
 }

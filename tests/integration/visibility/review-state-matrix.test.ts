@@ -388,6 +388,7 @@ const NOT_IN_MATRIX: Record<string, string> = {
   '(app)/reviews': 'results:read-all',
   '(app)/reviews/[id]': 'results:read-all',
   '(app)/measure': 'records:write',
+  '(app)/dynamic-wetting': 'records:write (analyses in the browser; saved results via api/dynamic-measurements)',
   '(app)/batches/[id]/import': 'records:write',
   '(app)/audit': 'audit:read',
   '(app)/batches': 'records',
