@@ -27,7 +27,10 @@ const MAIN_PAGES = [
   '/reviews',
   '/team',
   '/team/api',
+  '/team/webhooks',
   '/api-reference',
+  '/measure',
+  '/dynamic-wetting',
   '/audit',
 ];
 
@@ -40,7 +43,7 @@ beforeAll(async () => {
   const context = await browser.newContext({ bypassCSP: true });
   page = await context.newPage();
   await signIn(page, 'admin@kestrel.example', DEMO_PASSWORD);
-  // A coating, a batch (with its import page) and a review page too, found from their lists.
+  // A coating, a batch (with its import page), a drop and a review page too, found from their lists.
   await page.goto(`${BASE_URL}/coatings`);
   const coating = await page
     .getByRole('link', { name: 'HT-200', exact: true })
@@ -50,7 +53,9 @@ beforeAll(async () => {
   const batch = await page.getByRole('link', { name: 'B-0412' }).first().getAttribute('href');
   await page.goto(`${BASE_URL}/reviews`);
   const review = await page.locator('a[href^="/reviews/"]').first().getAttribute('href');
-  const found = [coating, batch, batch && `${batch}/import`, review];
+  await page.goto(`${BASE_URL}${batch}`);
+  const drop = await page.locator('a[href^="/drops/"]').first().getAttribute('href');
+  const found = [coating, batch, batch && `${batch}/import`, review, drop];
   expect(found.every(Boolean), JSON.stringify(found)).toBe(true);
   pages = [...MAIN_PAGES, ...(found as string[])];
 });
