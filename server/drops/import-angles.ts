@@ -19,6 +19,7 @@ import { parseImportCsv } from '@/lib/csv/import';
 import { SOFTWARE_VERSION } from '@/lib/measure/version';
 import type { Actor } from '../actor';
 import { refreshBatchVerdictQuietly } from '../alerts/refresh-verdict';
+import { emitWebhookEvents } from '../webhooks/emit';
 
 /** 400 listing every problem of an import file; nothing was imported. */
 function invalidImport(issues: ImportIssue[]): AppError {
@@ -151,6 +152,26 @@ export async function importManualAngles(
       });
     }
     await insertDropsAndAnalyses(tx, dropRows, analysisRows);
+    await emitWebhookEvents(
+      tx,
+      actor.organizationId,
+      'analysis.saved',
+      analysisRows.map((a, i) => ({
+        analysisId: a.id,
+        dropId: a.dropId,
+        revision: 1,
+        sampleId: dropRows[i]!.sampleId,
+        probeLiquidId: dropRows[i]!.probeLiquidId,
+        photoId: null,
+        method: 'manual',
+        leftDeg: a.leftDeg,
+        rightDeg: a.rightDeg,
+        meanDeg: a.meanDeg,
+        warnings: [],
+        source: 'import',
+        savedByUserId: actor.userId,
+      })),
+    );
     const dropIds = dropRows.map((d) => d.id!);
     await recordAudit(tx, {
       actorUserId: actor.userId,

@@ -18,29 +18,49 @@ export async function emitWebhookEvent(
   data: Record<string, unknown>,
   options: QueueOptions = {},
 ): Promise<string | null> {
+  const [id] = await emitWebhookEvents(tx, organizationId, type, [data], options);
+  return id ?? null;
+}
+
+/**
+ * Several events of one type from one change (an import of many analyses): the subscribers are
+ * read once, and every delivery row and job is written in one go. Answers the events' ids, or
+ * none when nobody listens.
+ */
+export async function emitWebhookEvents(
+  tx: Executor,
+  organizationId: string,
+  type: WebhookEventType,
+  dataList: Record<string, unknown>[],
+  options: QueueOptions = {},
+): Promise<string[]> {
+  if (dataList.length === 0) return [];
   const subscribers = await webhooksFor(tx, organizationId, type);
-  if (subscribers.length === 0) return null;
-  const event: WebhookEvent = {
+  if (subscribers.length === 0) return [];
+  const time = new Date().toISOString();
+  const events: WebhookEvent[] = dataList.map((data) => ({
     id: newId(),
     type,
-    time: new Date().toISOString(),
+    time,
     organizationId,
     data,
-  };
-  const body = JSON.stringify(event);
-  const rows = subscribers.map((webhook) => ({
-    id: newId(),
-    organizationId,
-    webhookId: webhook.id,
-    eventId: event.id,
-    eventType: type,
-    body,
   }));
+  const rows = events.flatMap((event) => {
+    const body = JSON.stringify(event);
+    return subscribers.map((webhook) => ({
+      id: newId(),
+      organizationId,
+      webhookId: webhook.id,
+      eventId: event.id,
+      eventType: type,
+      body,
+    }));
+  });
   await insertDeliveries(tx, rows);
   await enqueueDeliveries(
     tx,
     rows.map((row) => row.id),
     options,
   );
-  return event.id;
+  return events.map((event) => event.id);
 }

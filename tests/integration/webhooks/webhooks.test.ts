@@ -11,6 +11,7 @@ import {
   redeliverWebhookAction,
   removeWebhookAction,
 } from '@/app/(app)/team/webhooks/actions';
+import * as importRoute from '@/app/api/batches/[id]/import/route';
 import * as reviewsRoute from '@/app/api/reviews/route';
 import * as decisionRoute from '@/app/api/reviews/[id]/decision/route';
 import { ROLES, type Role } from '@/lib/auth/permissions';
@@ -276,6 +277,51 @@ async function deliverEachEvent() {
     ]);
   }
 }
+
+describe('imported angles', () => {
+  it('an import of hand-read angles records one analysis.saved event per imported analysis, in its transaction', async () => {
+    const listener = await receiver();
+    expect(
+      (await register(members.admin, listener.url(), ['analysis.saved'])).message,
+    ).toBeUndefined();
+    const hook = await webhookOf(listener.url());
+    const coatingId = await insertCoating(lab.id, `WI-${newId().slice(0, 5)}`);
+    const batchId = await insertBatch(lab.id, coatingId, 'L-IMPORT');
+    const sampleId = await insertSample(lab.id, batchId, 'S1');
+    const csv = [
+      'Sample label,Probe liquid,Left angle (°),Right angle (°),Measured at,Operator,Note',
+      'S1,Water,101.5,102.5,2026-11-21 10:10,T. Test,',
+      'S1,Water,99,100,2026-11-21 10:12,T. Test,',
+    ].join('\n');
+    const bad = await call(importRoute.POST, `/api/batches/${batchId}/import`, {
+      method: 'POST',
+      sessionId: members.analyst.sessionId,
+      body: { csv: `${csv}\nS9,Water,100,100,2026-11-21 10:14,T. Test,` },
+      params: idParams(batchId),
+    });
+    // All or nothing: a refused import records no event either.
+    expect(bad.status).toBe(400);
+    expect(await deliveriesOf(hook.id)).toEqual([]);
+    const imported = await call(importRoute.POST, `/api/batches/${batchId}/import`, {
+      method: 'POST',
+      sessionId: members.analyst.sessionId,
+      body: { csv },
+      params: idParams(batchId),
+    });
+    expect(imported.status).toBeLessThan(300);
+    const rows = await deliveriesOf(hook.id);
+    expect(rows.map((r) => r.eventType)).toEqual(['analysis.saved', 'analysis.saved']);
+    const events = rows.map((r) => webhookEventSchema.parse(JSON.parse(r.body)));
+    expect(events.map((e) => e.data.meanDeg).sort()).toEqual([99.5, 102]);
+    for (const event of events)
+      expect(event.data).toMatchObject({
+        sampleId,
+        method: 'manual',
+        source: 'import',
+        revision: 1,
+      });
+  });
+});
 
 describe('a receiver that is down', () => {
   it('is retried with growing waits and gets the delivery once it is back', async () => {
