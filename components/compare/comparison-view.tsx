@@ -122,7 +122,10 @@ function BatchRow({ r, liquidId }: { r: BatchLiquidResult; liquidId: string }) {
                 .filter((x) => x.outlier)
                 .map((x) => (
                   <li key={x.dropId}>
-                    <Link href={dropHref(x.dropId)} className="text-lagoon-700 underline">
+                    <Link
+                      href={dropHref(x.dropId)}
+                      className="inline-block py-1 text-lagoon-700 underline"
+                    >
                       {x.sampleLabel} {fmt(x.meanDeg, 1)}°
                     </Link>
                   </li>

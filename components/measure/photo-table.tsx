@@ -11,6 +11,9 @@ import type { LiquidChoice, SampleChoice } from './types';
  */
 export function photoBadge(photo: WorkspacePhoto): { label: string; tone: string } {
   if (photo.status === 'failed') return { label: 'No result', tone: 'bg-coral-700' };
+  // A saved drop is badged saved at once, while the browser redraws its analysis after a reload.
+  if (photo.status !== 'ready' && photo.savedRevision !== null && !photo.dirty)
+    return { label: `Saved r${photo.savedRevision}`, tone: 'bg-leaf-700' };
   if (photo.status !== 'ready') return { label: 'Analysing', tone: 'bg-ink-600' };
   const save = photo.saveState;
   if (save?.step === 'queued') return { label: 'Waiting to save', tone: 'bg-ink-600' };

@@ -39,7 +39,7 @@ export function WebhookForm() {
           error={state.fields?.description}
         />
       </div>
-      <fieldset>
+      <fieldset className="space-y-3">
         <legend className="mb-1 text-sm font-medium">Events</legend>
         {WEBHOOK_EVENT_TYPES.map((type) => (
           <CheckboxField

@@ -28,6 +28,11 @@ const PNGS = [
   'drop-90-tilted.png',
 ];
 const RUN = Date.now().toString(36);
+/**
+ * The batch these tests save to, review and approve: their own (coating, batch, sample P1), so
+ * the demo batches stay as the demo scenario and other tests expect them (not reviewed).
+ */
+const LOT = `L-WS${RUN.toUpperCase()}`;
 let browser: Browser;
 let files: string[];
 
@@ -46,6 +51,28 @@ function taggedPng(source: string, tag: string, target: string) {
 
 beforeAll(async () => {
   browser = await launchBrowser();
+  const context = await browser.newContext();
+  await signIn(await context.newPage(), 'analyst@kestrel.example', DEMO_PASSWORD);
+  const post = async (route: string, data: unknown) => {
+    const response = await context.request.post(`${BASE_URL}${route}`, {
+      data,
+      headers: { origin: BASE_URL },
+    });
+    const body = (await response.json()) as Record<string, { id: string }>;
+    expect(response.status(), JSON.stringify(body)).toBeLessThan(300);
+    return Object.values(body)[0]!;
+  };
+  const coating = await post('/api/coatings', {
+    code: `WS-${RUN.toUpperCase()}`,
+    name: 'Workspace test topcoat',
+  });
+  const batch = await post('/api/batches', {
+    coatingId: coating.id,
+    lotCode: LOT,
+    producedOn: '2026-12-01',
+  });
+  await post('/api/samples', { batchId: batch.id, label: 'P1' });
+  await context.close();
   const dir = mkdtempSync(path.join(tmpdir(), 'beadline-ws-'));
   files = PNGS.map((name, i) => {
     const target = path.join(dir, `ws-${RUN}-${String(i + 1).padStart(2, '0')}-${name}`);
@@ -118,11 +145,11 @@ describe('a morning of photos in the workspace table', () => {
     await page.getByLabel('RH').fill('41');
 
     // Put the ticked ten on a sample and a liquid.
-    await page.getByLabel('Put ticked on sample').selectOption({ label: 'B-0412 / P1' });
+    await page.getByLabel('Put ticked on sample').selectOption({ label: `${LOT} / P1` });
     await page.getByLabel('Probe liquid of ticked').selectOption({ label: 'Water' });
     await page.getByRole('button', { name: 'Assign to 10 ticked' }).click();
     const samples = await mine(page).locator('td:nth-child(3)').allTextContents();
-    expect(samples).toEqual(Array(10).fill('B-0412 / P1'));
+    expect(samples).toEqual(Array(10).fill(`${LOT} / P1`));
 
     // Save after a confirmation that says what goes where.
     await page.getByRole('button', { name: 'Save 10 ticked…' }).click();
@@ -132,7 +159,7 @@ describe('a morning of photos in the workspace table', () => {
     expect(await where.count()).toBe(11);
     for (const name of names.filter((_, i) => i !== 6 && i !== 9)) {
       const row = where.filter({ hasText: name });
-      expect(await row.textContent()).toContain('B-0412 / P1');
+      expect(await row.textContent()).toContain(`${LOT} / P1`);
       expect(await row.textContent()).toContain('Water');
       expect(await row.textContent()).toContain('new drop');
     }
@@ -153,7 +180,7 @@ describe('a morning of photos in the workspace table', () => {
       }
       return out;
     }, ids);
-    expect(placed).toEqual(Array(10).fill('B-0412/P1'));
+    expect(placed).toEqual(Array(10).fill(`${LOT}/P1`));
 
     // A reload shows the same ten, badged saved at once, and not the removed two.
     await page.reload();
@@ -170,7 +197,7 @@ describe('a morning of photos in the workspace table', () => {
     const name = path.basename(files[0]);
     // The batch page lists the drop with a link to its page.
     await page.goto(`${BASE_URL}/batches`);
-    await page.getByRole('link', { name: 'B-0412', exact: true }).first().click();
+    await page.getByRole('link', { name: LOT, exact: true }).first().click();
     await page.waitForURL(/\/batches\/[^/]+$/);
     const links = page.locator('a[href^="/drops/"]');
     await links.first().waitFor();
@@ -252,7 +279,7 @@ describe('a morning of photos in the workspace table', () => {
     await signIn(analyst, 'analyst@kestrel.example', DEMO_PASSWORD);
     await analyst.goto(`${BASE_URL}/reviews`);
     const batch = analyst.getByLabel('Batch');
-    const option = (await batch.locator('option', { hasText: 'B-0412' }).first().textContent())!;
+    const option = (await batch.locator('option', { hasText: LOT }).first().textContent())!;
     await batch.selectOption({ label: option.trim() });
     await analyst.getByLabel(/Note for the reviewer/).fill('Ten drops from the workspace table');
     await analyst.getByRole('button', { name: 'Submit for review' }).click();
@@ -265,10 +292,10 @@ describe('a morning of photos in the workspace table', () => {
     await reviewer.goto(`${BASE_URL}/reviews`);
     await reviewer
       .getByRole('table', { name: 'Waiting for review' })
-      .getByRole('link', { name: /B-0412/ })
+      .getByRole('link', { name: new RegExp(LOT) })
       .first()
       .click();
-    await reviewer.getByRole('heading', { name: /Review of .*B-0412/ }).waitFor();
+    await reviewer.getByRole('heading', { name: new RegExp(`Review of .*${LOT}`) }).waitFor();
     const reviewUrl = reviewer.url();
 
     // A drop of the review opens its page: the photo's fit and every revision.
@@ -277,7 +304,7 @@ describe('a morning of photos in the workspace table', () => {
     expect(href).toMatch(/^\/drops\/[^/]+$/);
     await first.getByRole('link').first().click();
     await reviewer.waitForURL(`${BASE_URL}${href}`);
-    await reviewer.getByRole('heading', { name: /Drop on .*B-0412/ }).waitFor();
+    await reviewer.getByRole('heading', { name: new RegExp(`Drop on .*${LOT}`) }).waitFor();
     expect(await reviewer.getByTestId('drop-revisions').getByRole('row').count()).toBeGreaterThan(
       0,
     );
@@ -297,7 +324,7 @@ describe('a morning of photos in the workspace table', () => {
     const viewer = await viewerContext.newPage();
     await signIn(viewer, 'viewer@kestrel.example', DEMO_PASSWORD);
     await viewer.goto(`${BASE_URL}${href}`);
-    await viewer.getByRole('heading', { name: /Drop on .*B-0412/ }).waitFor();
+    await viewer.getByRole('heading', { name: new RegExp(`Drop on .*${LOT}`) }).waitFor();
     expect(await viewer.getByTestId('latest-revision').textContent()).toMatch(/^r\d+$/);
     await viewerContext.close();
   }, 300_000);

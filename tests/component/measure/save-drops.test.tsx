@@ -339,6 +339,11 @@ describe('saving drops', () => {
     expect(
       photoBadge({ ...kept, saveState: { step: 'retrying', attempt: 2, seconds: 8 } }).label,
     ).toBe('Server busy: retry in 8 s');
+    // A saved drop reloaded into the table is badged saved while the browser redraws it; a
+    // photo never saved is analysing then.
+    const reloaded = { ...kept, status: 'loading' as const, saveState: undefined };
+    expect(photoBadge({ ...reloaded, savedRevision: 2, dirty: false }).label).toBe('Saved r2');
+    expect(photoBadge(reloaded).label).toBe('Analysing');
     expect([kept.id, kept.savedRevision, kept.dirty, kept.saveState?.step]).toEqual([
       'p1',
       null,
