@@ -51,8 +51,9 @@ function taggedPng(source: string, tag: string, target: string) {
 
 beforeAll(async () => {
   browser = await launchBrowser();
+  // Coatings are added by admins; the analyst then measures on the batch.
   const context = await browser.newContext();
-  await signIn(await context.newPage(), 'analyst@kestrel.example', DEMO_PASSWORD);
+  await signIn(await context.newPage(), 'admin@kestrel.example', DEMO_PASSWORD);
   const post = async (route: string, data: unknown) => {
     const response = await context.request.post(`${BASE_URL}${route}`, {
       data,

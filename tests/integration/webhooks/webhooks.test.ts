@@ -312,7 +312,7 @@ describe('imported angles', () => {
     const rows = await deliveriesOf(hook.id);
     expect(rows.map((r) => r.eventType)).toEqual(['analysis.saved', 'analysis.saved']);
     const events = rows.map((r) => webhookEventSchema.parse(JSON.parse(r.body)));
-    expect(events.map((e) => e.data.meanDeg).sort()).toEqual([99.5, 102]);
+    expect(events.map((e) => e.data.meanDeg as number).sort((a, b) => a - b)).toEqual([99.5, 102]);
     for (const event of events)
       expect(event.data).toMatchObject({
         sampleId,
