@@ -6,6 +6,7 @@ import type { ComparisonLiquidInput } from '@/lib/contracts/compare';
 import { analysisMethodName } from '@/lib/contracts/drops';
 import type { ReviewDropOverlay } from '@/lib/contracts/reviews';
 import { DropOverlay } from './drop-overlay';
+import { dropHref } from '@/lib/measure/links';
 
 const fmt = (v: number | null | undefined, digits = 1) =>
   v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(digits);
@@ -56,7 +57,7 @@ export function ReviewDrops({ drops }: { drops: ReviewDrop[] }) {
                 </p>
               )}
               <p className="mt-2 text-sm">
-                <Link href={`/drops/${d.dropId}`} className="font-medium text-lagoon-700 underline">
+                <Link href={dropHref(d.dropId)} className="font-medium text-lagoon-700 underline">
                   {d.sampleLabel} · {d.liquidName}
                 </Link>{' '}
                 <span className="text-xs text-ink-600">
