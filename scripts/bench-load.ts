@@ -49,7 +49,8 @@ if (
 function databasePort(): number | null {
   const explicit = process.env.BENCH_PG_PORT ?? process.env.PG_PORT;
   if (explicit) return Number(explicit);
-  if (!process.env.DATABASE_URL) return null;
+  // The private cluster of `npm start` (scripts/lib.sh) when nothing says otherwise.
+  if (!process.env.DATABASE_URL) return 54329;
   return Number(new URL(process.env.DATABASE_URL).port || 5432);
 }
 
