@@ -116,7 +116,10 @@ export type DropPhotoUploadResult =
   | {
       status: 'stored';
       photoId: string;
+      /** This upload's stored file; with `reused` it was deleted again (the photo keeps its own). */
       fileKey: string;
+      /** The same file was already kept as `photoId` (the workspace's one photo per file). */
+      reused?: true;
       format: string;
       width: number;
       height: number;
@@ -134,7 +137,14 @@ export interface UploadedSeriesVideo {
 }
 
 export type SeriesVideoUploadResult =
-  | { status: 'stored'; videoId: string; fps: number | null; frameCount: number | null; width: number; height: number }
+  | {
+      status: 'stored';
+      videoId: string;
+      fps: number | null;
+      frameCount: number | null;
+      width: number;
+      height: number;
+    }
   | { status: 'refused'; fileKey: string; message: string };
 
 /** Minimal slice of UTApi the route uses; a real UTApi fits. */
@@ -143,12 +153,15 @@ export type UploadStorage = Pick<UTApi, 'deleteFiles' | 'uploadFiles'>;
 export interface DropPhotoRouterOptions {
   /** Who is uploading; throw UploadThingError UNAUTHORIZED / FORBIDDEN to refuse. */
   authorize(req: Request, input: DropPhotoInput): Promise<DropPhotoOwner>;
-  /** Records the accepted photo; throwing removes every stored file of this upload. */
+  /**
+   * Records the accepted photo; throwing removes every stored file of this upload. `reused`: the
+   * file is a photo already kept (`photoId`), so this upload's stored files are removed again.
+   */
   onStored(
     file: UploadedDropPhotoFile,
     inspected: InspectedImage,
     context: StoredDropPhotoContext,
-  ): Promise<{ photoId: string }>;
+  ): Promise<{ photoId: string; reused?: boolean }>;
   /**
    * Records a stored series video (read by ffprobe on the server); throwing refuses it with the
    * error's message and removes the stored file. Without it the route refuses every video.
@@ -317,23 +330,29 @@ export async function completeDropPhotoUpload(
   }
 
   let derived: DerivedImageFiles | null = null;
+  const storedKeys = () => [
+    file.key,
+    ...(derived
+      ? [derived.thumbnail.key, ...(derived.workerPng ? [derived.workerPng.key] : [])]
+      : []),
+  ];
   try {
     if (options.storeDerivedFiles) derived = await storeDerived(storage, file, inspected);
-    const { photoId } = await options.onStored(file, inspected, { metadata, derived });
+    const { photoId, reused } = await options.onStored(file, inspected, { metadata, derived });
+    // The same file again: the photo already has its stored files, these would be orphans.
+    if (reused) await removeStored(storedKeys());
     return {
       status: 'stored',
       photoId,
       fileKey: file.key,
+      ...(reused ? { reused: true as const } : {}),
       format: inspected.format,
       width: inspected.width,
       height: inspected.height,
       sha256: inspected.sha256,
     };
   } catch (error) {
-    const keys = [file.key];
-    if (derived)
-      keys.push(derived.thumbnail.key, ...(derived.workerPng ? [derived.workerPng.key] : []));
-    await removeStored(keys);
+    await removeStored(storedKeys());
     report('recording an upload failed', { fileKey: file.key, error: String(error) });
     return {
       status: 'failed',

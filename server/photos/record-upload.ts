@@ -15,12 +15,12 @@ import { inTransaction } from '@/db/queries/transaction';
  * Keeps an accepted upload as a `photos` row with its audit row, in one transaction. With
  * `reuseUnsavedTwin` (workspace uploads), the same file uploaded again by the same user while it
  * is not saved to a sample is the photo already kept (put back in the workspace if it was
- * removed), never a second row.
+ * removed), never a second row; `reused` says so, and the caller removes the new stored file.
  */
 export async function recordUploadedPhoto(
   input: NewPhoto,
   { reuseUnsavedTwin = false }: { reuseUnsavedTwin?: boolean } = {},
-): Promise<{ photoId: string }> {
+): Promise<{ photoId: string; reused?: boolean }> {
   return inTransaction(async (tx) => {
     if (reuseUnsavedTwin) {
       await lockUploadsOf(tx, input.uploadedByUserId, input.sha256);
@@ -32,7 +32,7 @@ export async function recordUploadedPhoto(
       });
       if (twin) {
         if (twin.removedAt) await restorePhoto(tx, twin.id);
-        return { photoId: twin.id };
+        return { photoId: twin.id, reused: true };
       }
     }
     const photoId = newId();

@@ -72,6 +72,9 @@ describe("the user's unsaved photos", () => {
     const again = await upload(analyst.userId, sha, 'renamed.png');
     expect(b.photoId).toBe(a.photoId);
     expect(again.photoId).toBe(a.photoId);
+    // The later uploads say they are the kept photo, so their stored files are removed.
+    expect([a, b].filter((r) => r.reused)).toHaveLength(1);
+    expect(again.reused).toBe(true);
     const theirs = await upload(colleague.userId, sha);
     expect(theirs.photoId).not.toBe(a.photoId);
     const rows = await getDb().select().from(photos).where(eq(photos.sha256, sha));

@@ -49,6 +49,8 @@ let dataDir: string;
 let restoreXhr: () => void;
 const storedCalls: StoredCall[] = [];
 let fetchFileCalls = 0;
+/** Set by a test: onStored answers that the file is this photo, already kept. */
+let keptTwin: string | null = null;
 
 function fakeEnv(): Record<string, string> {
   return { UPLOAD_FAKE_URL: fake.url, UPLOAD_FAKE_API_KEY: API_KEY, UPLOAD_FAKE_APP_ID: APP_ID };
@@ -67,6 +69,7 @@ function buildRouter() {
     },
     onStored: async (file, inspected, { metadata, derived }) => {
       storedCalls.push({ file, inspected, metadata, derived });
+      if (keptTwin) return { photoId: keptTwin, reused: true };
       return { photoId: `photo-${storedCalls.length}` };
     },
     fetchFile: async (url) => {
@@ -130,6 +133,7 @@ afterAll(async () => {
 beforeEach(() => {
   storedCalls.length = 0;
   fetchFileCalls = 0;
+  keptTwin = null;
 });
 
 describe('upload fake: token and configuration', () => {
@@ -279,6 +283,25 @@ describe.each([
     expect(storedCalls).toHaveLength(0);
     expect(await storedFileKeys()).toEqual(before);
     expect(existsSync(path.join(dataDir, 'files', `${result.key}.json`))).toBe(false);
+    expect((await fetch(result.ufsUrl)).status).toBe(404);
+  });
+
+  it('removes the stored copy and thumbnail of a file that is already a kept photo: no orphan files', async () => {
+    const before = await storedFileKeys();
+    keptTwin = 'photo-kept-earlier';
+    const bytes = await rgbCard(50, 40).png().toBuffer();
+    const [result] = await client().uploadFiles(DROP_PHOTO_ROUTE, {
+      files: [new File([new Uint8Array(bytes)], 'drop again.png', { type: 'image/png' })],
+      input: {},
+    });
+    expect(result.serverData).toMatchObject({
+      status: 'stored',
+      photoId: 'photo-kept-earlier',
+      reused: true,
+    });
+    // The thumbnail was stored before onStored answered; both are gone again.
+    expect(storedCalls[0].derived).not.toBeNull();
+    expect(await storedFileKeys()).toEqual(before);
     expect((await fetch(result.ufsUrl)).status).toBe(404);
   });
 
