@@ -9,7 +9,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
 import { newId } from '@/db/queries/ids';
 import { decideIfSubmitted, insertReview } from '@/db/queries/reviews';
-import { batches, certificates, measurementSessions } from '@/db/schema';
+import {
+  batches,
+  certificates,
+  dynamicAnalyses,
+  dynamicMeasurements,
+  measurementSessions,
+  specs,
+} from '@/db/schema';
 import type { OrgContext } from '@/lib/auth/context';
 import { closeMailQueue } from '@/server/mail/queue';
 import { renderCertificate, certificateRequestOf } from '@/server/reports/batch-report';
@@ -233,5 +240,71 @@ describe('liquid lot from the measure workspace', () => {
     const { text } = await readPdf((await renderCertificate(certificateRequestOf(ctx), other)).pdf);
     // Whole, not broken across lines inside the code.
     expect(text).toContain('DIM-LOT-2026-077');
+  });
+});
+
+describe('dynamic wetting on the certificate', () => {
+  it('reports advancing, receding and hysteresis per batch with their statistics and the spec verdicts', async () => {
+    const db = getDb();
+    const coatingId = await insertCoating(lab.id, unique('DYN'));
+    await db.insert(specs).values({
+      id: newId(),
+      organizationId: lab.id,
+      coatingId,
+      probeLiquidId: 'liquid-water',
+      scope: 'mean',
+      minAdvancingDeg: 110,
+      maxHysteresisDeg: 10,
+    });
+    const batch = await insertBatch(lab.id, coatingId, unique('B'));
+    const sampleId = await insertSample(lab.id, batch, 'P1');
+    // Three series of one sample, as saved after the server's re-analysis (values invented).
+    const series = [
+      { advancing: 112.4, receding: 100.9 },
+      { advancing: 113.0, receding: 100.2 },
+      { advancing: 111.8, receding: 101.3 },
+    ];
+    for (const [i, s] of series.entries()) {
+      const measurementId = newId();
+      await db.insert(dynamicMeasurements).values({
+        id: measurementId,
+        organizationId: lab.id,
+        sampleId,
+        probeLiquidId: 'liquid-water',
+        kind: 'grow-and-withdraw',
+        sourceType: 'frames',
+        framePhotoIds: [`frame-${i}`],
+        fps: 30,
+        measuredAt: new Date(`2026-11-05T10:0${i}:00Z`),
+        createdByUserId: lab.members.analyst.userId,
+      });
+      await db.insert(dynamicAnalyses).values({
+        id: newId(),
+        organizationId: lab.id,
+        measurementId,
+        revision: 1,
+        method: 'polynomial',
+        options: {} as never,
+        result: {} as never,
+        series: [] as never,
+        advancingDeg: s.advancing,
+        recedingDeg: s.receding,
+        hysteresisDeg: Number((s.advancing - s.receding).toFixed(1)),
+        frameCount: 300,
+        flaggedFrameCount: 0,
+        softwareVersion: 'test',
+        createdByUserId: lab.members.analyst.userId,
+      });
+    }
+    const { text } = await readPdf((await renderCertificate(certificateRequestOf(ctx), batch)).pdf);
+    expect(text).toContain('Dynamic wetting');
+    // Means by hand: advancing (112.4 + 113.0 + 111.8) / 3 = 112.4; receding 100.8;
+    // hysteresis (11.5 + 12.8 + 10.5) / 3 = 11.6, above the spec's 10° limit.
+    // Each row: quantity, n, mean, SD, 95 % CI, verdict.
+    const row = (quantity: string, mean: string, verdict: string) =>
+      new RegExp(`Water, ${quantity} 3 ${mean} [\\d.]+ [\\d.]+ – [\\d.]+ ${verdict}`);
+    expect(text).toMatch(row('advancing angle', '112\\.4', 'PASS'));
+    expect(text).toMatch(row('receding angle', '100\\.8', 'NO SPEC'));
+    expect(text).toMatch(row('hysteresis', '11\\.6', 'FAIL'));
   });
 });
