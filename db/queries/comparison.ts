@@ -122,20 +122,45 @@ function sampleFields(r: SampleSqlRow) {
   };
 }
 
-/** The live batches (of the organization, among `batchIds`) and their live samples. */
-function liveBatchesAndSamples(organizationId: string, batchIds: readonly string[]) {
+/** Where a kind of result is stored and its analysis revisions are. */
+type ResultTables =
+  | { results: 'drops'; analyses: 'analyses'; owner: 'drop_id' }
+  | { results: 'dynamic_measurements'; analyses: 'dynamic_analyses'; owner: 'measurement_id' };
+
+/**
+ * From the live batches `b` (of the organization, among `batchIds`) and their live samples `s`:
+ * every live result `r` (a drop or a dynamic measurement) with `columns` of its latest analysis
+ * revision as `a` (a lateral subquery that walks the (owner, revision) unique index backwards),
+ * as `visibility` allows (db/queries/visibility.ts); in batch, sample and measurement order.
+ */
+function latestResultsOfBatches(
+  organizationId: string,
+  batchIds: readonly string[],
+  visibility: ResultVisibility,
+  tables: ResultTables,
+  columns: string,
+) {
   const ids = sql.join(
     batchIds.map((id) => sql`${id}`),
     sql`, `,
   );
-  return {
-    from: sql`from batches b
+  return sql`from batches b
     join samples s on s.batch_id = b.id and s.organization_id = b.organization_id
-                  and s.archived_at is null`,
-    where: sql`where b.organization_id = ${organizationId}
+                  and s.archived_at is null
+    join ${sql.raw(tables.results)} r on r.sample_id = s.id
+                and r.organization_id = b.organization_id and r.archived_at is null
+    join lateral (
+      select ${sql.raw(columns)}, x.review_status
+      from ${sql.raw(tables.analyses)} x
+      where x.${sql.raw(tables.owner)} = r.id
+      order by x.revision desc
+      limit 1
+    ) a on true
+    where b.organization_id = ${organizationId}
       and b.id in (${ids})
-      and b.archived_at is null`,
-  };
+      and b.archived_at is null
+      ${andVisibleStatus(visibility, sql`a.review_status`)}
+    order by b.produced_on, b.lot_code, s.label, r.measured_at, r.id`;
 }
 
 /**
@@ -150,25 +175,18 @@ export async function comparisonDrops(
   options: { visibility: ResultVisibility },
 ): Promise<ComparisonDropRow[]> {
   if (batchIds.length === 0) return [];
-  const live = liveBatchesAndSamples(organizationId, batchIds);
   const rows = await getDb().execute<DropSqlRow>(sql`
-    select d.id as drop_id, a.id as analysis_id, a.revision, a.review_status,
+    select r.id as drop_id, a.id as analysis_id, a.revision, a.review_status,
            b.id as batch_id, b.lot_code, b.produced_on::text as produced_on,
            s.id as sample_id, s.label as sample_label, s.treated_at,
-           d.measured_at, d.probe_liquid_id, a.left_deg, a.right_deg, a.mean_deg
-    ${live.from}
-    join drops d on d.sample_id = s.id and d.organization_id = b.organization_id
-                and d.archived_at is null
-    join lateral (
-      select x.id, x.revision, x.review_status, x.left_deg, x.right_deg, x.mean_deg
-      from analyses x
-      where x.drop_id = d.id
-      order by x.revision desc
-      limit 1
-    ) a on true
-    ${live.where}
-      ${andVisibleStatus(options.visibility, sql`a.review_status`)}
-    order by b.produced_on, b.lot_code, s.label, d.measured_at, d.id
+           r.measured_at, r.probe_liquid_id, a.left_deg, a.right_deg, a.mean_deg
+    ${latestResultsOfBatches(
+      organizationId,
+      batchIds,
+      options.visibility,
+      { results: 'drops', analyses: 'analyses', owner: 'drop_id' },
+      'x.id, x.revision, x.left_deg, x.right_deg, x.mean_deg',
+    )}
   `);
   return rows.map((r) => ({
     dropId: r.drop_id,
@@ -204,24 +222,17 @@ export async function comparisonDynamic(
   options: { visibility: ResultVisibility },
 ): Promise<ComparisonDynamicInput[]> {
   if (batchIds.length === 0) return [];
-  const live = liveBatchesAndSamples(organizationId, batchIds);
   const rows = await getDb().execute<DynamicSqlRow>(sql`
-    select m.id as measurement_id, b.id as batch_id, s.id as sample_id, s.label as sample_label,
-           m.probe_liquid_id, m.measured_at, s.treated_at,
+    select r.id as measurement_id, b.id as batch_id, s.id as sample_id, s.label as sample_label,
+           r.probe_liquid_id, r.measured_at, s.treated_at,
            a.advancing_deg, a.receding_deg, a.hysteresis_deg, a.roll_off_deg
-    ${live.from}
-    join dynamic_measurements m on m.sample_id = s.id and m.organization_id = b.organization_id
-                               and m.archived_at is null
-    join lateral (
-      select x.advancing_deg, x.receding_deg, x.hysteresis_deg, x.roll_off_deg, x.review_status
-      from dynamic_analyses x
-      where x.measurement_id = m.id
-      order by x.revision desc
-      limit 1
-    ) a on true
-    ${live.where}
-      ${andVisibleStatus(options.visibility, sql`a.review_status`)}
-    order by b.produced_on, b.lot_code, s.label, m.measured_at, m.id
+    ${latestResultsOfBatches(
+      organizationId,
+      batchIds,
+      options.visibility,
+      { results: 'dynamic_measurements', analyses: 'dynamic_analyses', owner: 'measurement_id' },
+      'x.advancing_deg, x.receding_deg, x.hysteresis_deg, x.roll_off_deg',
+    )}
   `);
   return rows.map((r) => ({
     measurementId: r.measurement_id,

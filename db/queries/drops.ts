@@ -1,5 +1,6 @@
 import 'server-only';
-import { and, asc, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, sql, type SQL } from 'drizzle-orm';
+import type { PgSelect } from 'drizzle-orm/pg-core';
 import { getDb } from '../client';
 import {
   analyses,
@@ -107,33 +108,38 @@ export async function nextRevision(tx: Executor, dropId: string): Promise<number
   return Number(next);
 }
 
+/** The organization's drops that are not archived. */
+export function liveDropsOf(organizationId: string): SQL {
+  return and(eq(drops.organizationId, organizationId), isNull(drops.archivedAt)) as SQL;
+}
+
+/** Joins a query of drops to where each drop sits: its sample, batch and coating. */
+function withPlace<Query extends PgSelect>(query: Query) {
+  return query
+    .innerJoin(samples, eq(samples.id, drops.sampleId))
+    .innerJoin(batches, eq(batches.id, samples.batchId))
+    .innerJoin(coatings, eq(coatings.id, batches.coatingId));
+}
+
 /** The drop saved from a photo (if any) with all its analysis revisions, newest first. */
 export async function getDropOfPhoto(
   organizationId: string,
   photoId: string,
 ): Promise<DropOfPhoto> {
-  const db = getDb();
-  const [drop] = await db
-    .select({
-      id: drops.id,
-      sampleId: drops.sampleId,
-      probeLiquidId: drops.probeLiquidId,
-      sessionId: drops.sessionId,
-      sampleLabel: samples.label,
-      lotCode: batches.lotCode,
-      coatingCode: coatings.code,
-    })
-    .from(drops)
-    .innerJoin(samples, eq(samples.id, drops.sampleId))
-    .innerJoin(batches, eq(batches.id, samples.batchId))
-    .innerJoin(coatings, eq(coatings.id, batches.coatingId))
-    .where(
-      and(
-        eq(drops.photoId, photoId),
-        eq(drops.organizationId, organizationId),
-        isNull(drops.archivedAt),
-      ),
-    );
+  const [drop] = await withPlace(
+    getDb()
+      .select({
+        id: drops.id,
+        sampleId: drops.sampleId,
+        probeLiquidId: drops.probeLiquidId,
+        sessionId: drops.sessionId,
+        sampleLabel: samples.label,
+        lotCode: batches.lotCode,
+        coatingCode: coatings.code,
+      })
+      .from(drops)
+      .$dynamic(),
+  ).where(and(eq(drops.photoId, photoId), liveDropsOf(organizationId)));
   if (!drop) return null;
   const revisions = await revisionsOfDrop(drop.id);
   return { ...drop, revisions };
@@ -188,44 +194,43 @@ export async function listDropsWithLatest(
     .where(eq(analyses.organizationId, organizationId))
     .orderBy(analyses.dropId, desc(analyses.revision))
     .as('latest');
-  const rows = await db
-    .select({
-      id: drops.id,
-      sampleId: drops.sampleId,
-      probeLiquidId: drops.probeLiquidId,
-      sessionId: drops.sessionId,
-      photoId: drops.photoId,
-      source: drops.source,
-      sampleLabel: samples.label,
-      batchId: batches.id,
-      lotCode: batches.lotCode,
-      coatingCode: coatings.code,
-      createdAt: drops.createdAt,
-      latest: {
-        id: latest.id,
-        revision: latest.revision,
-        method: latest.method,
-        baseline: latest.baseline,
-        leftDeg: latest.leftDeg,
-        rightDeg: latest.rightDeg,
-        meanDeg: latest.meanDeg,
-        leftUncertaintyDeg: latest.leftUncertaintyDeg,
-        rightUncertaintyDeg: latest.rightUncertaintyDeg,
-        softwareVersion: latest.softwareVersion,
-        reviewStatus: latest.reviewStatus,
-        createdAt: latest.createdAt,
-        createdByUserId: latest.createdByUserId,
-      },
-    })
-    .from(drops)
-    .innerJoin(samples, eq(samples.id, drops.sampleId))
-    .innerJoin(batches, eq(batches.id, samples.batchId))
-    .innerJoin(coatings, eq(coatings.id, batches.coatingId))
+  const rows = await withPlace(
+    getDb()
+      .select({
+        id: drops.id,
+        sampleId: drops.sampleId,
+        probeLiquidId: drops.probeLiquidId,
+        sessionId: drops.sessionId,
+        photoId: drops.photoId,
+        source: drops.source,
+        sampleLabel: samples.label,
+        batchId: batches.id,
+        lotCode: batches.lotCode,
+        coatingCode: coatings.code,
+        createdAt: drops.createdAt,
+        latest: {
+          id: latest.id,
+          revision: latest.revision,
+          method: latest.method,
+          baseline: latest.baseline,
+          leftDeg: latest.leftDeg,
+          rightDeg: latest.rightDeg,
+          meanDeg: latest.meanDeg,
+          leftUncertaintyDeg: latest.leftUncertaintyDeg,
+          rightUncertaintyDeg: latest.rightUncertaintyDeg,
+          softwareVersion: latest.softwareVersion,
+          reviewStatus: latest.reviewStatus,
+          createdAt: latest.createdAt,
+          createdByUserId: latest.createdByUserId,
+        },
+      })
+      .from(drops)
+      .$dynamic(),
+  )
     .leftJoin(latest, eq(latest.dropId, drops.id))
     .where(
       and(
-        eq(drops.organizationId, organizationId),
-        isNull(drops.archivedAt),
+        liveDropsOf(organizationId),
         filters.dropId ? eq(drops.id, filters.dropId) : undefined,
         filters.sampleId ? eq(drops.sampleId, filters.sampleId) : undefined,
         filters.batchId ? eq(samples.batchId, filters.batchId) : undefined,
@@ -288,13 +293,7 @@ export async function listSavedStateOfPhotos(organizationId: string, photoIds: s
     })
     .from(drops)
     .innerJoin(analyses, eq(analyses.dropId, drops.id))
-    .where(
-      and(
-        eq(drops.organizationId, organizationId),
-        inArray(drops.photoId, photoIds),
-        isNull(drops.archivedAt),
-      ),
-    )
+    .where(and(liveDropsOf(organizationId), inArray(drops.photoId, photoIds)))
     .orderBy(drops.photoId, desc(analyses.revision));
 }
 
@@ -323,27 +322,27 @@ export async function getSessionConditions(organizationId: string, sessionId: st
 
 /** A drop of the organization with where it sits and its photo, or null. */
 export async function getDropDetail(organizationId: string, dropId: string) {
-  const [row] = await getDb()
-    .select({
-      id: drops.id,
-      source: drops.source,
-      measuredAt: drops.measuredAt,
-      archivedAt: drops.archivedAt,
-      sampleLabel: samples.label,
-      batchId: batches.id,
-      lotCode: batches.lotCode,
-      coatingCode: coatings.code,
-      coatingName: coatings.name,
-      liquidName: probeLiquids.name,
-      photoId: photos.id,
-      photoName: photos.originalName,
-      photoWidth: photos.width,
-      photoHeight: photos.height,
-    })
-    .from(drops)
-    .innerJoin(samples, eq(samples.id, drops.sampleId))
-    .innerJoin(batches, eq(batches.id, samples.batchId))
-    .innerJoin(coatings, eq(coatings.id, batches.coatingId))
+  const [row] = await withPlace(
+    getDb()
+      .select({
+        id: drops.id,
+        source: drops.source,
+        measuredAt: drops.measuredAt,
+        archivedAt: drops.archivedAt,
+        sampleLabel: samples.label,
+        batchId: batches.id,
+        lotCode: batches.lotCode,
+        coatingCode: coatings.code,
+        coatingName: coatings.name,
+        liquidName: probeLiquids.name,
+        photoId: photos.id,
+        photoName: photos.originalName,
+        photoWidth: photos.width,
+        photoHeight: photos.height,
+      })
+      .from(drops)
+      .$dynamic(),
+  )
     .innerJoin(probeLiquids, eq(probeLiquids.id, drops.probeLiquidId))
     .leftJoin(photos, eq(photos.id, drops.photoId))
     .where(and(eq(drops.organizationId, organizationId), eq(drops.id, dropId)));

@@ -15,6 +15,7 @@ import {
   samples,
   users,
 } from '../schema';
+import { liveDropsOf } from './drops';
 import type { Executor } from './transaction';
 
 /** Latest revision of every live drop under a batch (or one sample of it). */
@@ -56,9 +57,8 @@ export async function latestAnalysesUnder(
     )
     .where(
       and(
-        eq(drops.organizationId, organizationId),
+        liveDropsOf(organizationId),
         eq(samples.batchId, batchId),
-        isNull(drops.archivedAt),
         sampleId ? eq(samples.id, sampleId) : undefined,
       ),
     )

@@ -1,5 +1,5 @@
 import 'server-only';
-import { and, asc, desc, eq, inArray, isNotNull, isNull, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNotNull, sql } from 'drizzle-orm';
 import type { Page } from '@/lib/contracts/common';
 import type {
   BatchDrop,
@@ -10,6 +10,7 @@ import type {
 import { getDb } from '../client';
 import { builtInProbeLiquidId } from '../probe-liquid-library';
 import { analyses, drops, probeLiquids, samples } from '../schema';
+import { liveDropsOf } from './drops';
 import { listSamples } from './samples';
 import { visibleStatus, type ResultVisibility } from './visibility';
 
@@ -55,6 +56,21 @@ function latestAnalyses(organizationId: string, visibility: ResultVisibility) {
 }
 
 /**
+ * The organization's live drops whose latest revision `visibility` shows, with `latest` joined
+ * (latestAnalyses): with `all` every live drop, with `approved` those with an approved one.
+ */
+function liveDropsShown(
+  organizationId: string,
+  latest: ReturnType<typeof latestAnalyses>,
+  visibility: ResultVisibility,
+) {
+  return and(
+    liveDropsOf(organizationId),
+    visibility === 'all' ? undefined : isNotNull(latest.dropId),
+  );
+}
+
+/**
  * Drop counts and mean water contact angle of the given samples (latest revision per drop); with
  * `approved` visibility only the drops whose latest revision is approved count.
  */
@@ -78,12 +94,7 @@ export async function sampleResults(
     .from(drops)
     .leftJoin(latest, eq(latest.dropId, drops.id))
     .where(
-      and(
-        eq(drops.organizationId, organizationId),
-        inArray(drops.sampleId, sampleIds),
-        isNull(drops.archivedAt),
-        visibility === 'all' ? undefined : isNotNull(latest.dropId),
-      ),
+      and(liveDropsShown(organizationId, latest, visibility), inArray(drops.sampleId, sampleIds)),
     )
     .groupBy(drops.sampleId);
   for (const row of rows) {
@@ -146,14 +157,7 @@ export async function listBatchDrops(
     .innerJoin(samples, eq(samples.id, drops.sampleId))
     .innerJoin(probeLiquids, eq(probeLiquids.id, drops.probeLiquidId))
     .leftJoin(latest, eq(latest.dropId, drops.id))
-    .where(
-      and(
-        eq(drops.organizationId, organizationId),
-        eq(samples.batchId, batchId),
-        isNull(drops.archivedAt),
-        visibility === 'all' ? undefined : isNotNull(latest.dropId),
-      ),
-    )
+    .where(and(liveDropsShown(organizationId, latest, visibility), eq(samples.batchId, batchId)))
     .orderBy(desc(drops.measuredAt), asc(drops.id))
     .limit(limit);
 }

@@ -20,6 +20,7 @@ import {
 } from '../schema';
 import { visibleSavedInputs, visibleStatus, type ResultVisibility } from './visibility';
 import { findBatchWithCoating } from './batches';
+import { liveDropsOf } from './drops';
 import type { Executor } from './transaction';
 
 /** Samples with their batch and coating. */
@@ -136,8 +137,7 @@ export async function listLatestDropAngles(
     .innerJoin(probeLiquids, eq(probeLiquids.id, drops.probeLiquidId))
     .where(
       and(
-        eq(drops.organizationId, organizationId),
-        isNull(drops.archivedAt),
+        liveDropsOf(organizationId),
         subjectFilter,
         visibleStatus(options.visibility, analyses.reviewStatus),
       ),

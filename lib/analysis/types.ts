@@ -1,4 +1,5 @@
 import type { AnalysisSettings } from './settings';
+import { CodedError } from '../coded-error';
 
 /**
  * Public types of the drop-analysis engine. Everything here is plain data so it can cross a
@@ -81,13 +82,8 @@ export interface AnalysisWarning {
 export type AnalysisErrorCode = 'no_drop_found' | 'baseline_not_found' | 'fit_failed' | 'bad_input';
 
 /** Thrown by `analyseDrop` when no result can be produced at all. */
-export class AnalysisError extends Error {
-  readonly code: AnalysisErrorCode;
-  constructor(code: AnalysisErrorCode, message: string) {
-    super(message);
-    this.name = 'AnalysisError';
-    this.code = code;
-  }
+export class AnalysisError extends CodedError<AnalysisErrorCode> {
+  override readonly name = 'AnalysisError';
 }
 
 export type Point = [number, number];

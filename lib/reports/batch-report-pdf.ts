@@ -103,6 +103,27 @@ const PROCESS_LABELS: Record<string, string> = {
 const fmt = (value: number | null | undefined, digits = 1) =>
   value === null || value === undefined || !Number.isFinite(value) ? '—' : value.toFixed(digits);
 
+type Outcome = BatchLiquidResult['verdict']['outcome'];
+/** A verdict as the tables print it: PASS, FAIL, NO SPEC, … */
+const verdictText = (outcome: Outcome) =>
+  (outcome === 'no-spec' ? 'no spec' : outcome.replace(/-/g, ' ')).toUpperCase();
+const verdictColour = (outcome: Outcome) =>
+  outcome === 'pass' ? LEAF : outcome === 'fail' ? CORAL : AMBER;
+
+/** The columns, and the cells, of the statistics of a set of angles: n, mean, SD, 95 % CI. */
+const STATISTICS_COLUMNS = [
+  { title: 'n', width: 28, align: 'right' },
+  { title: 'Mean (°)', width: 50, align: 'right' },
+  { title: 'SD (°)', width: 42, align: 'right' },
+  { title: '95 % CI (°)', width: 80, align: 'right' },
+] as const;
+const statisticsCells = (d: BatchLiquidResult['description']) => [
+  String(d?.n ?? 0),
+  fmt(d?.mean),
+  fmt(d?.sd, 2),
+  d?.ci ? `${fmt(d.ci.lower)} – ${fmt(d.ci.upper)}` : '—',
+];
+
 /**
  * Renders the certificate of analysis as an archival, tagged PDF (PDF/A-2b, A4, embedded DejaVu
  * Sans, vector plots): every text is a structure element (headings H1/H2, paragraphs P), the
@@ -184,6 +205,15 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
         .stroke(),
     );
     doc.moveDown(0.5).font('Helvetica').fontSize(9.5).fillColor(INK);
+  };
+  /** A small muted line: the basis of a table, a note, a rule applied. */
+  const note = (text: string) =>
+    doc.fontSize(8.5).fillColor(MUTED).text(text, left, doc.y, { width });
+  /** A results section: its heading and the basis its figures rest on. */
+  const resultsSection = (title: string, basis: string) => {
+    heading(title);
+    note(basis).fontSize(9.5).fillColor(INK);
+    doc.moveDown(0.4);
   };
   const pairs = (rows: [string, string][]) => {
     for (const [label, value] of rows) {
@@ -378,51 +408,28 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
     doc.fontSize(9.5).fillColor(INK);
   }
 
-  heading('Results per probe liquid');
-  doc
-    .fontSize(8.5)
-    .fillColor(MUTED)
-    .text(`${data.angleBasis} Confidence intervals: Student t, 95 %.`, left, doc.y, { width })
-    .fontSize(9.5)
-    .fillColor(INK);
-  doc.moveDown(0.4);
+  resultsSection(
+    'Results per probe liquid',
+    `${data.angleBasis} Confidence intervals: Student t, 95 %.`,
+  );
   table(
     [
       { title: 'Liquid', width: 80 },
-      { title: 'n', width: 28, align: 'right' },
-      { title: 'Mean (°)', width: 50, align: 'right' },
-      { title: 'SD (°)', width: 42, align: 'right' },
-      { title: '95 % CI (°)', width: 80, align: 'right' },
+      ...STATISTICS_COLUMNS,
       { title: 'Class', width: 70 },
       { title: 'Verdict', width: 133 },
     ],
-    data.liquids.map(({ name, result }) => {
-      const d = result.description;
-      const verdict =
-        result.verdict.outcome === 'no-spec'
-          ? 'no spec'
-          : result.verdict.outcome.replace(/-/g, ' ');
-      return [
-        name,
-        String(d?.n ?? 0),
-        fmt(d?.mean),
-        fmt(d?.sd, 2),
-        d?.ci ? `${fmt(d.ci.lower)} – ${fmt(d.ci.upper)}` : '—',
-        result.wettingClass?.label ?? '—',
-        verdict.toUpperCase(),
-      ];
-    }),
-    data.liquids.map(({ result }) =>
-      result.verdict.outcome === 'pass' ? LEAF : result.verdict.outcome === 'fail' ? CORAL : AMBER,
-    ),
+    data.liquids.map(({ name, result }) => [
+      name,
+      ...statisticsCells(result.description),
+      result.wettingClass?.label ?? '—',
+      verdictText(result.verdict.outcome),
+    ]),
+    data.liquids.map(({ result }) => verdictColour(result.verdict.outcome)),
   );
   for (const { name, result } of data.liquids) {
-    for (const spec of result.verdict.specs) {
-      doc
-        .fontSize(8.5)
-        .fillColor(MUTED)
-        .text(`${name} — rule applied: ${spec.rule} ${spec.reason}`, left, doc.y, { width });
-    }
+    for (const spec of result.verdict.specs)
+      note(`${name} — rule applied: ${spec.rule} ${spec.reason}`);
   }
   doc.fontSize(9.5).fillColor(INK);
 
@@ -430,16 +437,7 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
     const { result, method, basis, coverageFactor } = data.surfaceEnergy;
     const pm = (v: { value: number; standardUncertainty: number } | null) =>
       v ? `${fmt(v.value)} ± ${fmt(coverageFactor * v.standardUncertainty)}` : '—';
-    heading('Surface free energy');
-    doc
-      .fontSize(8.5)
-      .fillColor(MUTED)
-      .text(`${method}. ${basis}`, left, doc.y, { width })
-      .fontSize(9.5)
-      .fillColor(INK);
-    doc.moveDown(0.4);
-    const outcome =
-      result.verdict.outcome === 'no-spec' ? 'no spec' : result.verdict.outcome.replace(/-/g, ' ');
+    resultsSection('Surface free energy', `${method}. ${basis}`);
     table(
       [
         { title: 'Liquids (n)', width: 150 },
@@ -454,53 +452,35 @@ export function renderBatchReportPdf(data: BatchReportData): Promise<Buffer> {
           pm(result.total),
           pm(result.dispersive),
           pm(result.polar),
-          outcome.toUpperCase(),
+          verdictText(result.verdict.outcome),
         ],
       ],
-      [
-        result.verdict.outcome === 'pass'
-          ? LEAF
-          : result.verdict.outcome === 'fail'
-            ? CORAL
-            : AMBER,
-      ],
+      [verdictColour(result.verdict.outcome)],
     );
-    if (!result.total && result.note)
-      doc.fontSize(8.5).fillColor(MUTED).text(result.note, left, doc.y, { width });
+    if (!result.total && result.note) note(result.note);
     for (const spec of result.verdict.specs) {
-      doc
-        .fontSize(8.5)
-        .fillColor(MUTED)
-        .text(`Surface free energy — rule applied: ${spec.rule}. ${spec.reason}`, left, doc.y, {
-          width,
-        });
+      note(`Surface free energy — rule applied: ${spec.rule}. ${spec.reason}`);
     }
     doc.fontSize(9.5).fillColor(INK);
   }
 
   if (data.dynamic?.length) {
-    heading('Dynamic wetting');
-    doc.fontSize(8.5).fillColor(MUTED).text('Each series (a drop grown and withdrawn, or a tilting plate) counts once with the value of its latest analysis; statistics and verdicts as for the static angles.', left, doc.y, { width }).fontSize(9.5).fillColor(INK);
-    doc.moveDown(0.4);
-    const verdictOf = (r: BatchLiquidResult) => (r.verdict.outcome === 'no-spec' ? 'no spec' : r.verdict.outcome.replace(/-/g, ' '));
+    resultsSection(
+      'Dynamic wetting',
+      'Each series (a drop grown and withdrawn, or a tilting plate) counts once with the value of its latest analysis; statistics and verdicts as for the static angles.',
+    );
     table(
-      [
-        { title: 'Quantity', width: 150 },
-        { title: 'n', width: 28, align: 'right' },
-        { title: 'Mean (°)', width: 50, align: 'right' },
-        { title: 'SD (°)', width: 42, align: 'right' },
-        { title: '95 % CI (°)', width: 80, align: 'right' },
-        { title: 'Verdict', width: 133 },
-      ],
-      data.dynamic.map(({ title, result }) => {
-        const d = result.description;
-        return [title, String(d?.n ?? 0), fmt(d?.mean), fmt(d?.sd, 2), d?.ci ? `${fmt(d.ci.lower)} – ${fmt(d.ci.upper)}` : '—', verdictOf(result).toUpperCase()];
-      }),
-      data.dynamic.map(({ result }) => (result.verdict.outcome === 'pass' ? LEAF : result.verdict.outcome === 'fail' ? CORAL : AMBER)),
+      [{ title: 'Quantity', width: 150 }, ...STATISTICS_COLUMNS, { title: 'Verdict', width: 133 }],
+      data.dynamic.map(({ title, result }) => [
+        title,
+        ...statisticsCells(result.description),
+        verdictText(result.verdict.outcome),
+      ]),
+      data.dynamic.map(({ result }) => verdictColour(result.verdict.outcome)),
     );
     for (const { title, result } of data.dynamic) {
       for (const spec of result.verdict.specs) {
-        doc.fontSize(8.5).fillColor(MUTED).text(`${title} — rule applied: ${spec.rule} ${spec.reason}`, left, doc.y, { width });
+        note(`${title} — rule applied: ${spec.rule} ${spec.reason}`);
       }
     }
     doc.fontSize(9.5).fillColor(INK);

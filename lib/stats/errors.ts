@@ -1,16 +1,12 @@
+import { CodedError } from '../coded-error';
+
 /**
  * Thrown when the statistics functions are handed input they cannot use (too few values,
  * NaN, an impossible confidence level, …). The message says what was wrong and what to do.
  */
-export class StatsInputError extends Error {
-  /** Short machine-readable reason, e.g. `too-few-values`, `not-finite`. */
-  readonly code: string;
-
-  constructor(code: string, message: string) {
-    super(message);
-    this.name = 'StatsInputError';
-    this.code = code;
-  }
+export class StatsInputError extends CodedError {
+  // `code`: a short machine-readable reason, e.g. `too-few-values`, `not-finite`.
+  override readonly name = 'StatsInputError';
 }
 
 /** Throws unless every value is a finite number. `what` names the data in the message. */

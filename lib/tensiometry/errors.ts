@@ -1,17 +1,13 @@
+import { CodedError } from '../coded-error';
+
 /**
  * Thrown when a tensiometry calculation is handed input it cannot use (NaN, a negative plate
  * size, a temperature outside the formula's range, a force that no contact angle can explain).
  * The message says what to do.
  */
-export class TensiometryInputError extends Error {
-  /** Short machine-readable reason, e.g. `out-of-range`, `not-finite`. */
-  readonly code: string;
-
-  constructor(code: string, message: string) {
-    super(message);
-    this.name = 'TensiometryInputError';
-    this.code = code;
-  }
+export class TensiometryInputError extends CodedError {
+  // `code`: a short machine-readable reason, e.g. `out-of-range`, `not-finite`.
+  override readonly name = 'TensiometryInputError';
 }
 
 export function requireFinite(value: number, label: string): number {

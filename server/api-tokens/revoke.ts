@@ -1,6 +1,6 @@
 import 'server-only';
 import { lockApiToken, updateApiToken } from '@/db/queries/api-tokens';
-import { recordAudit } from '@/db/queries/audit';
+import { auditAs } from '@/db/queries/audit';
 import { inTransaction } from '@/db/queries/transaction';
 import { notFound } from '@/lib/app-error';
 import type { Actor } from '../actor';
@@ -12,12 +12,7 @@ export async function revokeApiToken(actor: Actor, tokenId: string): Promise<voi
     if (!row) throw notFound('That API token');
     if (row.revokedAt) return;
     await updateApiToken(tx, row.id, { revokedAt: new Date() });
-    await recordAudit(tx, {
-      actorUserId: actor.userId,
-      organizationId: actor.organizationId,
-      action: 'api_token.revoke',
-      entityType: 'api_token',
-      entityId: row.id,
+    await auditAs(tx, actor)('api_token.revoke', 'api_token', row.id, {
       before: { name: row.name, scope: row.scope },
     });
   });

@@ -1,5 +1,5 @@
 import 'server-only';
-import { recordAudit } from '@/db/queries/audit';
+import { auditAs } from '@/db/queries/audit';
 import { lockInvitation, markInvitation } from '@/db/queries/invitations';
 import { inTransaction } from '@/db/queries/transaction';
 import { AppError, notFound } from '@/lib/app-error';
@@ -17,12 +17,7 @@ export async function revokeInvitation(actor: Actor, invitationId: string): Prom
       );
     }
     await markInvitation(tx, row.id, { revokedAt: new Date() });
-    await recordAudit(tx, {
-      actorUserId: actor.userId,
-      organizationId: actor.organizationId,
-      action: 'invitation.revoke',
-      entityType: 'invitation',
-      entityId: row.id,
+    await auditAs(tx, actor)('invitation.revoke', 'invitation', row.id, {
       before: { email: row.email, role: row.role },
     });
   });

@@ -11,15 +11,8 @@
  * window gives the same circle. Height, volume and area come from the whole-profile cap.
  */
 import { levenbergMarquardt, linearLeastSquares } from './least-squares';
-import {
-  DEG,
-  type ContactAngles,
-  type DropShape,
-  type FramePoints,
-  type ProfileFit,
-  type ProfileFitter,
-  subsetOf,
-} from './types';
+import { DEG, subsetOf } from './types';
+import type { ContactAngles, DropShape, FramePoints, ProfileFit, ProfileFitter } from './types';
 import { TwoSidedFit } from './two-sided';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../settings';
 

@@ -6,14 +6,8 @@
  * tangent where it crosses the baseline; residuals are Sampson (first-order geometric) distances.
  */
 import { EigenvalueDecomposition, Matrix, inverse } from 'ml-matrix';
-import {
-  angleFromTangent,
-  type ContactAngles,
-  type DropShape,
-  type FramePoints,
-  type ProfileFit,
-  type ProfileFitter,
-} from './types';
+import { angleFromTangent } from './types';
+import type { ContactAngles, DropShape, FramePoints, ProfileFit, ProfileFitter } from './types';
 
 /** Conic coefficients [A, B, C, D, E, F] of the direct least-squares ellipse through (x, y). */
 export function directEllipse(x: ArrayLike<number>, y: ArrayLike<number>): number[] {

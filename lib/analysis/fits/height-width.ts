@@ -9,14 +9,8 @@
 import { fitJointCircle, fitCircleToAll, capShape } from './circle';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../settings';
 import { fitPolynomial } from './polynomial';
-import {
-  DEG,
-  type ContactAngles,
-  type DropShape,
-  type FramePoints,
-  type ProfileFit,
-  type ProfileFitter,
-} from './types';
+import { DEG } from './types';
+import type { ContactAngles, DropShape, FramePoints, ProfileFit, ProfileFitter } from './types';
 
 class HeightWidthFit implements ProfileFit {
   readonly method = 'height-width' as const;

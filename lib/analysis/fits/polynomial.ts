@@ -7,14 +7,8 @@
  */
 import { polynomialLeastSquares } from './least-squares';
 import { circleAngles, fitWholeCircle } from './circle';
-import {
-  DEG,
-  type ContactAngles,
-  type DropShape,
-  type FramePoints,
-  type ProfileFit,
-  type ProfileFitter,
-} from './types';
+import { DEG } from './types';
+import type { ContactAngles, DropShape, FramePoints, ProfileFit, ProfileFitter } from './types';
 import { DEFAULT_SETTINGS, type AnalysisSettings } from '../settings';
 
 const DEGREE = 2;

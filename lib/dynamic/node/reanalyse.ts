@@ -7,13 +7,12 @@
 import { loadOpenCv, type FitMethod } from '../../analysis';
 import { decodeImageBytes } from '../../analysis/node/decode';
 import { analyseSeries } from '../series';
-import {
-  keptFrames,
-  summariseMeasurement,
-  type DynamicKind,
-  type KeptSeriesFrame,
-  type MeasurementOptions,
-  type MeasurementResult,
+import { keptFrames, summariseMeasurement } from '../measurement';
+import type {
+  DynamicKind,
+  KeptSeriesFrame,
+  MeasurementOptions,
+  MeasurementResult,
 } from '../measurement';
 import { tiltsFromRate } from '../tilt';
 import type { SeriesInputFrame } from '../types';

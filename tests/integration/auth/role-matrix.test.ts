@@ -6,21 +6,23 @@ import { GET as getMembers } from '@/app/api/team/members/route';
 import { PATCH as patchOrganization } from '@/app/api/organization/route';
 import { ACTIONS, ROLES, type Role } from '@/lib/auth/permissions';
 import { apiRequest, simulateRequest } from '../support/request';
-import { createMember, createOrganization, expireSession, organizationName } from '../support/fixtures';
+import {
+  createMember,
+  expireSession,
+  labWithEveryRole,
+  organizationName,
+  type Member,
+} from '../support/fixtures';
 
 const BASE_URL = process.env.E2E_BASE_URL;
 
-type Member = Awaited<ReturnType<typeof createMember>>;
 let lab: { id: string; name: string };
 let otherLab: { id: string; name: string };
-const members = {} as Record<Role, Member>;
+let members: Record<Role, Member>;
 let outsider: Member;
 
 beforeAll(async () => {
-  lab = await createOrganization();
-  otherLab = await createOrganization();
-  for (const role of ROLES) members[role] = await createMember(lab.id, role);
-  outsider = await createMember(otherLab.id, 'admin');
+  ({ lab, otherLab, members, outsider } = await labWithEveryRole());
 });
 
 afterAll(async () => {

@@ -9,7 +9,6 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { closeDb, getDb } from '@/db/client';
-import { ensureProbeLiquidLibrary } from '@/db/probe-liquid-library';
 import { analyses } from '@/db/schema';
 import { POST } from '@/app/api/photos/[id]/drop/route';
 import { analyseDrop } from '@/lib/analysis';
@@ -18,8 +17,8 @@ import type { KeptAnalysisResult } from '@/lib/contracts/drops';
 import type { Baseline, FitMethod } from '@/lib/analysis/types';
 import { decodeImageBytes } from '@/lib/analysis/node/decode';
 import { apiRequest } from '../support/request';
-import { createMember, createOrganization } from '../support/fixtures';
-import { insertBatch, insertCoating, insertPhotoWithBytes, insertSample } from '../support/seed';
+import type { createMember } from '../support/fixtures';
+import { insertPhotoWithBytes, labWithSample } from '../support/seed';
 
 const FIXTURE = path.resolve(__dirname, '../../../fixtures/drops/drop-90-tilted.png');
 let analyst: Awaited<ReturnType<typeof createMember>>;
@@ -28,15 +27,10 @@ let photoId: string;
 let bytes: Buffer;
 
 beforeAll(async () => {
-  const db = getDb();
-  await ensureProbeLiquidLibrary(db);
-  const lab = await createOrganization();
-  analyst = await createMember(lab.id, 'analyst');
-  const coatingId = await insertCoating(lab.id, 'R-1', 'Repro coat');
-  const batchId = await insertBatch(lab.id, coatingId, 'L-R', '2026-11-02');
-  sampleId = await insertSample(lab.id, batchId, 'S1');
+  const setup = await labWithSample('R-1', 'L-R');
+  ({ analyst, sampleId } = setup);
   bytes = await readFile(FIXTURE);
-  photoId = await insertPhotoWithBytes(lab.id, analyst.userId, bytes);
+  photoId = await insertPhotoWithBytes(setup.lab.id, analyst.userId, bytes);
 });
 
 afterAll(async () => {

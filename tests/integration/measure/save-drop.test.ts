@@ -2,16 +2,14 @@ import { readFile } from 'node:fs/promises';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
-import { ensureProbeLiquidLibrary } from '@/db/probe-liquid-library';
-import { newId } from '@/db/queries/ids';
-import { analyses, auditEvents, batches, coatings, samples } from '@/db/schema';
+import { analyses, auditEvents } from '@/db/schema';
 import { GET, POST } from '@/app/api/photos/[id]/drop/route';
 import { analyseDrop } from '@/lib/analysis';
 import { decodeImageBytes } from '@/lib/analysis/node/decode';
 import { and, eq } from 'drizzle-orm';
 import { apiRequest } from '../support/request';
 import { createMember, createOrganization } from '../support/fixtures';
-import { insertPhotoWithBytes } from '../support/seed';
+import { insertPhotoWithBytes, labWithSample } from '../support/seed';
 
 const FIXTURE = path.resolve(__dirname, '../../../fixtures/drops/cap-60-noisy.png');
 let lab: { id: string };
@@ -23,18 +21,9 @@ let photoId: string;
 let bytes: Buffer;
 
 beforeAll(async () => {
-  const db = getDb();
-  await ensureProbeLiquidLibrary(db);
-  lab = await createOrganization();
-  analyst = await createMember(lab.id, 'analyst');
+  ({ lab, analyst, sampleId } = await labWithSample('T-1', 'L-1'));
   viewer = await createMember(lab.id, 'viewer');
   reviewer = await createMember(lab.id, 'reviewer');
-  const coatingId = newId();
-  const batchId = newId();
-  sampleId = newId();
-  await db.insert(coatings).values({ id: coatingId, organizationId: lab.id, code: 'T-1', name: 'Test coat' });
-  await db.insert(batches).values({ id: batchId, organizationId: lab.id, coatingId, lotCode: 'L-1', producedOn: '2026-11-01' });
-  await db.insert(samples).values({ id: sampleId, organizationId: lab.id, batchId, label: 'S1' });
   bytes = await readFile(FIXTURE);
   photoId = await insertPhotoWithBytes(lab.id, analyst.userId, bytes);
 });

@@ -2,7 +2,6 @@ import { readFile } from 'node:fs/promises';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
-import { ensureProbeLiquidLibrary } from '@/db/probe-liquid-library';
 import { newId } from '@/db/queries/ids';
 import { listUnsavedPhotos } from '@/db/queries/photos';
 import { auditEvents, photos } from '@/db/schema';
@@ -11,7 +10,7 @@ import { POST as remove } from '@/app/api/photos/remove/route';
 import { recordUploadedPhoto } from '@/server/photos/record-upload';
 import { and, eq } from 'drizzle-orm';
 import { apiRequest } from '../support/request';
-import { createMember, createOrganization } from '../support/fixtures';
+import { createMember } from '../support/fixtures';
 import * as seed from '../support/seed';
 
 const FIXTURE = path.resolve(__dirname, '../../../fixtures/drops/cap-60-noisy.png');
@@ -22,13 +21,8 @@ let sampleId: string;
 let bytes: Buffer;
 
 beforeAll(async () => {
-  const db = getDb();
-  await ensureProbeLiquidLibrary(db);
-  lab = await createOrganization();
-  analyst = await createMember(lab.id, 'analyst');
+  ({ lab, analyst, sampleId } = await seed.labWithSample('W-1', 'W-L1'));
   colleague = await createMember(lab.id, 'analyst');
-  const batchId = await seed.insertBatch(lab.id, await seed.insertCoating(lab.id, 'W-1'), 'W-L1');
-  sampleId = await seed.insertSample(lab.id, batchId, 'S1');
   bytes = await readFile(FIXTURE);
 });
 

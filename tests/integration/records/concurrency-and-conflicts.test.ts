@@ -222,16 +222,16 @@ describe('references to another organization’s records', () => {
     expect(response.body.error.code).toBe('not_found');
     expect(Object.keys(response.body.error.fields)).toEqual([field]);
   };
+  /** An admin's new record whose `field` names a record this organization may not use. */
+  const expectCreateRefused = async (
+    resource: (typeof resources)[keyof typeof resources],
+    body: unknown,
+    field: string,
+  ) => expectRefused(await api.create(resource, { sessionId: admin, body }), field);
 
   it('a batch cannot point at another organization’s coating', async () => {
     const mark = await lastAuditId();
-    expectRefused(
-      await api.create(resources.batches, {
-        sessionId: admin,
-        body: bodies.batch(foreignCoatingId),
-      }),
-      'coatingId',
-    );
+    await expectCreateRefused(resources.batches, bodies.batch(foreignCoatingId), 'coatingId');
     expect(await auditSince(lab.id, mark)).toEqual([]);
   });
 
@@ -249,35 +249,22 @@ describe('references to another organization’s records', () => {
   });
 
   it('a sample cannot point at another organization’s batch', async () => {
-    expectRefused(
-      await api.create(resources.samples, {
-        sessionId: admin,
-        body: bodies.sample(foreignBatchId),
-      }),
-      'batchId',
-    );
+    await expectCreateRefused(resources.samples, bodies.sample(foreignBatchId), 'batchId');
   });
 
   it('a spec cannot point at another organization’s coating or probe liquid', async () => {
-    expectRefused(
-      await api.create(resources.specs, { sessionId: admin, body: bodies.spec(foreignCoatingId) }),
-      'coatingId',
-    );
-    expectRefused(
-      await api.create(resources.specs, {
-        sessionId: admin,
-        body: bodies.spec(coatingId, foreignLiquidId),
-      }),
+    await expectCreateRefused(resources.specs, bodies.spec(foreignCoatingId), 'coatingId');
+    await expectCreateRefused(
+      resources.specs,
+      bodies.spec(coatingId, foreignLiquidId),
       'probeLiquidId',
     );
   });
 
   it('a session cannot use another organization’s probe liquid, but may use a built-in one', async () => {
-    expectRefused(
-      await api.create(resources.measurementSessions, {
-        sessionId: admin,
-        body: bodies.measurementSession(foreignLiquidId),
-      }),
+    await expectCreateRefused(
+      resources.measurementSessions,
+      bodies.measurementSession(foreignLiquidId),
       'probeLiquidId',
     );
     const ok = await api.create(resources.measurementSessions, {
@@ -294,13 +281,7 @@ describe('references to another organization’s records', () => {
   });
 
   it('an unknown id is refused the same way', async () => {
-    expectRefused(
-      await api.create(resources.batches, {
-        sessionId: admin,
-        body: bodies.batch('no-such-coating'),
-      }),
-      'coatingId',
-    );
+    await expectCreateRefused(resources.batches, bodies.batch('no-such-coating'), 'coatingId');
   });
 
   it('a batch cannot be added under an archived coating (409 naming coatingId)', async () => {

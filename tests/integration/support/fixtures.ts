@@ -4,7 +4,7 @@ import { getDb } from '@/db/client';
 import { memberships, organizations, sessions, users } from '@/db/schema';
 import { newId } from '@/db/queries/ids';
 import { getLucia } from '@/lib/auth/lucia';
-import type { Role } from '@/lib/auth/permissions';
+import { ROLES, type Role } from '@/lib/auth/permissions';
 
 export const TEST_PASSWORD = 'correct horse battery staple';
 let cachedHash: string | null = null;
@@ -35,6 +35,18 @@ export async function createMember(organizationId: string, role: Role) {
   await getDb().insert(memberships).values({ userId, organizationId, role });
   const session = await getLucia().createSession(userId, { activeOrganizationId: organizationId });
   return { userId, email, sessionId: session.id };
+}
+
+export type Member = Awaited<ReturnType<typeof createMember>>;
+
+/** A lab with one member of each role, and an outsider: the admin of another lab. */
+export async function labWithEveryRole() {
+  const lab = await createOrganization();
+  const otherLab = await createOrganization();
+  const members = {} as Record<Role, Member>;
+  for (const role of ROLES) members[role] = await createMember(lab.id, role);
+  const outsider = await createMember(otherLab.id, 'admin');
+  return { lab, otherLab, members, outsider };
 }
 
 export async function organizationName(id: string): Promise<string | undefined> {

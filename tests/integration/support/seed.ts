@@ -1,6 +1,8 @@
 import { getDb } from '@/db/client';
+import { ensureProbeLiquidLibrary } from '@/db/probe-liquid-library';
 import { newId } from '@/db/queries/ids';
 import { analyses, batches, coatings, drops, samples, specs } from '@/db/schema';
+import { createMember, createOrganization } from './fixtures';
 
 /*
  * Rows written straight into the database for tests that need records to exist (invented data).
@@ -132,4 +134,17 @@ export async function insertPhotoWithBytes(
     workingPng: bytes,
   });
   return photoId;
+}
+
+/**
+ * Where the tests of saving drops start: a lab (the probe-liquid library in place) with an
+ * analyst and one sample `S1` to save drops to, of a coating and batch of its own.
+ */
+export async function labWithSample(coatingCode: string, lotCode: string) {
+  await ensureProbeLiquidLibrary(getDb());
+  const lab = await createOrganization();
+  const analyst = await createMember(lab.id, 'analyst');
+  const batchId = await insertBatch(lab.id, await insertCoating(lab.id, coatingCode), lotCode);
+  const sampleId = await insertSample(lab.id, batchId, 'S1');
+  return { lab, analyst, sampleId };
 }

@@ -47,6 +47,12 @@ async function roleOf(organizationId: string, userId: string): Promise<Role | nu
   return row?.role ?? null;
 }
 
+/** The audit row of `action` on the member `userId` of the organization. */
+async function memberAudit(organizationId: string, action: string, userId: string) {
+  const [row] = await auditRows({ organizationId, action, entityId: userId });
+  return row;
+}
+
 describe('role changes and removal', () => {
   let lab: { id: string };
   let admin: Member;
@@ -63,12 +69,7 @@ describe('role changes and removal', () => {
     expect(response.status).toBe(200);
     expect((await response.json()).member).toEqual({ userId: analyst.userId, role: 'reviewer' });
     expect(await roleOf(lab.id, analyst.userId)).toBe('reviewer');
-    const [row] = await auditRows({
-      organizationId: lab.id,
-      action: 'member.role_change',
-      entityId: analyst.userId,
-    });
-    expect(row).toMatchObject({
+    expect(await memberAudit(lab.id, 'member.role_change', analyst.userId)).toMatchObject({
       actorUserId: admin.userId,
       before: { role: 'analyst' },
       after: { role: 'reviewer' },
@@ -106,12 +107,7 @@ describe('role changes and removal', () => {
     const response = await remove(boss, leaving.userId);
     expect(response.status).toBe(200);
     expect(await roleOf(lab2.id, leaving.userId)).toBeNull();
-    const [row] = await auditRows({
-      organizationId: lab2.id,
-      action: 'member.remove',
-      entityId: leaving.userId,
-    });
-    expect(row).toMatchObject({
+    expect(await memberAudit(lab2.id, 'member.remove', leaving.userId)).toMatchObject({
       actorUserId: boss.userId,
       before: { role: 'viewer', email: leaving.email },
     });

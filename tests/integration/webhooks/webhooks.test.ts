@@ -33,7 +33,7 @@ import { redeliverWebhook } from '@/server/webhooks/redeliver';
 import { removeWebhook } from '@/server/webhooks/remove';
 import { until } from '../../support/until';
 import { startReceiver, type Receiver, type ReceivedWebhook } from '../../support/webhook-receiver';
-import { createMember, createOrganization } from '../support/fixtures';
+import { labWithEveryRole, type Member } from '../support/fixtures';
 import { simulateRequest } from '../support/request';
 import {
   insertBatch,
@@ -53,10 +53,9 @@ import { call, idParams } from '../surface-energy/helpers';
 const FIXTURE = path.resolve(__dirname, '../../../fixtures/drops/cap-60-noisy.png');
 const BASE_URL = process.env.E2E_BASE_URL;
 
-type Member = Awaited<ReturnType<typeof createMember>>;
 let lab: { id: string; name: string };
 let otherLab: { id: string; name: string };
-const members = {} as Record<Role, Member>;
+let members: Record<Role, Member>;
 let outsider: Member;
 const receivers: Receiver[] = [];
 const workers: string[] = [];
@@ -64,10 +63,7 @@ const testQueues: string[] = [];
 
 beforeAll(async () => {
   await ensureLibrary();
-  lab = await createOrganization();
-  otherLab = await createOrganization();
-  for (const role of ROLES) members[role] = await createMember(lab.id, role);
-  outsider = await createMember(otherLab.id, 'admin');
+  ({ lab, otherLab, members, outsider } = await labWithEveryRole());
 });
 
 afterAll(async () => {
