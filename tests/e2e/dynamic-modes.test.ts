@@ -51,7 +51,7 @@ async function openPage(browser: Browser): Promise<Page> {
 }
 
 async function analyseFrames(page: Page, files: string[], fps: number): Promise<void> {
-  await page.getByLabel('Frame images').check();
+  await page.getByRole('radio', { name: 'Frame images' }).check();
   await page.getByLabel(/^Frame images in order/).setInputFiles(files);
   await page.getByLabel('Frame rate (frames/s)').fill(String(fps));
   await page.getByRole('button', { name: 'Analyse the series' }).click();
@@ -94,7 +94,7 @@ describe('dynamic wetting, tilting plate and angle over time', () => {
     const page = await openPage(browser);
     await page.getByLabel('What the series shows').selectOption('tilt');
     await page.getByLabel('Profile fit').selectOption('polynomial');
-    await page.getByLabel('Frame images').check();
+    await page.getByRole('radio', { name: 'Frame images' }).check();
     // Before anything is analysed the save says what frame images are sent as.
     await expect
       .poll(async () => page.getByTestId('series-upload-note').textContent())
