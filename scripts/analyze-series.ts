@@ -12,7 +12,13 @@
 import { parseArgs as parseNodeArgs } from 'node:util';
 import { AnalysisError, DEFAULT_METHOD, loadOpenCv, type FitMethod } from '../lib/analysis';
 import { DecodeError } from '../lib/analysis/node/decode';
-import { analyseSeries, seriesReport, summariseDynamic, type SeriesReport } from '../lib/dynamic';
+import {
+  analyseSeries,
+  isFlagged,
+  seriesReport,
+  summariseDynamic,
+  type SeriesReport,
+} from '../lib/dynamic';
 import type { PhaseSegment } from '../lib/dynamic/phases';
 import { VideoError } from '../lib/dynamic/node/ffmpeg';
 import { SeriesInputError, openSeries } from '../lib/dynamic/node/source';
@@ -92,19 +98,26 @@ function errorOf(error: unknown): { code: string; message: string } {
 const fixed = (v: number | null, digits: number, width: number) =>
   (v === null ? '–' : v.toFixed(digits)).padStart(width);
 
+const flagOf = (f: SeriesReport['frames'][number]) =>
+  f.meanDeg === null ? 'failed' : isFlagged(f) ? 'check' : '-';
+
 function printTable(report: SeriesReport, segments: PhaseSegment[]) {
   const out: string[] = [];
   const phaseOf = (index: number) =>
     segments.find((s) => index >= s.fromIndex && index <= s.toIndex)?.kind ?? '–';
   out.push(
-    `${'frame'.padStart(5)} ${'t s'.padStart(8)} ${'left°'.padStart(8)} ${'right°'.padStart(8)} ${'mean°'.padStart(8)} ${'base px'.padStart(9)} ${'volume px³'.padStart(12)}  ${'phase'.padEnd(9)}  warnings`,
+    `${'frame'.padStart(5)} ${'t s'.padStart(8)} ${'left°'.padStart(8)} ${'right°'.padStart(8)} ${'mean°'.padStart(8)} ${'base px'.padStart(9)} ${'volume px³'.padStart(12)}  ${'phase'.padEnd(9)}  ${'flag'.padEnd(6)}  warnings`,
   );
   for (const f of report.frames) {
     out.push(
-      `${String(f.index).padStart(5)} ${fixed(f.tSec, 3, 8)} ${fixed(f.leftDeg, 2, 8)} ${fixed(f.rightDeg, 2, 8)} ${fixed(f.meanDeg, 2, 8)} ${fixed(f.baseDiameterPx, 1, 9)} ${fixed(f.volumePx3, 0, 12)}  ${phaseOf(f.index).padEnd(9)}  ${f.warnings.map((w) => w.code).join(', ') || '-'}`,
+      `${String(f.index).padStart(5)} ${fixed(f.tSec, 3, 8)} ${fixed(f.leftDeg, 2, 8)} ${fixed(f.rightDeg, 2, 8)} ${fixed(f.meanDeg, 2, 8)} ${fixed(f.baseDiameterPx, 1, 9)} ${fixed(f.volumePx3, 0, 12)}  ${phaseOf(f.index).padEnd(9)}  ${flagOf(f).padEnd(6)}  ${f.warnings.map((w) => w.code).join(', ') || '-'}`,
     );
   }
   out.push('');
+  // The page's and the server's rule: failed, or a warning other than the needle in the drop.
+  out.push(
+    `flagged    ${report.frames.filter(isFlagged).length} of ${report.frames.length} frames (failed, or a warning other than the needle in the drop)`,
+  );
   for (const [name, s] of [
     ['advancing', report.advancing],
     ['receding', report.receding],

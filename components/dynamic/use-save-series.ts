@@ -21,6 +21,32 @@ export type PageSource =
   | { type: 'video'; file: File; fps: number }
   | { type: 'frames'; files: File[]; fps: number };
 
+/** Where the page's frames come from; what is uploaded follows from it. */
+export type SourceChoice = 'video' | 'frames' | 'camera';
+
+/**
+ * What the save will send to the upload service, in words: the source the page analysed when there
+ * is one (whatever input is chosen now), else the chosen input. A video goes as the video file;
+ * frame images as they are; camera frames as PNG photos of the captured frames.
+ */
+export function uploadDescription(
+  analysed:
+    | { type: 'video'; fileName: string }
+    | { type: 'frames'; count: number }
+    | { type: 'camera'; count: number }
+    | null,
+  chosen: SourceChoice,
+): string {
+  const photos = (n: number) => `${n} frame photo${n === 1 ? '' : 's'}`;
+  if (analysed?.type === 'video') return `as the video file ${analysed.fileName}`;
+  if (analysed?.type === 'frames') return `as ${photos(analysed.count)}, one per frame image`;
+  if (analysed?.type === 'camera')
+    return `as ${photos(analysed.count)} (PNG), one per captured frame`;
+  if (chosen === 'video') return 'as the video file';
+  if (chosen === 'frames') return 'as frame photos, one per frame image';
+  return 'as frame photos (PNG), one per captured frame';
+}
+
 export type SaveStep =
   | { kind: 'idle' }
   | { kind: 'uploading'; what: string; progress: number }

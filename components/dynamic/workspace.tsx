@@ -25,7 +25,12 @@ import { FlaggedFrames, FrameTable, ResultsPanel } from './results-panel';
 import { SeriesPlot, type PlotWindow } from './series-plot';
 import { useDynamicEditor } from './store';
 import { TiltSettings } from './tilt-settings';
-import { useSaveSeries, type PageSource } from './use-save-series';
+import {
+  uploadDescription,
+  useSaveSeries,
+  type PageSource,
+  type SourceChoice,
+} from './use-save-series';
 import { useSeriesAnalysis } from './use-series-analysis';
 import { spanOf } from './windows';
 
@@ -71,7 +76,7 @@ function medianMs(frames: readonly SeriesFrameResult[]): number {
   return times.length ? times[Math.floor(times.length / 2)] : 0;
 }
 
-type SourceMode = 'video' | 'frames' | 'camera';
+type SourceMode = SourceChoice;
 
 /** What the page analyses: the frames' origin, kept for the save. */
 type Loaded =
@@ -467,10 +472,20 @@ export function DynamicWorkspace({
             ))}
           </SelectField>
         </div>
-        <p className="text-xs text-ink-600">
-          The source goes to the upload service
-          {loaded?.type === 'video' ? ' as the video' : ' as frame photos'}; the server analyses it
-          again with the same method, windows and settings before it saves.
+        <p className="text-xs text-ink-600" data-testid="series-upload-note">
+          The source goes to the upload service{' '}
+          {uploadDescription(
+            loaded === null
+              ? null
+              : loaded.type === 'video'
+                ? { type: 'video', fileName: loaded.file.name }
+                : loaded.type === 'frames'
+                  ? { type: 'frames', count: loaded.files.length }
+                  : { type: 'camera', count: loaded.captured.frames.length },
+            mode,
+          )}
+          ; the server analyses it again with the same method, windows and settings before it
+          saves.
         </p>
         <button
           type="button"

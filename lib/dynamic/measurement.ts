@@ -10,7 +10,7 @@ import {
   type InitialAngle,
   type RateOverWindow,
 } from './angle-over-time';
-import { summariseDynamic, type PhaseSegment } from './phases';
+import { isFlagged, summariseDynamic, type PhaseSegment } from './phases';
 import type { ContractFrame } from './report';
 import { analyseTiltingPlate, type DropSide } from './tilt';
 import type { AngleWindowStats, PhaseWindow, SeriesFrame, SeriesWarning } from './types';
@@ -66,9 +66,7 @@ export interface MeasurementResult {
 }
 
 /** A frame needs a look when it failed or carries a warning other than the needle in the drop. */
-export function isFlagged(frame: Pick<SeriesFrame, 'meanDeg' | 'warnings'>): boolean {
-  return frame.meanDeg === null || frame.warnings.some((w) => w.code !== 'needle_in_contact');
-}
+export { isFlagged };
 
 export function keptFrames(
   frames: readonly SeriesFrame[],

@@ -307,6 +307,15 @@ export function summariseDynamic(
   };
 }
 
+/**
+ * The one rule for "this frame needs a look", used by the page's flagged list, the server's
+ * counts and the CLI's series notes alike: the frame failed, or it carries a warning other than the
+ * needle in the drop (in the needle-in method the needle is there on purpose).
+ */
+export function isFlagged(frame: Pick<SeriesFrame, 'meanDeg' | 'warnings'>): boolean {
+  return frame.meanDeg === null || frame.warnings.some((w) => w.code !== 'needle_in_contact');
+}
+
 /** Series-level notes about failed and flagged frames (each frame keeps its own warnings). */
 export function frameWarnings(frames: readonly SeriesFrame[]): SeriesWarning[] {
   const warnings: SeriesWarning[] = [];
@@ -316,10 +325,7 @@ export function frameWarnings(frames: readonly SeriesFrame[]): SeriesWarning[] {
       code: 'frames_failed',
       message: `${failed.length} of ${frames.length} frames could not be analysed (frames ${listIndices(failed)}); they are left out of every mean. Each says why in its warnings.`,
     });
-  // The needle is in the drop on purpose in the needle-in method, so that alone is no reason to look.
-  const flagged = frames
-    .filter((f) => f.meanDeg !== null && f.warnings.some((w) => w.code !== 'needle_in_contact'))
-    .map((f) => f.index);
+  const flagged = frames.filter((f) => f.meanDeg !== null && isFlagged(f)).map((f) => f.index);
   if (flagged.length)
     warnings.push({
       code: 'frames_flagged',

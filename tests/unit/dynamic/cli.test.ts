@@ -121,5 +121,9 @@ describe('analyze-series CLI', () => {
     expect(result.stdout).toMatch(/\n\s+29\s+9\.667\s/);
     expect(result.stdout).toMatch(/\nadvancing\s+10[78]\.\d\d°/);
     expect(result.stdout).toMatch(/\nhysteresis\s+2\d\.\d\d°/);
+    // Flagged by the page's and the server's rule: every frame has the needle in it, which alone
+    // is no flag, and the Young–Laplace fit raises nothing else on these exact profiles.
+    expect(result.stdout).toMatch(new RegExp(`\\nflagged\\s+0 of ${frameFiles.length} frames`));
+    expect(result.stdout).toMatch(/\n\s+0\s+0\.000\s.*\s-\s+needle_in_contact\n/);
   }, 180_000);
 });
