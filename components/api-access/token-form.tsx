@@ -2,7 +2,7 @@
 
 import { useActionState } from 'react';
 import { createApiTokenAction } from '@/app/(app)/team/api/actions';
-import { FormMessages } from '@/components/auth/action-form';
+import { answerField, FormMessages, ShownOnceField } from '@/components/auth/action-form';
 import { initialFormState } from '@/components/auth/form-state';
 import { NumberField, SelectField, TextField } from '@/components/ui/fields';
 import { API_TOKEN_SCOPES, API_TOKEN_SCOPE_LABELS } from '@/lib/auth/permissions';
@@ -21,42 +21,27 @@ export function ApiTokenForm() {
       <div className="grid gap-3 sm:grid-cols-[1fr_16rem_8rem]">
         <TextField
           id="api-token-name"
-          name="name"
           label="Name"
           hint="The instrument or system, e.g. Stage 2 camera PC"
           autoComplete="off"
           key={state.notice ?? 'form'}
-          defaultValue={state.notice ? '' : state.values?.name}
-          error={state.fields?.name}
+          {...answerField(state, 'name', { clearOnNotice: true })}
         />
         <SelectField
           id="api-token-scope"
-          name="scope"
           label="Scope"
           options={SCOPE_CHOICES}
-          defaultValue={state.values?.scope || 'read-measure'}
-          error={state.fields?.scope}
+          {...answerField(state, 'scope', { fallback: 'read-measure' })}
         />
         <NumberField
           id="api-token-days"
-          name="expiresInDays"
           label="Works for"
           unit="days"
-          defaultValue={state.values?.expiresInDays ?? '365'}
-          error={state.fields?.expiresInDays}
+          {...answerField(state, 'expiresInDays', { fallback: '365' })}
         />
       </div>
       <FormMessages state={state} />
-      {token ? (
-        <TextField
-          id="api-token-value"
-          label="The new token"
-          readOnly
-          value={token}
-          className="font-mono"
-          onFocus={(event) => event.currentTarget.select()}
-        />
-      ) : null}
+      {token ? <ShownOnceField id="api-token-value" label="The new token" value={token} /> : null}
       <button type="submit" className="btn-primary" disabled={pending}>
         {pending ? 'Making…' : 'Make token'}
       </button>

@@ -53,31 +53,54 @@ export function ActionForm({
   );
 }
 
+/**
+ * Binds a field to a server-action form's answer: its name, its error and what was typed (kept
+ * when the form comes back). `fallback` is the value before anything was typed; with
+ * `clearOnNotice`, a notice (a success) empties the field for the next entry.
+ */
+export function answerField(
+  state: FormState,
+  name: string,
+  options: { fallback?: string; clearOnNotice?: boolean } = {},
+) {
+  return {
+    name,
+    defaultValue:
+      options.clearOnNotice && state.notice ? '' : (state.values?.[name] ?? options.fallback),
+    error: state.fields?.[name],
+  };
+}
+
+/** A field that shows a secret once, right after it is made; focusing it selects it to copy. */
+export function ShownOnceField({ id, label, value }: { id: string; label: string; value: string }) {
+  return (
+    <TextField
+      id={id}
+      label={label}
+      readOnly
+      value={value}
+      className="font-mono"
+      onFocus={(event) => event.currentTarget.select()}
+    />
+  );
+}
+
 /** The e-mail address, kept as typed when the form comes back. */
 export function EmailField({ state, label = 'E-mail' }: { state: FormState; label?: string }) {
   return (
     <TextField
-      name="email"
       label={label}
       type="email"
       autoComplete="email"
       required
-      defaultValue={state.values?.email}
-      error={state.fields?.email}
+      {...answerField(state, 'email')}
     />
   );
 }
 
 export function NameField({ state }: { state: FormState }) {
   return (
-    <TextField
-      name="name"
-      label="Your name"
-      autoComplete="name"
-      required
-      defaultValue={state.values?.name}
-      error={state.fields?.name}
-    />
+    <TextField label="Your name" autoComplete="name" required {...answerField(state, 'name')} />
   );
 }
 

@@ -2,7 +2,7 @@
 
 import { signUp } from '@/app/(auth)/actions';
 import { TextField } from '@/components/ui/fields';
-import { ActionForm, EmailField, NameField, PasswordField } from './action-form';
+import { ActionForm, EmailField, NameField, PasswordField, answerField } from './action-form';
 
 export function SignUpForm() {
   return (
@@ -14,13 +14,11 @@ export function SignUpForm() {
           <EmailField state={state} label="Work e-mail" />
           <PasswordField state={state} isNew />
           <TextField
-            name="organizationName"
             label="Lab or organization"
             autoComplete="organization"
             required
-            defaultValue={state.values?.organizationName}
             hint="You become its admin and can invite your team."
-            error={state.fields?.organizationName}
+            {...answerField(state, 'organizationName')}
           />
         </>
       )}

@@ -1,7 +1,7 @@
 'use client';
 
 import { useEffect, useRef, useState } from 'react';
-import { NumberField } from '@/components/ui/fields';
+import { NumberField, useFieldState } from '@/components/ui/fields';
 import type { GrayImage } from '@/lib/analysis/types';
 import { frameCanvas } from './frame-sources';
 
@@ -44,7 +44,7 @@ export function LiveCamera({ onCaptured }: { onCaptured(series: CapturedSeries):
   const recorder = useRef<MediaRecorder | null>(null);
   const capture = useRef<{ frames: GrayImage[]; active: boolean; finish?: () => void } | null>(null);
   const [state, setState] = useState<CameraState>({ kind: 'off' });
-  const [rate, setRate] = useState('10');
+  const [rate, , rateField] = useFieldState('10');
 
   const release = () => {
     stream.current?.getTracks().forEach((track) => track.stop());
@@ -161,9 +161,8 @@ export function LiveCamera({ onCaptured }: { onCaptured(series: CapturedSeries):
               label="Capture rate"
               unit="frames/s"
               className="w-36"
-              value={rate}
               disabled={state.kind === 'recording'}
-              onChange={(e) => setRate(e.target.value)}
+              {...rateField}
             />
             {state.kind === 'recording' ? (
               <button type="button" className="btn-primary" onClick={stopRecording}>

@@ -1,5 +1,6 @@
 'use client';
 
+import type { ReactNode } from 'react';
 import type { MeasurementResult } from '@/lib/dynamic/measurement';
 import type { AngleWindowStats, PhaseWindow } from '@/lib/dynamic/types';
 import type { SeriesFrameResult } from '@/lib/dynamic/worker-protocol';
@@ -155,6 +156,28 @@ export function ResultsPanel({
 }
 
 /** Every frame that failed or carries a warning, with what is wrong; none is left out. */
+/** A table in a box of its own height that scrolls; focusable so it scrolls from the keyboard too. */
+function ScrollingTable({
+  label,
+  box,
+  testId,
+  children,
+}: {
+  label: string;
+  /** Classes of the box: its height and spacing. */
+  box: string;
+  testId: string;
+  children: ReactNode;
+}) {
+  return (
+    <div className={`${box} overflow-auto`} tabIndex={0} role="region" aria-label={label}>
+      <table className="w-full text-sm" data-testid={testId}>
+        {children}
+      </table>
+    </div>
+  );
+}
+
 export function FlaggedFrames({ frames }: { frames: readonly SeriesFrameResult[] }) {
   const flagged = frames.filter(isFlagged);
   if (flagged.length === 0) return null;
@@ -164,9 +187,7 @@ export function FlaggedFrames({ frames }: { frames: readonly SeriesFrameResult[]
       <p className="mb-2 text-sm text-ink-700">
         These frames failed or carry a warning. Failed frames count in no window; check the others in the plot.
       </p>
-      {/* Focusable so the list scrolls from the keyboard too. */}
-      <div className="max-h-64 overflow-auto" tabIndex={0} role="region" aria-label="Flagged frames, scrollable">
-        <table className="w-full text-sm" data-testid="flagged-frames">
+      <ScrollingTable label="Flagged frames, scrollable" box="max-h-64" testId="flagged-frames">
           <thead>
             <tr className="text-left text-ink-600">
               <th scope="col" className="py-1 pr-3">Frame</th>
@@ -185,8 +206,7 @@ export function FlaggedFrames({ frames }: { frames: readonly SeriesFrameResult[]
               </tr>
             ))}
           </tbody>
-        </table>
-      </div>
+      </ScrollingTable>
     </section>
   );
 }
@@ -198,8 +218,7 @@ export function FrameTable({ frames, tiltsDeg }: { frames: readonly SeriesFrameR
   return (
     <details className="card">
       <summary className="cursor-pointer text-sm font-medium text-ink-900">Every frame ({frames.length})</summary>
-      <div className="mt-2 max-h-80 overflow-auto" tabIndex={0} role="region" aria-label="Every frame, scrollable">
-        <table className="w-full text-sm" data-testid="frame-table">
+      <ScrollingTable label="Every frame, scrollable" box="mt-2 max-h-80" testId="frame-table">
           <thead>
             <tr className="text-left text-ink-600">
               <th scope="col" className="py-1 pr-3">Frame</th>
@@ -228,8 +247,7 @@ export function FrameTable({ frames, tiltsDeg }: { frames: readonly SeriesFrameR
               </tr>
             ))}
           </tbody>
-        </table>
-      </div>
+      </ScrollingTable>
     </details>
   );
 }

@@ -1,11 +1,37 @@
 'use client';
 
 import { NumberField, TextField } from '@/components/ui/fields';
-import { useDynamicEditor } from './store';
+import { useDynamicEditor, type TiltSource } from './store';
+
+type FieldSpec<T> = { id: string; label: string; unit: string; key: keyof T & string };
+
+const RATE_FIELDS: FieldSpec<Extract<TiltSource, { type: 'rate' }>>[] = [
+  { id: 'tilt-rate', label: 'Tilt rate', unit: '°/s', key: 'rateDegPerSec' },
+  { id: 'tilt-start', label: 'Tilt at the first frame', unit: '°', key: 'startDeg' },
+];
+const CSV_FIELDS: FieldSpec<Extract<TiltSource, { type: 'csv' }>>[] = [
+  { id: 'tilt-column', label: 'Tilt column', unit: '°', key: 'column' },
+  { id: 'tilt-time-column', label: 'Time column', unit: 's, optional', key: 'timeColumn' },
+];
 
 /** Where each frame's tilt comes from (a typed rate or a stage log's CSV column), and the downhill side. */
 export function TiltSettings() {
   const { tilt, setTilt, downhillSide, setDownhillSide } = useDynamicEditor();
+  /** The typed values of a tilt source, each in its field. */
+  const fieldsOf = <T extends TiltSource>(
+    source: T,
+    specs: readonly FieldSpec<T>[],
+    Field: typeof NumberField,
+  ) =>
+    specs.map(({ key, ...spec }) => (
+      <Field
+        key={spec.id}
+        {...spec}
+        className="w-40"
+        value={String(source[key])}
+        onChange={(e) => setTilt({ ...source, [key]: e.target.value })}
+      />
+    ));
   return (
     <section className="card space-y-3" aria-labelledby="tilt-heading">
       <h2 id="tilt-heading">Stage tilt</h2>
@@ -31,22 +57,7 @@ export function TiltSettings() {
       </div>
       {tilt.type === 'rate' ? (
         <div className="flex flex-wrap gap-3">
-          <NumberField
-            id="tilt-rate"
-            label="Tilt rate"
-            unit="°/s"
-            className="w-40"
-            value={tilt.rateDegPerSec}
-            onChange={(e) => setTilt({ ...tilt, rateDegPerSec: e.target.value })}
-          />
-          <NumberField
-            id="tilt-start"
-            label="Tilt at the first frame"
-            unit="°"
-            className="w-40"
-            value={tilt.startDeg}
-            onChange={(e) => setTilt({ ...tilt, startDeg: e.target.value })}
-          />
+          {fieldsOf(tilt, RATE_FIELDS, NumberField)}
         </div>
       ) : (
         <div className="flex flex-wrap items-end gap-3">
@@ -63,22 +74,7 @@ export function TiltSettings() {
               }}
             />
           </label>
-          <TextField
-            id="tilt-column"
-            label="Tilt column"
-            unit="°"
-            className="w-40"
-            value={tilt.column}
-            onChange={(e) => setTilt({ ...tilt, column: e.target.value })}
-          />
-          <TextField
-            id="tilt-time-column"
-            label="Time column"
-            unit="s, optional"
-            className="w-40"
-            value={tilt.timeColumn}
-            onChange={(e) => setTilt({ ...tilt, timeColumn: e.target.value })}
-          />
+          {fieldsOf(tilt, CSV_FIELDS, TextField)}
         </div>
       )}
       <label className="flex flex-col text-sm text-ink-800" htmlFor="downhill-side">

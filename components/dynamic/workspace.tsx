@@ -3,8 +3,8 @@
 import Link from 'next/link';
 import { useMemo, useRef, useState } from 'react';
 import { fetchDynamicMeasurement, type SavedDynamicMeasurement } from '@/components/data/resources';
-import { SampleSelect } from '@/components/measure/sample-select';
-import { NumberField, SelectField } from '@/components/ui/fields';
+import { LiquidSelect, SampleSelect } from '@/components/measure/sample-select';
+import { NumberField, SelectField, useFieldState } from '@/components/ui/fields';
 import type { LiquidChoice, SampleChoice } from '@/components/measure/types';
 import type { FitMethod } from '@/lib/analysis/types';
 import type { DynamicKind } from '@/lib/dynamic/measurement';
@@ -102,15 +102,15 @@ export function DynamicWorkspace({
   const [mode, setMode] = useState<SourceMode>('video');
   const [videoFile, setVideoFile] = useState<File | null>(null);
   const [frameFiles, setFrameFiles] = useState<File[]>([]);
-  const [fps, setFps] = useState('30');
+  const [fps, , fpsField] = useFieldState('30');
   const [problem, setProblem] = useState<{ message: string; serverCanDecode: boolean } | null>(
     null,
   );
   const [loaded, setLoaded] = useState<Loaded | null>(null);
   const [expectedEndSec, setExpectedEndSec] = useState<number | null>(null);
-  const [sampleId, setSampleId] = useState('');
-  const [liquidId, setLiquidId] = useState(
-    liquids.find((l) => /water/i.test(l.name))?.id ?? liquids[0]?.id ?? '',
+  const [sampleId, , sampleField] = useFieldState('');
+  const [liquidId, , liquidField] = useFieldState(
+    () => liquids.find((l) => /water/i.test(l.name))?.id ?? liquids[0]?.id ?? '',
   );
   const camerasFrames = useRef<File[] | null>(null);
 
@@ -355,8 +355,7 @@ export function DynamicWorkspace({
               label="Frame rate"
               unit="frames/s"
               className="w-36"
-              value={fps}
-              onChange={(e) => setFps(e.target.value)}
+              {...fpsField}
             />
             <button
               type="button"
@@ -456,21 +455,14 @@ export function DynamicWorkspace({
             label="Sample"
             placeholder="Choose a sample…"
             samples={samples}
-            value={sampleId}
-            onChange={(e) => setSampleId(e.target.value)}
+            {...sampleField}
           />
-          <SelectField
+          <LiquidSelect
             id="series-liquid"
             label="Probe liquid"
-            value={liquidId}
-            onChange={(e) => setLiquidId(e.target.value)}
-          >
-            {liquids.map((l) => (
-              <option key={l.id} value={l.id}>
-                {l.name}
-              </option>
-            ))}
-          </SelectField>
+            liquids={liquids}
+            {...liquidField}
+          />
         </div>
         <p className="text-xs text-ink-600" data-testid="series-upload-note">
           The source goes to the upload service{' '}

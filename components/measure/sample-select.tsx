@@ -41,6 +41,17 @@ export function SampleSelect({
   );
 }
 
+/** A probe-liquid picker, by name. */
+export function LiquidSelect({
+  liquids,
+  ...field
+}: { liquids: readonly Pick<LiquidChoice, 'id' | 'name'>[] } & Omit<
+  ComponentProps<typeof SelectField>,
+  'options'
+>) {
+  return <SelectField {...field} options={liquids.map((l) => ({ value: l.id, label: l.name }))} />;
+}
+
 /** "B-0412 / P1" for a sample id, or a dash. */
 export const sampleName = (samples: SampleChoice[], id: string) => {
   const s = samples.find((c) => c.id === id);

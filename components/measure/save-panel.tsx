@@ -1,8 +1,7 @@
 'use client';
 
-import { useState } from 'react';
-import { SelectField, TextAreaField } from '@/components/ui/fields';
-import { SampleSelect } from './sample-select';
+import { TextAreaField, useFieldState } from '@/components/ui/fields';
+import { LiquidSelect, SampleSelect } from './sample-select';
 import type { WorkspacePhoto } from './store';
 import type { LiquidChoice, SampleChoice } from './types';
 import type { SaveMessage, StaleSave } from './use-save-drops';
@@ -35,7 +34,7 @@ export function SavePanel({
   stale?: StaleSave[];
   onReload?: (entry: StaleSave) => void;
 }) {
-  const [reason, setReason] = useState('');
+  const [reason, setReason, reasonField] = useFieldState('');
   const resave = photo?.savedRevision !== null && photo?.savedRevision !== undefined;
   return (
     <section className="card space-y-3" aria-label="Save the shown photo">
@@ -49,12 +48,12 @@ export function SavePanel({
         value={photo?.sampleId ?? ''}
         onChange={(e) => onAssign({ sampleId: e.target.value })}
       />
-      <SelectField
+      <LiquidSelect
         id="photo-liquid"
         label="Probe liquid"
         placeholder="Choose the liquid…"
         disabled={!photo}
-        options={liquids.map((l) => ({ value: l.id, label: l.name }))}
+        liquids={liquids}
         value={photo?.probeLiquidId ?? ''}
         onChange={(e) => onAssign({ probeLiquidId: e.target.value })}
       />
@@ -63,8 +62,7 @@ export function SavePanel({
           id="resave-reason"
           label="Reason for the re-analysis"
           hint={`Revision ${photo.savedRevision} is saved; a new one keeps this reason.`}
-          value={reason}
-          onChange={(e) => setReason(e.target.value)}
+          {...reasonField}
         />
       ) : null}
       <button

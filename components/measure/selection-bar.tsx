@@ -2,8 +2,8 @@
 
 import { useState } from 'react';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { SelectField, TextAreaField } from '@/components/ui/fields';
-import { liquidName, SampleSelect, sampleName } from './sample-select';
+import { TextAreaField, useFieldState } from '@/components/ui/fields';
+import { LiquidSelect, liquidName, SampleSelect, sampleName } from './sample-select';
 import type { WorkspacePhoto } from './store';
 import type { LiquidChoice, SampleChoice } from './types';
 import { saveProblem } from './use-save-drops';
@@ -34,10 +34,10 @@ export function SelectionBar({
   onSave(photos: WorkspacePhoto[], reason: string): void;
   onRemove(photos: WorkspacePhoto[]): void;
 }) {
-  const [sampleId, setSampleId] = useState('');
-  const [liquidId, setLiquidId] = useState('');
+  const [sampleId, , sampleField] = useFieldState('');
+  const [liquidId, , liquidField] = useFieldState('');
   const [asking, setAsking] = useState<Asking>(null);
-  const [reason, setReason] = useState('');
+  const [reason, , reasonField] = useFieldState('');
   const resaves = ticked.filter((p) => p.savedRevision !== null);
   const problems = ticked.map((p) => saveProblem(p, reason)).filter(Boolean);
   const unsavedTicked = ticked.filter((p) => p.savedRevision === null);
@@ -55,16 +55,14 @@ export function SelectionBar({
           label="Put ticked on sample"
           placeholder="Keep their samples"
           samples={samples}
-          value={sampleId}
-          onChange={(e) => setSampleId(e.target.value)}
+          {...sampleField}
         />
-        <SelectField
+        <LiquidSelect
           id="assign-liquid"
           label="Probe liquid of ticked"
           placeholder="Keep their liquids"
-          options={liquids.map((l) => ({ value: l.id, label: l.name }))}
-          value={liquidId}
-          onChange={(e) => setLiquidId(e.target.value)}
+          liquids={liquids}
+          {...liquidField}
         />
         <button
           type="button"
@@ -146,8 +144,7 @@ export function SelectionBar({
             className="mt-3"
             label="Why are saved drops analysed again?"
             hint="Kept with each new revision."
-            value={reason}
-            onChange={(e) => setReason(e.target.value)}
+            {...reasonField}
           />
         ) : null}
         {problems.length > 0 ? (

@@ -1,7 +1,6 @@
 'use client';
 
-import { useState } from 'react';
-import { NumberField, TextField } from '@/components/ui/fields';
+import { NumberField, TextField, useFieldState } from '@/components/ui/fields';
 import type { Point } from '@/lib/analysis/types';
 import type { SessionDetails } from './types';
 
@@ -20,7 +19,7 @@ export function SessionPanel(props: {
   onCalibrated(scalePxPerMm: number): void;
 }) {
   const { value, onChange } = props;
-  const [needleMm, setNeedleMm] = useState('0.51');
+  const [needleMm, , needleField] = useFieldState('0.51');
   const bind = (key: keyof Omit<SessionDetails, 'sessionId'>) => ({
     id: `session-${key}`,
     value: value[key],
@@ -61,8 +60,7 @@ export function SessionPanel(props: {
             className="flex-1"
             label="Needle outer diameter"
             unit="mm"
-            value={needleMm}
-            onChange={(e) => setNeedleMm(e.target.value)}
+            {...needleField}
           />
           {pixelDistance !== null && needle > 0 ? (
             <button

@@ -121,7 +121,6 @@ const LABELS: Record<string, string> = {
     PARAMETER_KEYS.map((key) => [`process.${key}`, PROCESS_PARAMETERS[key].label]),
   ),
 };
-const FIELDS = ['coatingId', 'lotCode', 'producedOn', 'process', 'notes'];
 const SCHEMAS = { create: batchCreateSchema, update: batchUpdateSchema };
 
 type BatchValues = {
@@ -171,7 +170,6 @@ export function BatchForm({
       notes: saved.notes,
     }),
     labels: LABELS,
-    fields: FIELDS,
     toBody: (values) => ({
       ...values,
       // Parameters left empty are not recorded (the schema turns '' into undefined).

@@ -54,7 +54,6 @@ export function CoatingsTable(
 }
 
 const LABELS = { code: 'Code', name: 'Name', description: 'Description' };
-const FIELDS = ['code', 'name', 'description'] as const;
 const SCHEMAS = { create: coatingCreateSchema, update: coatingUpdateSchema };
 
 type CoatingValues = { code: string; name: string; description: string; version?: number };
@@ -71,7 +70,6 @@ export function CoatingForm({ coating }: { coating?: Coating }) {
     blank: { code: '', name: '', description: '' },
     toValues: (saved) => ({ code: saved.code, name: saved.name, description: saved.description }),
     labels: LABELS,
-    fields: FIELDS,
   });
   return (
     <RecordForm {...formProps}>

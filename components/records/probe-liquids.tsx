@@ -170,7 +170,6 @@ const LABELS: Record<string, string> = {
   ...Object.fromEntries(VALUES.map((v) => [v.field, `${v.label} (${v.unit})`])),
   hazardNote: 'Hazard note',
 };
-const FIELDS = ['name', 'hazardNote', 'sources', ...VALUES.map((v) => v.field as string)];
 
 // The same schemas, with empty source boxes left out (a source is optional per value).
 const withoutEmptySources = (schema: z.ZodType) =>
@@ -216,7 +215,6 @@ export function ProbeLiquidForm({ liquid }: { liquid?: ProbeLiquid }) {
       ...Object.fromEntries(VALUES.map((v) => [v.field, toText(saved[v.field])])),
     }),
     labels: LABELS,
-    fields: FIELDS,
   });
   return (
     <RecordForm {...formProps}>

@@ -117,7 +117,6 @@ const LABELS = {
   treatedAt: 'Treated at',
   notes: 'Notes',
 };
-const FIELDS = ['batchId', ...Object.keys(LABELS)];
 
 // The same schemas, after turning the browser's datetime-local value into ISO 8601 with offset.
 const withLocalTime = (schema: z.ZodType) =>
@@ -156,7 +155,6 @@ export function SampleForm({ batchId, sample }: { batchId: string; sample?: Samp
       notes: saved.notes,
     }),
     labels: LABELS,
-    fields: FIELDS,
   });
   return (
     <RecordForm {...formProps}>

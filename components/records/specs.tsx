@@ -146,7 +146,6 @@ const LABELS = {
   maxDaysSinceTreatment: 'Within days of treatment',
   note: 'Note',
 };
-const FIELDS = ['coatingId', ...Object.keys(LABELS)];
 const SCHEMAS = { create: specCreateSchema, update: specUpdateSchema };
 const SCOPES: Choice[] = [
   { value: 'each-drop', label: 'Each drop' },
@@ -202,7 +201,6 @@ export function SpecForm({
       note: saved.note,
     }),
     labels: LABELS,
-    fields: FIELDS,
   });
   return (
     <RecordForm {...formProps}>

@@ -31,8 +31,6 @@ export function useRecordForm<V extends FieldValues, R extends Versioned>(option
   toValues: (record: R) => V;
   /** Field name → label, for the conflict notice. */
   labels: Record<string, string>;
-  /** The field names the form shows, for the server's field errors. */
-  fields: readonly string[];
   /** Body to send from the parsed values (defaults to the values themselves). */
   toBody?: (values: FieldValues) => unknown;
   /** After a create; by default the form empties for the next record. */
@@ -48,7 +46,8 @@ export function useRecordForm<V extends FieldValues, R extends Versioned>(option
     ),
     defaultValues: record ? editValues(record) : (blank as DefaultValues<V>),
   });
-  const mutation = useMutation<Record<string, R>, V>({ form, fields: options.fields });
+  // The server's field errors go on the form's own fields (never on `version`).
+  const mutation = useMutation<Record<string, R>, V>({ form, fields: Object.keys(blank) });
   const [saved, setSaved] = useState(false);
 
   const onSubmit = form.handleSubmit(async (values) => {

@@ -3,7 +3,7 @@
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useMutation } from '@/components/data/use-mutation';
-import { TextAreaField, TextField } from '@/components/ui/fields';
+import { TextAreaField, TextField, useFieldState } from '@/components/ui/fields';
 import { reviewDecisionResponseSchema } from '@/lib/contracts/reviews';
 
 type Decision = 'approve' | 'reject';
@@ -11,8 +11,8 @@ type Decision = 'approve' | 'reject';
 /** Approve (signed with the reviewer's password) or reject with a comment. */
 export function ReviewDecisionForm({ reviewId }: { reviewId: string }) {
   const router = useRouter();
-  const [comment, setComment] = useState('');
-  const [password, setPassword] = useState('');
+  const [comment, , commentField] = useFieldState('');
+  const [password, setPassword, passwordField] = useFieldState('');
   const [deciding, setDeciding] = useState<Decision | null>(null);
   const decision = useMutation({ fields: ['comment', 'password'] });
 
@@ -38,8 +38,7 @@ export function ReviewDecisionForm({ reviewId }: { reviewId: string }) {
             Comment <span className="font-normal text-ink-500">(required to reject)</span>
           </>
         }
-        value={comment}
-        onChange={(e) => setComment(e.target.value)}
+        {...commentField}
         error={decision.fieldErrors.comment}
       />
       <TextField
@@ -52,8 +51,7 @@ export function ReviewDecisionForm({ reviewId }: { reviewId: string }) {
             <span className="font-normal text-ink-500">(your signature, to approve)</span>
           </>
         }
-        value={password}
-        onChange={(e) => setPassword(e.target.value)}
+        {...passwordField}
         error={decision.fieldErrors.password}
       />
       <p className="text-xs text-ink-600">

@@ -39,46 +39,19 @@ export function DropOverlay({
         className="pointer-events-none absolute inset-0 h-full w-full"
         aria-hidden="true"
       >
-        <line
-          x1={x0}
-          y1={y0}
-          x2={x1}
-          y2={y1}
-          stroke="#ffffff"
-          strokeWidth={stroke * 2.2}
-          opacity={0.7}
-        />
-        <line
-          x1={x0}
-          y1={y0}
-          x2={x1}
-          y2={y1}
-          stroke="#134f52"
-          strokeWidth={stroke}
-          strokeDasharray={`${stroke * 5} ${stroke * 3}`}
+        <HaloLine
+          from={[x0, y0]}
+          to={[x1, y1]}
+          color="#134f52"
+          width={stroke}
+          dash={`${stroke * 5} ${stroke * 3}`}
         />
         {[
           [overlay.contactLeft, left],
           [overlay.contactRight, right],
         ].map(([from, to], i) => (
           <g key={i}>
-            <line
-              x1={from[0]}
-              y1={from[1]}
-              x2={to[0]}
-              y2={to[1]}
-              stroke="#ffffff"
-              strokeWidth={stroke * 2.2}
-              opacity={0.7}
-            />
-            <line
-              x1={from[0]}
-              y1={from[1]}
-              x2={to[0]}
-              y2={to[1]}
-              stroke="#c2410c"
-              strokeWidth={stroke}
-            />
+            <HaloLine from={from} to={to} color="#c2410c" width={stroke} />
             <circle
               cx={from[0]}
               cy={from[1]}
@@ -91,5 +64,28 @@ export function DropOverlay({
         ))}
       </svg>
     </figure>
+  );
+}
+
+/** A line over a wider, half-clear white one, so it reads on dark and light parts of a photo. */
+function HaloLine({
+  from,
+  to,
+  color,
+  width,
+  dash,
+}: {
+  from: readonly number[];
+  to: readonly number[];
+  color: string;
+  width: number;
+  dash?: string;
+}) {
+  const ends = { x1: from[0], y1: from[1], x2: to[0], y2: to[1] };
+  return (
+    <>
+      <line {...ends} stroke="#ffffff" strokeWidth={width * 2.2} opacity={0.7} />
+      <line {...ends} stroke={color} strokeWidth={width} strokeDasharray={dash} />
+    </>
   );
 }

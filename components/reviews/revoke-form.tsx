@@ -3,14 +3,14 @@
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useMutation } from '@/components/data/use-mutation';
-import { TextAreaField } from '@/components/ui/fields';
+import { TextAreaField, useFieldState } from '@/components/ui/fields';
 import { revokeReviewResponseSchema } from '@/lib/contracts/reviews';
 
 /** Revokes a signed approval, with the reason that goes in the audit log and the mail. */
 export function RevokeApprovalForm({ reviewId }: { reviewId: string }) {
   const router = useRouter();
   const [open, setOpen] = useState(false);
-  const [reason, setReason] = useState('');
+  const [reason, , reasonField] = useFieldState('');
   const revocation = useMutation({ fields: ['reason'] });
 
   async function revoke() {
@@ -42,8 +42,7 @@ export function RevokeApprovalForm({ reviewId }: { reviewId: string }) {
       <TextAreaField
         id="revoke-reason"
         label="Why is this approval withdrawn?"
-        value={reason}
-        onChange={(e) => setReason(e.target.value)}
+        {...reasonField}
         error={revocation.fieldErrors.reason}
       />
       <p className="text-xs text-ink-600">

@@ -3,7 +3,7 @@
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useMutation } from '@/components/data/use-mutation';
-import { SelectField, TextAreaField } from '@/components/ui/fields';
+import { SelectField, TextAreaField, useFieldState } from '@/components/ui/fields';
 import { submitReviewResponseSchema } from '@/lib/contracts/reviews';
 
 type BatchChoice = { id: string; lotCode: string; coatingCode: string };
@@ -11,8 +11,8 @@ type BatchChoice = { id: string; lotCode: string; coatingCode: string };
 /** Analysts submit a batch's new or rejected results for review. */
 export function SubmitForReviewForm({ batches }: { batches: BatchChoice[] }) {
   const router = useRouter();
-  const [batchId, setBatchId] = useState('');
-  const [note, setNote] = useState('');
+  const [batchId, , batchField] = useFieldState('');
+  const [note, setNote, noteField] = useFieldState('');
   const [outcome, setOutcome] = useState<{ ok: boolean; text: string } | null>(null);
   const submitting = useMutation<{ reviewId: string; analysisCount: number }>({
     fields: ['batchId', 'note'],
@@ -49,8 +49,7 @@ export function SubmitForReviewForm({ batches }: { batches: BatchChoice[] }) {
         label="Batch"
         placeholder="Choose a batch…"
         options={batches.map((b) => ({ value: b.id, label: `${b.coatingCode} · ${b.lotCode}` }))}
-        value={batchId}
-        onChange={(e) => setBatchId(e.target.value)}
+        {...batchField}
         error={submitting.fieldErrors.batchId}
       />
       <TextAreaField
@@ -61,8 +60,7 @@ export function SubmitForReviewForm({ batches }: { batches: BatchChoice[] }) {
           </>
         }
         rows={2}
-        value={note}
-        onChange={(e) => setNote(e.target.value)}
+        {...noteField}
         error={submitting.fieldErrors.note}
       />
       <button type="submit" className="btn-primary" disabled={submitting.pending}>

@@ -56,29 +56,24 @@ function PointsAndLine({
   tooltipDigits: number;
   caption: ReactNode;
 }) {
-  const ticks = (axis: Axis) =>
-    axis.tickDigits === undefined ? undefined : (v: number) => v.toFixed(axis.tickDigits);
+  /** What both number axes share: their key, range, ink and tick digits. */
+  const axisProps = (axis: Axis) => ({
+    type: 'number' as const,
+    dataKey: axis.dataKey,
+    domain: axis.domain,
+    stroke: INK,
+    tickFormatter:
+      axis.tickDigits === undefined ? undefined : (v: number) => v.toFixed(axis.tickDigits),
+  });
   return (
     <figure aria-label={label} data-testid={testId}>
       <ResponsiveContainer width="100%" height={300}>
         <ComposedChart margin={{ top: 10, right: 20, bottom: 30, left: 10 }}>
           <CartesianGrid stroke="#e6eaef" />
-          <XAxis
-            type="number"
-            dataKey={x.dataKey}
-            domain={x.domain}
-            stroke={INK}
-            tickFormatter={ticks(x)}
-          >
+          <XAxis {...axisProps(x)}>
             <Label value={x.label} position="insideBottom" offset={-18} fill={INK} />
           </XAxis>
-          <YAxis
-            type="number"
-            dataKey={y.dataKey}
-            domain={y.domain}
-            stroke={INK}
-            tickFormatter={ticks(y)}
-          >
+          <YAxis {...axisProps(y)}>
             <Label
               value={y.label}
               angle={-90}

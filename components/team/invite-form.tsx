@@ -2,7 +2,7 @@
 
 import { useActionState } from 'react';
 import { inviteMember } from '@/app/(app)/team/actions';
-import { FormMessages } from '@/components/auth/action-form';
+import { answerField, FormMessages } from '@/components/auth/action-form';
 import { initialFormState } from '@/components/auth/form-state';
 import { SelectField, TextField } from '@/components/ui/fields';
 import { ROLES, ROLE_LABELS } from '@/lib/auth/permissions';
@@ -16,23 +16,19 @@ export function InviteForm() {
       <div className="grid gap-3 sm:grid-cols-[1fr_12rem]">
         <TextField
           id="invite-email"
-          name="email"
           label="E-mail"
           type="email"
           autoComplete="off"
           required
           // A sent invitation empties the box for the next one.
           key={state.notice ?? 'form'}
-          defaultValue={state.notice ? '' : state.values?.email}
-          error={state.fields?.email}
+          {...answerField(state, 'email', { clearOnNotice: true })}
         />
         <SelectField
           id="invite-role"
-          name="role"
           label="Role"
           options={ROLE_CHOICES}
-          defaultValue={state.values?.role || 'analyst'}
-          error={state.fields?.role}
+          {...answerField(state, 'role', { fallback: 'analyst' })}
         />
       </div>
       <FormMessages state={state} />

@@ -1,6 +1,6 @@
 'use client';
 
-import { useId, type ComponentProps, type ReactNode } from 'react';
+import { useId, useState, type ChangeEvent, type ComponentProps, type ReactNode } from 'react';
 import type { FieldValues, Path, UseFormReturn } from 'react-hook-form';
 
 /*
@@ -159,6 +159,21 @@ export function CheckboxField({
       <Hint id={control.id} hint={hint} error={error} />
     </div>
   );
+}
+
+type FieldElement = HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement;
+
+/**
+ * A field's text held in local state: `[value, setValue, bind]`, where `bind` is the `value` and
+ * `onChange` to spread on the field.
+ */
+export function useFieldState(initial: string | (() => string)) {
+  const [value, setValue] = useState(initial);
+  const bind = {
+    value,
+    onChange: (event: ChangeEvent<FieldElement>) => setValue(event.target.value),
+  };
+  return [value, setValue, bind] as const;
 }
 
 /** The error of a (possibly nested, dotted) field of a react-hook-form form. */

@@ -2,7 +2,7 @@
 
 import { useActionState } from 'react';
 import { createWebhookAction } from '@/app/(app)/team/webhooks/actions';
-import { FormMessages } from '@/components/auth/action-form';
+import { answerField, FormMessages, ShownOnceField } from '@/components/auth/action-form';
 import { initialFormState } from '@/components/auth/form-state';
 import { CheckboxField, TextField } from '@/components/ui/fields';
 import {
@@ -21,22 +21,18 @@ export function WebhookForm() {
       <div className="grid gap-3 sm:grid-cols-[2fr_1fr]">
         <TextField
           id="webhook-url"
-          name="url"
           label="Receiving address"
           hint="https://… of your LIMS or integration; it must answer 2xx"
           autoComplete="off"
           inputMode="url"
-          defaultValue={state.notice ? '' : state.values?.url}
-          error={state.fields?.url}
+          {...answerField(state, 'url', { clearOnNotice: true })}
         />
         <TextField
           id="webhook-description"
-          name="description"
           label="What it is for"
           hint="Optional, e.g. LIMS release queue"
           autoComplete="off"
-          defaultValue={state.notice ? '' : state.values?.description}
-          error={state.fields?.description}
+          {...answerField(state, 'description', { clearOnNotice: true })}
         />
       </div>
       <fieldset className="space-y-3">
@@ -53,16 +49,7 @@ export function WebhookForm() {
         {state.fields?.events ? <p className="field-error">{state.fields.events}</p> : null}
       </fieldset>
       <FormMessages state={state} />
-      {secret ? (
-        <TextField
-          id="webhook-secret"
-          label="Signing secret"
-          readOnly
-          value={secret}
-          className="font-mono"
-          onFocus={(event) => event.currentTarget.select()}
-        />
-      ) : null}
+      {secret ? <ShownOnceField id="webhook-secret" label="Signing secret" value={secret} /> : null}
       <button type="submit" className="btn-primary" disabled={pending}>
         {pending ? 'Registering…' : 'Register webhook'}
       </button>

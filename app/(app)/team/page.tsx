@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { FormCard, ListCard } from '@/components/ui/cards';
 import { PageHeader } from '@/components/ui/empty-state';
 import { PlainTable } from '@/components/ui/plain-table';
 import { InvitationRow } from '@/components/team/invitation-row';
@@ -46,36 +47,34 @@ export default async function TeamPage() {
             .join(' ')}
         </p>
       </section>
-      <section className="card mb-6 max-w-2xl">
-        <h2 className="mb-1">Invite someone</h2>
-        <p className="mb-3 text-sm text-ink-600">
-          They get a mail with a link that works once, for 7 days. It must be accepted with the same
-          e-mail address.
-        </p>
+      <FormCard
+        title="Invite someone"
+        width="max-w-2xl"
+        intro="They get a mail with a link that works once, for 7 days. It must be accepted with the same e-mail address."
+      >
         <InviteForm />
-      </section>
-      <section className="card mb-6">
-        <h2 className="mb-3">Open invitations</h2>
-        {invitations.length === 0 ? (
-          <p className="text-sm text-ink-600">No open invitations.</p>
-        ) : (
-          <PlainTable
-            head={['E-mail', 'Role', 'Invited by', 'Link', { label: 'Actions', hidden: true }]}
-          >
-            {invitations.map((invitation) => (
-              <InvitationRow
-                key={invitation.id}
-                id={invitation.id}
-                email={invitation.email}
-                roleName={ROLE_LABELS[invitation.role].name}
-                invitedBy={invitation.invitedBy}
-                expiresOn={day(invitation.expiresAt)}
-                expired={invitation.status === 'expired'}
-              />
-            ))}
-          </PlainTable>
-        )}
-      </section>
+      </FormCard>
+      <ListCard
+        title="Open invitations"
+        count={invitations.length}
+        emptyText="No open invitations."
+      >
+        <PlainTable
+          head={['E-mail', 'Role', 'Invited by', 'Link', { label: 'Actions', hidden: true }]}
+        >
+          {invitations.map((invitation) => (
+            <InvitationRow
+              key={invitation.id}
+              id={invitation.id}
+              email={invitation.email}
+              roleName={ROLE_LABELS[invitation.role].name}
+              invitedBy={invitation.invitedBy}
+              expiresOn={day(invitation.expiresAt)}
+              expired={invitation.status === 'expired'}
+            />
+          ))}
+        </PlainTable>
+      </ListCard>
       <section className="card max-w-lg">
         <h2 className="mb-3">Organization name</h2>
         <RenameOrganizationForm currentName={ctx.organization.name} />

@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { ApiTokenForm } from '@/components/api-access/token-form';
 import { ApiTokenRow } from '@/components/api-access/token-row';
+import { FormCard, ListCard } from '@/components/ui/cards';
 import { PageHeader } from '@/components/ui/empty-state';
 import { PlainTable } from '@/components/ui/plain-table';
 import { requirePage } from '@/lib/auth/guard';
@@ -22,50 +23,49 @@ export default async function ApiAccessPage() {
         title="API access"
         lead="Tokens let instruments and LIMS use the versioned API (/api/v1) for this organization."
       />
-      <section className="card mb-6 max-w-3xl">
-        <h2 className="mb-1">Make a token</h2>
-        <p className="mb-3 text-sm text-ink-600">
-          A token reads, measures, or both; it never reviews or administers. It is shown once and
-          kept only as a hash. See the <Link href="/api-reference">API reference</Link>.
-        </p>
+      <FormCard
+        title="Make a token"
+        width="max-w-3xl"
+        intro={
+          <>
+            A token reads, measures, or both; it never reviews or administers. It is shown once and
+            kept only as a hash. See the <Link href="/api-reference">API reference</Link>.
+          </>
+        }
+      >
         <ApiTokenForm />
-      </section>
-      <section className="card mb-6">
-        <h2 className="mb-3">Tokens</h2>
-        {tokens.length === 0 ? (
-          <p className="text-sm text-ink-600">No tokens yet.</p>
-        ) : (
-          <PlainTable
-            head={[
-              'Name',
-              'Token',
-              'Scope',
-              'Made by',
-              'Last used',
-              'Valid',
-              { label: 'Actions', hidden: true },
-            ]}
-          >
-            {tokens.map((token) => (
-              <ApiTokenRow
-                key={token.id}
-                id={token.id}
-                name={token.name}
-                scopeLabel={API_TOKEN_SCOPE_LABELS[token.scope]}
-                prefix={token.prefix}
-                createdBy={token.createdBy}
-                expiresOn={day(token.expiresAt)}
-                lastUsed={
-                  token.lastUsedAt
-                    ? `${moment(token.lastUsedAt)} from ${token.lastUsedAddress ?? '?'}`
-                    : 'Never'
-                }
-                status={token.status}
-              />
-            ))}
-          </PlainTable>
-        )}
-      </section>
+      </FormCard>
+      <ListCard title="Tokens" count={tokens.length} emptyText="No tokens yet.">
+        <PlainTable
+          head={[
+            'Name',
+            'Token',
+            'Scope',
+            'Made by',
+            'Last used',
+            'Valid',
+            { label: 'Actions', hidden: true },
+          ]}
+        >
+          {tokens.map((token) => (
+            <ApiTokenRow
+              key={token.id}
+              id={token.id}
+              name={token.name}
+              scopeLabel={API_TOKEN_SCOPE_LABELS[token.scope]}
+              prefix={token.prefix}
+              createdBy={token.createdBy}
+              expiresOn={day(token.expiresAt)}
+              lastUsed={
+                token.lastUsedAt
+                  ? `${moment(token.lastUsedAt)} from ${token.lastUsedAddress ?? '?'}`
+                  : 'Never'
+              }
+              status={token.status}
+            />
+          ))}
+        </PlainTable>
+      </ListCard>
     </>
   );
 }

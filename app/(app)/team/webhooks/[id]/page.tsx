@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { ActionButton } from '@/components/webhooks/action-button';
+import { ListCard } from '@/components/ui/cards';
 import { PageHeader } from '@/components/ui/empty-state';
 import { PlainTable } from '@/components/ui/plain-table';
 import { requirePage } from '@/lib/auth/guard';
@@ -36,55 +37,54 @@ export default async function WebhookLogPage({ params }: { params: Promise<{ id:
       <p className="mb-4 text-sm">
         <Link href="/team/webhooks">All webhooks</Link>
       </p>
-      <section className="card mb-6">
-        <h2 className="mb-3">Newest 100 deliveries</h2>
-        {deliveries.length === 0 ? (
-          <p className="text-sm text-ink-600">Nothing sent yet: events appear here as they happen.</p>
-        ) : (
-          <PlainTable
-            head={[
-              'Event',
-              'Status',
-              'Attempts',
-              'Answer',
-              'Last attempt',
-              'Next retry',
-              { label: 'Actions', hidden: true },
-            ]}
-          >
-            {deliveries.map((delivery) => (
-              <tr key={delivery.id} className="border-b border-ink-100 last:border-0">
-                <td className="py-2 pr-4">
-                  <span className="font-mono text-xs">{delivery.eventType}</span>
-                  <span className="block font-mono text-xs text-ink-500">{delivery.eventId}</span>
-                </td>
-                <td className="py-2 pr-4">{STATUS_WORDS[delivery.status]}</td>
-                <td className="py-2 pr-4">{delivery.attempts}</td>
-                <td className="py-2 pr-4 text-ink-600">
-                  {delivery.lastStatusCode ?? '—'}
-                  {delivery.lastError ? (
-                    <span className="block text-xs">{delivery.lastError}</span>
-                  ) : null}
-                </td>
-                <td className="py-2 pr-4 text-ink-600">{moment(delivery.lastAttemptAt)}</td>
-                <td className="py-2 pr-4 text-ink-600">
-                  {delivery.status === 'retrying' ? moment(delivery.nextAttemptAt) : '—'}
-                </td>
-                <td className="py-2 text-right">
-                  <ActionButton
-                    action={redeliverWebhookAction}
-                    field="deliveryId"
-                    value={delivery.id}
-                    label="Send again"
-                    busyLabel="Queuing…"
-                    ariaLabel={`Send the ${delivery.eventType} event ${delivery.eventId} again`}
-                  />
-                </td>
-              </tr>
-            ))}
-          </PlainTable>
-        )}
-      </section>
+      <ListCard
+        title="Newest 100 deliveries"
+        count={deliveries.length}
+        emptyText="Nothing sent yet: events appear here as they happen."
+      >
+        <PlainTable
+          head={[
+            'Event',
+            'Status',
+            'Attempts',
+            'Answer',
+            'Last attempt',
+            'Next retry',
+            { label: 'Actions', hidden: true },
+          ]}
+        >
+          {deliveries.map((delivery) => (
+            <tr key={delivery.id} className="border-b border-ink-100 last:border-0">
+              <td className="py-2 pr-4">
+                <span className="font-mono text-xs">{delivery.eventType}</span>
+                <span className="block font-mono text-xs text-ink-500">{delivery.eventId}</span>
+              </td>
+              <td className="py-2 pr-4">{STATUS_WORDS[delivery.status]}</td>
+              <td className="py-2 pr-4">{delivery.attempts}</td>
+              <td className="py-2 pr-4 text-ink-600">
+                {delivery.lastStatusCode ?? '—'}
+                {delivery.lastError ? (
+                  <span className="block text-xs">{delivery.lastError}</span>
+                ) : null}
+              </td>
+              <td className="py-2 pr-4 text-ink-600">{moment(delivery.lastAttemptAt)}</td>
+              <td className="py-2 pr-4 text-ink-600">
+                {delivery.status === 'retrying' ? moment(delivery.nextAttemptAt) : '—'}
+              </td>
+              <td className="py-2 text-right">
+                <ActionButton
+                  action={redeliverWebhookAction}
+                  field="deliveryId"
+                  value={delivery.id}
+                  label="Send again"
+                  busyLabel="Queuing…"
+                  ariaLabel={`Send the ${delivery.eventType} event ${delivery.eventId} again`}
+                />
+              </td>
+            </tr>
+          ))}
+        </PlainTable>
+      </ListCard>
     </>
   );
 }
