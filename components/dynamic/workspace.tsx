@@ -65,7 +65,7 @@ function serverFrame(f: SavedDynamicMeasurement['series'][number]): SeriesFrameR
     contactRight: null,
     baseline: null,
     warnings: Array.isArray(f.warnings) ? (f.warnings as FrameWarning[]) : [],
-    tracking: { roi: null, baseline: 'found', retried: false },
+    tracking: { roi: null, baseline: 'found', retried: false, warmStart: false },
     timeMs: 0,
   };
 }

@@ -54,6 +54,37 @@ export interface DropDetection {
   readonly warmFits: Map<FitMethod, ProfileFit>;
 }
 
+/** A frame's fit kept for the next frame of a series (see `FitCarry`). */
+export interface CarriedFit {
+  readonly method: FitMethod;
+  readonly fit: ProfileFit;
+  /** The fit's baseline frame in image pixels (the region's offset added). */
+  readonly frame: BaselineFrame;
+  /** Where the fit met the baseline (u in that frame). */
+  readonly leftU: number;
+  readonly rightU: number;
+}
+
+/**
+ * Carries the fit from one frame of a series to the next (the series tracker, never a single
+ * photo): `measureDrop` starts this frame's fit from `from` when the method's fit is iterative,
+ * with the same stopping rules as a cold start, and falls back to a cold start when that fit fails
+ * or lands away from the previous frame's drop. It leaves this frame's fit in `fit` and whether the
+ * warm start was used in `warm`.
+ */
+export interface FitCarry {
+  from: CarriedFit | null;
+  fit?: CarriedFit;
+  warm?: boolean;
+}
+
+/**
+ * How far a warm-started fit's contact points may lie from the previous frame's before the frame is
+ * fitted again from a cold start (px, or this share of the previous base diameter if larger): a
+ * contact line moves a few pixels per frame; more means the fit settled on another minimum.
+ */
+export const WARM_START_MAX_JUMP = { px: 6, baseFraction: 0.1 };
+
 /** Loads OpenCV (once) and analyses one drop photo. */
 export async function analyseDrop(
   image: GrayImage,
@@ -68,10 +99,11 @@ export function analyseDropWith(
   cv: OpenCv,
   input: GrayImage,
   options: AnalyseOptions = {},
+  carry?: FitCarry,
 ): AnalysisResult {
   const started = now();
   const detection = detectDrop(cv, input, options);
-  const result = measureDrop(detection, options);
+  const result = measureDrop(detection, options, carry);
   result.timeMs = now() - started;
   return result;
 }
@@ -134,7 +166,11 @@ function warning(code: AnalysisWarning['code'], message: string): AnalysisWarnin
 }
 
 /** Fits the detected drop for a method and baseline (the automatic one when none is given). */
-export function measureDrop(detection: DropDetection, options: AnalyseOptions = {}): AnalysisResult {
+export function measureDrop(
+  detection: DropDetection,
+  options: AnalyseOptions = {},
+  carry?: FitCarry,
+): AnalysisResult {
   const started = now();
   const { offsetX, offsetY, settings } = detection;
   const method = options.method ?? DEFAULT_METHOD;
@@ -217,7 +253,20 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   const draft = options.draft === true;
   // Drafts start from the newest fit of this drop; a full result is always fitted afresh, so it is
   // the same whatever came before (and the same as the server's).
-  let fit = runFit(fitter, points, settings, draft ? detection.warmFits.get(method) : undefined, draft);
+  // A series frame starts from the previous frame's fit (same stopping rules); see `FitCarry`.
+  const imageFrame = carry
+    ? new BaselineFrame({
+        x1: baseline.x1 + offsetX,
+        y1: baseline.y1 + offsetY,
+        x2: baseline.x2 + offsetX,
+        y2: baseline.y2 + offsetY,
+      })
+    : null;
+  const warm =
+    carry && imageFrame && !draft ? warmFit(fitter, points, settings, carry.from, imageFrame) : null;
+  let fit =
+    warm ??
+    runFit(fitter, points, settings, draft ? detection.warmFits.get(method) : undefined, draft);
   // Above 90° the edge normal near the contact points down into the thin bright wedge between drop
   // and substrate, so the substrate edge enters the sub-pixel window; keep further off the baseline.
   const first = fit.angles();
@@ -244,6 +293,11 @@ export function measureDrop(detection: DropDetection, options: AnalyseOptions = 
   }
 
   detection.warmFits.set(method, fit);
+  if (carry && imageFrame) {
+    const at = fit.angles();
+    carry.fit = { method, fit, frame: imageFrame, leftU: at.leftU, rightU: at.rightU };
+    carry.warm = warm !== null;
+  }
   // Each side from its own half-profile when the two differ by more than noise explains.
   const choice = chooseSides(fit, settings);
   const reported = choice.fit;
@@ -420,6 +474,46 @@ function checkBaseline(
     }
   }
   return warnings;
+}
+
+/**
+ * The fit started from the previous frame's, or null for a cold start: no previous fit, another
+ * method, a method whose fit needs no start, or a warm-started fit that failed, did not converge
+ * or put a contact point more than `WARM_START_MAX_JUMP` from the previous frame's.
+ */
+function warmFit(
+  fitter: ProfileFitter,
+  points: FramePoints,
+  settings: AnalysisSettings,
+  from: CarriedFit | null,
+  frame: BaselineFrame,
+): ProfileFit | null {
+  if (!from || from.method !== fitter.method || !fitter.warmStarts || points.u.length < 8)
+    return null;
+  // The previous frame's contact points in this frame; the shift of their midpoint moves the fit.
+  const toHere = (u: number) => frame.toFrame(...from.frame.toImage(u, 0));
+  const [leftU, leftV] = toHere(from.leftU);
+  const [rightU, rightV] = toHere(from.rightU);
+  const midU = (from.leftU + from.rightU) / 2;
+  const [hereMidU, hereMidV] = toHere(midU);
+  if (![leftU, leftV, rightU, rightV, hereMidU, hereMidV].every(Number.isFinite)) return null;
+  let fit: ProfileFit;
+  try {
+    fit = fitter.fit(points, {
+      settings,
+      warmStart: { fit: from.fit, shiftU: hereMidU - midU, shiftV: hereMidV },
+    });
+  } catch {
+    return null;
+  }
+  if (!fit.converged) return null;
+  const at = fit.angles();
+  const limit = Math.max(
+    WARM_START_MAX_JUMP.px,
+    WARM_START_MAX_JUMP.baseFraction * Math.abs(from.rightU - from.leftU),
+  );
+  const near = (a: number, b: number) => Number.isFinite(a) && Math.abs(a - b) <= limit;
+  return near(at.leftU, leftU) && near(at.rightU, rightU) ? fit : null;
 }
 
 function runFit(

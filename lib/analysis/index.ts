@@ -1,3 +1,3 @@
-export { analyseDrop, analyseDropWith } from './analyse';
+export { analyseDrop, analyseDropWith, type CarriedFit, type FitCarry } from './analyse';
 export { loadOpenCv, type OpenCv } from './opencv';
 export * from './types';

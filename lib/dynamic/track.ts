@@ -4,7 +4,9 @@
  * baseline kept while the substrate edge still lies on it. Whenever the region or the kept
  * baseline does not hold (drop cut by the region, no drop found), the frame is analysed again on
  * the whole image with the baseline found afresh; a frame that still fails is returned with its
- * error as a warning and null values, never dropped.
+ * error as a warning and null values, never dropped. Each frame's fit starts from the previous
+ * frame's (warm start, same stopping rules as a cold one; see `FitCarry` in lib/analysis) unless
+ * that frame failed or carried warnings.
  */
 import {
   AnalysisError,
@@ -13,6 +15,8 @@ import {
   type AnalyseOptions,
   type AnalysisResult,
   type Baseline,
+  type CarriedFit,
+  type FitCarry,
   type GrayImage,
   type OpenCv,
   type RegionOfInterest,
@@ -145,14 +149,17 @@ export class SeriesTracker {
   private baseline: Baseline | null = null;
   private contactXs: [number, number] | null = null;
   private size: [number, number] | null = null;
+  /** The last frame's fit, to start the next one from (null: start cold). */
+  private carried: CarriedFit | null = null;
 
   constructor(
     private readonly cv: OpenCv,
     private readonly options: SeriesOptions = {},
   ) {}
 
-  /** Forget the region and baseline (e.g. after a cut in the video). */
+  /** Forget the region, baseline and fit (e.g. after a cut in the video). */
   reset(): void {
+    this.carried = null;
     this.roi = null;
     this.baseline = null;
     this.contactXs = null;
@@ -183,15 +190,20 @@ export class SeriesTracker {
       roi,
       baseline: given ? 'given' : kept ? 'kept' : 'found',
       retried: false,
+      warmStart: false,
     };
+    const from = this.options.warmStart === false ? null : this.carried;
+    // A fresh carry per attempt, so a discarded attempt's fit never seeds the retry.
+    let carry: FitCarry = { from };
     let result: AnalysisResult | null = null;
     let error: unknown = null;
     try {
-      result = analyseDropWith(this.cv, image, {
-        ...base,
-        roi: roi ?? undefined,
-        baseline: given ?? kept,
-      });
+      result = analyseDropWith(
+        this.cv,
+        image,
+        { ...base, roi: roi ?? undefined, baseline: given ?? kept },
+        carry,
+      );
       if (roi && cutByRegion(result, roi, image)) result = null;
     } catch (caught) {
       error = caught;
@@ -201,14 +213,16 @@ export class SeriesTracker {
       tracking.retried = true;
       tracking.roi = null;
       tracking.baseline = given ? 'given' : 'found';
+      carry = { from };
       try {
-        result = analyseDropWith(this.cv, image, { ...base, baseline: given });
+        result = analyseDropWith(this.cv, image, { ...base, baseline: given }, carry);
         error = null;
       } catch (caught) {
         error = caught;
       }
     }
     if (!result) {
+      this.carried = null;
       return {
         index,
         tSec,
@@ -227,6 +241,10 @@ export class SeriesTracker {
         timeMs: now() - started,
       };
     }
+    tracking.warmStart = carry.warm === true;
+    // After a frame with warnings (other than the needle in the drop) the next fit starts cold.
+    const flagged = result.warnings.some((w) => w.code !== 'needle_in_contact');
+    this.carried = flagged ? null : (carry.fit ?? null);
     this.baseline = result.baseline;
     this.contactXs = [result.contactLeft[0], result.contactRight[0]];
     this.roi = regionAround(result, image);

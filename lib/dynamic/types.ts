@@ -39,6 +39,12 @@ export interface FrameTracking {
   baseline: 'found' | 'kept' | 'given';
   /** The first attempt (region or kept baseline) did not hold and the frame was analysed again. */
   retried: boolean;
+  /**
+   * The fit started from the previous frame's fit (same stopping rules as a cold start); false on
+   * the first frame, after a failed or flagged frame, for methods whose fit needs no start
+   * (circle, ellipse, polynomial) and when the warm-started fit was refitted cold.
+   */
+  warmStart: boolean;
 }
 
 /** The result of one frame; values are null when the frame could not be analysed. */
@@ -71,6 +77,8 @@ export interface SeriesOptions {
   trackRegion?: boolean;
   /** Reuse the previous frame's baseline while the substrate edge still lies on it (default true). */
   keepBaseline?: boolean;
+  /** Start each frame's fit from the previous frame's when the method's fit is iterative (default true). */
+  warmStart?: boolean;
   scalePxPerMm?: number;
 }
 

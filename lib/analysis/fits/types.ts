@@ -69,6 +69,13 @@ export interface FitOptions {
    * side choices), for the model check on points generated from the Young–Laplace profile.
    */
   sameAs?: ProfileFit;
+  /**
+   * The same method's fit of this drop in an earlier frame of a series, its parameters already
+   * moved into this baseline frame. Iterative fits start there instead of from their own first
+   * guess and stop by exactly the same rules (points, iterations, tolerance) as without it, so the
+   * result is the same minimum; fits that need no start (linear and algebraic ones) ignore it.
+   */
+  warmStart?: WarmStart;
   /** Young–Laplace only: fewer points and iterations (the reference for other methods' checks). */
   quick?: boolean;
   /** Young–Laplace only: the symmetric model alone (no asymmetric fits). */
@@ -76,7 +83,16 @@ export interface FitOptions {
   settings?: AnalysisSettings;
 }
 
+/** A fit of an earlier frame and the shift of its axis and apex into this frame (px, u and v). */
+export interface WarmStart {
+  readonly fit: ProfileFit;
+  readonly shiftU: number;
+  readonly shiftV: number;
+}
+
 export interface ProfileFitter {
+  /** Whether `FitOptions.warmStart` changes where this method's fit starts. */
+  readonly warmStarts?: boolean;
   readonly method: FitMethod;
   fit(points: FramePoints, options?: FitOptions): ProfileFit;
 }

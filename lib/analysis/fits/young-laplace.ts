@@ -386,9 +386,13 @@ export function fitYoungLaplace(points: FramePoints, options: FitOptions = {}): 
   const step = quick ? QUICK_STEP : FIT_STEP;
   const previous = options.previous instanceof YoungLaplaceFit ? options.previous : null;
   const previousWhole = previous?.whole instanceof YoungLaplaceFit ? previous.whole : null;
+  // An earlier frame's fit, moved into this frame: only where the iterations start changes.
+  const warm = !quick && !previous ? warmParameters(options.warmStart) : null;
   let start: ArrayLike<number>;
   if (previousWhole) {
     start = previousWhole.parameters;
+  } else if (warm) {
+    start = warm.whole;
   } else {
     const c = fitWholeCircle(points);
     const circle = [c.cu, c.cv + c.r, c.r, 0];
@@ -423,7 +427,9 @@ export function fitYoungLaplace(points: FramePoints, options: FitOptions = {}): 
     const seed =
       previous && previous.kind === kind
         ? previous.parameters
-        : kind === 'stage'
+        : warm?.kind === kind
+          ? warm.parameters
+          : kind === 'stage'
           ? [u0, v0, b, bond, 0]
           : [u0, v0, b, bond, b, bond];
     const fit = fitModel(fitted, seed, iterations, maxBond, kind, whole, step);
@@ -434,7 +440,28 @@ export function fitYoungLaplace(points: FramePoints, options: FitOptions = {}): 
   return finite.reduce((a, c) => (c.cost < a.cost ? c : a)).fit;
 }
 
-export const youngLaplaceFitter: ProfileFitter = { method: 'young-laplace', fit: fitYoungLaplace };
+/**
+ * The parameters of an earlier frame's fit with its axis and apex moved into this frame: its
+ * symmetric fit (the start of this one's) and its own model and parameters (the start of that
+ * model's fit here; the other model starts from the symmetric fit as without a warm start).
+ */
+function warmParameters(
+  warmStart: FitOptions['warmStart'],
+): { whole: number[]; kind: YoungLaplaceKind; parameters: number[] } | null {
+  if (!warmStart || !(warmStart.fit instanceof YoungLaplaceFit)) return null;
+  const { fit, shiftU, shiftV } = warmStart;
+  const moved = (p: readonly number[]) => [p[0] + shiftU, p[1] + shiftV, ...p.slice(2)];
+  const whole = fit.whole instanceof YoungLaplaceFit ? fit.whole : fit;
+  const finite = [...fit.parameters, ...whole.parameters].every(Number.isFinite);
+  if (whole.kind !== 'symmetric' || !finite) return null;
+  return { whole: moved(whole.parameters), kind: fit.kind, parameters: moved(fit.parameters) };
+}
+
+export const youngLaplaceFitter: ProfileFitter = {
+  method: 'young-laplace',
+  warmStarts: true,
+  fit: fitYoungLaplace,
+};
 
 /** The parameters [u0, v0, b, β, τ] of each half of a Young–Laplace fit (τ signed by the half). */
 export function youngLaplaceSides(fit: ProfileFit): [number[], number[]] | null {

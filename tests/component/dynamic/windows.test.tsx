@@ -24,7 +24,7 @@ function frame(index: number, meanDeg: number | null, baseDiameterPx: number, wa
     contactRight: null,
     baseline: null,
     warnings: warn || meanDeg === null ? [{ code: 'low_contrast', message: 'Low contrast.' }] : [],
-    tracking: { roi: null, baseline: 'found', retried: false },
+    tracking: { roi: null, baseline: 'found', retried: false, warmStart: false },
     timeMs: 1,
   };
 }

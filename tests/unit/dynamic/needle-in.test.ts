@@ -129,7 +129,12 @@ describe('needle-in series, Young–Laplace', () => {
   });
 
   it('tracks a region around the drop and keeps the checked baseline after the first frame', () => {
-    expect(frames[0].tracking).toEqual({ roi: null, baseline: 'found', retried: false });
+    expect(frames[0].tracking).toEqual({
+      roi: null,
+      baseline: 'found',
+      retried: false,
+      warmStart: false,
+    });
     const later = frames.slice(1);
     expect(later.every((f) => f.tracking.roi !== null)).toBe(true);
     expect(later.filter((f) => f.tracking.baseline === 'kept').length).toBeGreaterThan(45);

@@ -64,7 +64,7 @@ function framesOf(base: (number | null)[], volume?: (number | null)[]): SeriesFr
     contactRight: null,
     baseline: null,
     warnings: [],
-    tracking: { roi: null, baseline: 'found', retried: false },
+    tracking: { roi: null, baseline: 'found', retried: false, warmStart: false },
     analysis: null,
     timeMs: 0,
   }));

@@ -116,7 +116,12 @@ describe('tracker', () => {
       { baseline: BASELINE, trackRegion: false, method: 'circle' },
     );
     for (const f of frames) {
-      expect(f.tracking).toEqual({ roi: null, baseline: 'given', retried: false });
+      expect(f.tracking).toEqual({
+        roi: null,
+        baseline: 'given',
+        retried: false,
+        warmStart: false,
+      });
       expect(f.baseline).toEqual(BASELINE);
     }
   });
