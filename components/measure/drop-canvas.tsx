@@ -89,7 +89,7 @@ export function DropCanvas(props: Props) {
   // canvas shows its drafts.
   const [dragged, setDragged] = useState<Baseline | null>(null);
   const image = useLoadedImage(props.imageUrl);
-  const containerRef = useRef<HTMLDivElement>(null);
+  const frameRef = useRef<HTMLDivElement>(null);
   const [viewWidth, setViewWidth] = useState(800);
   const fitScale = viewWidth / width;
   const viewHeight = Math.round(height * fitScale);
@@ -97,8 +97,10 @@ export function DropCanvas(props: Props) {
   const [offset, setOffset] = useState({ x: 0, y: 0 });
   const scale = fitScale * zoom;
 
+  // The frame's content box (inside its border) is what the stage may fill: sized to the outer
+  // box, the canvas was the border's 2 px wider than the frame and cut off at the right.
   useEffect(() => {
-    const element = containerRef.current;
+    const element = frameRef.current;
     if (!element) return;
     const observer = new ResizeObserver(([entry]) =>
       setViewWidth(Math.max(240, entry.contentRect.width)),
@@ -205,8 +207,9 @@ export function DropCanvas(props: Props) {
     };
 
   return (
-    <div ref={containerRef} className="w-full">
+    <div className="w-full">
       <div
+        ref={frameRef}
         role="application"
         aria-label={
           props.readOnly

@@ -2,6 +2,7 @@
 
 import type { PhotoDrop } from '@/components/data/resources';
 import { PlainTable } from '@/components/ui/plain-table';
+import { analysisMethodName } from '@/lib/contracts/drops';
 
 /** Every saved revision of the selected photo's drop, newest first. */
 export function RevisionsPanel({ drop, error }: { drop: PhotoDrop | null; error: Error | null }) {
@@ -26,7 +27,7 @@ export function RevisionsPanel({ drop, error }: { drop: PhotoDrop | null; error:
           <tr key={r.id} className="border-t border-ink-100">
             <td className="py-1">r{r.revision}</td>
             <td className="py-1 text-xs">
-              {r.method}
+              {analysisMethodName(r.method)}
               {r.baseline ? ' · hand baseline' : ''}
             </td>
             <td className="py-1 text-right font-mono">{r.leftDeg.toFixed(1)}°</td>

@@ -70,8 +70,6 @@ describe('compare page', () => {
     const tests = (await page.getByTestId('tests-liquid-water').textContent()) ?? '';
     expect(tests).toMatch(/B-0412 is \d+\.\d° lower than B-0411 \(Welch t-test, p (=|<) 0\.\d{3}\)/);
     await expect(page.getByTestId('anova-liquid-water').textContent()).resolves.toContain('one-way ANOVA');
-    // The release caution belongs to the review decision and the certificate, not to this page.
-    expect(await page.getByRole('note', { name: 'Safety note' }).count()).toBe(0);
 
     const row = page.getByTestId('batch-row-liquid-water-B-0412');
     const pageN = Number(await row.getByTestId('n').textContent());
@@ -110,6 +108,9 @@ describe('compare page', () => {
     expect(value).toBeGreaterThan(38);
     expect(value).toBeLessThan(56);
     expect(await row.textContent()).toMatch(/Diiodomethane: n = 4.*Water: n = 6/);
+    // Diiodomethane is compared here, but its hazard caution belongs where the liquid is
+    // handled: the probe-liquid pages, once per liquid (checked below), not this page.
+    expect(await page.getByText(/safety data sheet/).count()).toBe(0);
 
     await row.getByRole('link', { name: 'Other methods' }).click();
     await page.waitForURL(/\/surface-energy\?batch=/);
@@ -118,6 +119,23 @@ describe('compare page', () => {
     // The batch page pools all samples (also those older than 7 days), so its value differs
     // from the compare page's windowed one; both come from OWRK.
     expect(await page.getByTestId('owrk-gammaTotal').textContent()).toMatch(/\d+\.\d+\s*±\s*\d/);
+    await page.context().close();
+  });
+
+  it('shows a probe liquid’s hazard caution on /probe-liquids once, in its own row', async () => {
+    const page = await signedIn('analyst@kestrel.example');
+    await page.goto(`${BASE_URL}/probe-liquids`);
+    const diiodomethane = page.getByRole('row').filter({ hasText: 'Diiodomethane' });
+    await diiodomethane.first().waitFor();
+    expect(await diiodomethane.getByRole('note').allTextContents()).toEqual([
+      expect.stringMatching(/^⚠ Harmful: handle per the supplier’s safety data sheet/),
+    ]);
+    // Every caution on the page sits in its liquid's row: none repeated in a banner elsewhere.
+    const cautions = await page.getByText(/safety data sheet/).count();
+    expect(cautions).toBeGreaterThan(0);
+    expect(cautions).toBe(
+      await page.getByRole('row').getByRole('note').filter({ hasText: /safety data sheet/ }).count(),
+    );
     await page.context().close();
   });
 
