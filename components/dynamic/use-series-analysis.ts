@@ -25,11 +25,16 @@ export interface SeriesRun {
 const IDLE: SeriesRun = { status: 'idle', frames: [], total: null, error: null, msPerFrame: null };
 /** Frames sent ahead of the worker: enough to keep it busy, few enough to bound memory. */
 const AHEAD = 3;
+/**
+ * Finished frames reach the plot and the progress bar at most this often: drawing the plot for
+ * every frame of a 300-frame series cost the page more than the analysis itself.
+ */
+const SHOW_EVERY_MS = 120;
 
 /**
  * The series worker (workers/series.worker.ts) for one page: frames go in as they are decoded, at
- * most a few ahead of the analysis; each result lands in `frames` as soon as it is done, so the
- * plot fills in and the progress bar moves. A new run or `stop` ends the previous run.
+ * most a few ahead of the analysis; results land in `frames` a few times a second as they finish,
+ * so the plot fills in and the progress bar moves. A new run or `stop` ends the previous run.
  */
 export function useSeriesAnalysis() {
   const worker = useRef<Worker | null>(null);
@@ -95,6 +100,17 @@ export function useSeriesAnalysis() {
       const inFlight = new Set<Promise<void>>();
       const started = performance.now();
       let index = 0;
+      // Frames finished since the last update of the page, shown together.
+      let unshown: SeriesFrameResult[] = [];
+      let showTimer: ReturnType<typeof setTimeout> | null = null;
+      const showFinished = () => {
+        if (showTimer !== null) clearTimeout(showTimer);
+        showTimer = null;
+        const batch = unshown;
+        unshown = [];
+        if (batch.length === 0 || seriesId.current !== id) return;
+        setRun((r) => ({ ...r, frames: [...r.frames, ...batch].sort((a, b) => a.index - b.index) }));
+      };
       try {
         for await (const input of frames) {
           if (seriesId.current !== id) break;
@@ -107,13 +123,14 @@ export function useSeriesAnalysis() {
             inFlight.delete(settled);
             if (frame instanceof Error) throw frame;
             done.push(frame);
-            if (seriesId.current === id)
-              setRun((r) => ({ ...r, frames: [...r.frames, frame].sort((a, b) => a.index - b.index) }));
+            unshown.push(frame);
+            showTimer ??= setTimeout(showFinished, SHOW_EVERY_MS);
           });
           inFlight.add(settled);
           while (inFlight.size >= AHEAD) await Promise.race(inFlight);
         }
         await Promise.all(inFlight);
+        showFinished();
         const stopped = seriesId.current !== id;
         const elapsed = performance.now() - started;
         if (!stopped)
@@ -125,6 +142,7 @@ export function useSeriesAnalysis() {
           }));
         return done.sort((a, b) => a.index - b.index);
       } catch (error) {
+        showFinished();
         send(w, { type: 'stop', seriesId: id });
         if (seriesId.current === id)
           setRun((r) => ({
