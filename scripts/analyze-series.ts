@@ -116,7 +116,7 @@ function printTable(report: SeriesReport, segments: PhaseSegment[]) {
   out.push('');
   // The page's and the server's rule: failed, or a warning other than the needle in the drop.
   out.push(
-    `flagged    ${report.frames.filter(isFlagged).length} of ${report.frames.length} frames (failed, or a warning other than the needle in the drop)`,
+    `flagged    ${report.frames.filter((f) => isFlagged(f)).length} of ${report.frames.length} frames (failed, or a warning other than the needle in the drop)`,
   );
   for (const [name, s] of [
     ['advancing', report.advancing],

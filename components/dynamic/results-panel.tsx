@@ -1,7 +1,7 @@
 'use client';
 
 import type { ReactNode } from 'react';
-import type { MeasurementResult } from '@/lib/dynamic/measurement';
+import type { DynamicKind, MeasurementResult } from '@/lib/dynamic/measurement';
 import type { AngleWindowStats, PhaseWindow } from '@/lib/dynamic/types';
 import type { SeriesFrameResult } from '@/lib/dynamic/worker-protocol';
 import { isFlagged } from '@/lib/dynamic/measurement';
@@ -178,8 +178,14 @@ function ScrollingTable({
   );
 }
 
-export function FlaggedFrames({ frames }: { frames: readonly SeriesFrameResult[] }) {
-  const flagged = frames.filter(isFlagged);
+export function FlaggedFrames({
+  frames,
+  kind,
+}: {
+  frames: readonly SeriesFrameResult[];
+  kind?: DynamicKind;
+}) {
+  const flagged = frames.filter((f) => isFlagged(f, kind));
   if (flagged.length === 0) return null;
   return (
     <section className="card" aria-labelledby="flagged-heading">
@@ -212,7 +218,15 @@ export function FlaggedFrames({ frames }: { frames: readonly SeriesFrameResult[]
 }
 
 /** Every frame's numbers, in input order, for reading off or checking a point of the plot. */
-export function FrameTable({ frames, tiltsDeg }: { frames: readonly SeriesFrameResult[]; tiltsDeg: readonly number[] | null }) {
+export function FrameTable({
+  frames,
+  tiltsDeg,
+  kind,
+}: {
+  frames: readonly SeriesFrameResult[];
+  tiltsDeg: readonly number[] | null;
+  kind?: DynamicKind;
+}) {
   if (frames.length === 0) return null;
   const num = (v: number | null, digits: number) => (v === null ? '—' : v.toFixed(digits));
   return (
@@ -234,7 +248,7 @@ export function FrameTable({ frames, tiltsDeg }: { frames: readonly SeriesFrameR
           </thead>
           <tbody className="font-mono">
             {frames.map((f, i) => (
-              <tr key={f.index} className="border-t border-ink-100" data-flagged={isFlagged(f) || undefined}>
+              <tr key={f.index} className="border-t border-ink-100" data-flagged={isFlagged(f, kind) || undefined}>
                 <td className="py-0.5 pr-3">{f.index}</td>
                 <td className="py-0.5 pr-3">{f.tSec.toFixed(3)}</td>
                 {tiltsDeg ? <td className="py-0.5 pr-3">{num(tiltsDeg[i] ?? null, 2)}</td> : null}
@@ -243,7 +257,7 @@ export function FrameTable({ frames, tiltsDeg }: { frames: readonly SeriesFrameR
                 <td className="py-0.5 pr-3" data-testid="frame-mean">{num(f.meanDeg, 2)}</td>
                 <td className="py-0.5 pr-3">{num(f.baseDiameterPx, 1)}</td>
                 <td className="py-0.5 pr-3">{f.volumePx3 === null ? '—' : f.volumePx3.toExponential(3)}</td>
-                <td className="py-0.5">{isFlagged(f) ? (f.meanDeg === null ? 'failed' : 'check') : ''}</td>
+                <td className="py-0.5">{isFlagged(f, kind) ? (f.meanDeg === null ? 'failed' : 'check') : ''}</td>
               </tr>
             ))}
           </tbody>

@@ -11,7 +11,7 @@ import {
   XAxis,
   YAxis,
 } from 'recharts';
-import { isFlagged } from '@/lib/dynamic/measurement';
+import { isFlagged, type DynamicKind } from '@/lib/dynamic/measurement';
 import type { PhaseWindow } from '@/lib/dynamic/types';
 import type { SeriesFrameResult } from '@/lib/dynamic/worker-protocol';
 
@@ -35,14 +35,14 @@ type Row = {
   flaggedDeg: number | null;
 };
 
-function rowsOf(frames: readonly SeriesFrameResult[]): Row[] {
+function rowsOf(frames: readonly SeriesFrameResult[], kind?: DynamicKind): Row[] {
   return frames.map((f) => ({
     tSec: f.tSec,
     meanDeg: f.meanDeg,
     baseDiameterPx: f.baseDiameterPx,
     volumePx3: f.volumePx3,
     // Flagged frames are drawn again as crosses, on the angle where there is one, else on the axis.
-    flaggedDeg: isFlagged(f) ? (f.meanDeg ?? 0) : null,
+    flaggedDeg: isFlagged(f, kind) ? (f.meanDeg ?? 0) : null,
   }));
 }
 
@@ -86,20 +86,23 @@ function Cross({ cx, cy }: { cx?: number; cy?: number }) {
  */
 export function SeriesPlot({
   frames,
+  kind,
   windows,
   endSec,
   width,
 }: {
   frames: readonly SeriesFrameResult[];
+  /** The kind of series, for which warnings are expected (lib/dynamic/phases.ts isFlagged). */
+  kind?: DynamicKind;
   windows: readonly PlotWindow[];
   /** The series' last time when known in advance, so the axis does not grow while frames land. */
   endSec: number | null;
   width?: number;
 }) {
-  const rows = rowsOf(frames);
+  const rows = rowsOf(frames, kind);
   const domain: [number, number | 'dataMax'] = [0, endSec ?? 'dataMax'];
   const hasVolume = frames.some((f) => f.volumePx3 !== null);
-  const flagged = frames.filter(isFlagged).length;
+  const flagged = frames.filter((f) => isFlagged(f, kind)).length;
   const chart = (children: React.ReactElement) =>
     width ? (
       <div style={{ width, height: 220 }}>{children}</div>

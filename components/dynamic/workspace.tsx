@@ -424,7 +424,7 @@ export function DynamicWorkspace({
       {run.frames.length > 0 ? (
         <section className="card" aria-labelledby="series-plot-heading">
           <h2 id="series-plot-heading">Angle, base diameter and volume against time</h2>
-          <SeriesPlot frames={run.frames} windows={plotWindows} endSec={expectedEndSec} />
+          <SeriesPlot frames={run.frames} kind={editor.kind} windows={plotWindows} endSec={expectedEndSec} />
         </section>
       ) : null}
 
@@ -444,8 +444,12 @@ export function DynamicWorkspace({
         )
       ) : null}
 
-      <FlaggedFrames frames={run.frames} />
-      <FrameTable frames={run.frames} tiltsDeg={measurement.ok ? measurement.tiltsDeg : null} />
+      <FlaggedFrames frames={run.frames} kind={editor.kind} />
+      <FrameTable
+        frames={run.frames}
+        kind={editor.kind}
+        tiltsDeg={measurement.ok ? measurement.tiltsDeg : null}
+      />
 
       <section className="card space-y-3" aria-labelledby="series-save-heading">
         <h2 id="series-save-heading">Save to a sample</h2>

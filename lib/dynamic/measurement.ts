@@ -92,6 +92,7 @@ export function summariseMeasurement(
   options: MeasurementOptions = {},
 ): MeasurementResult {
   const summary = summariseDynamic(frames, {
+    kind,
     windows: {
       // A growing series has no receding window to look for, and a shrinking one no advancing.
       ...(kind === 'growing' ? { receding: null } : {}),
@@ -113,7 +114,7 @@ export function summariseMeasurement(
     rate: null,
     frameCount: frames.length,
     failedFrameCount,
-    flaggedFrameCount: frames.filter((f) => f.meanDeg !== null && isFlagged(f)).length,
+    flaggedFrameCount: frames.filter((f) => f.meanDeg !== null && isFlagged(f, kind)).length,
     // Warnings about the phase a kind does not look for say nothing.
     warnings: summary.warnings.filter(
       (w) =>

@@ -20,6 +20,7 @@
 import { mean, sampleSd } from '../stats/describe';
 import { fitLine, noiseFromSecondDifferences } from './regression';
 import { segmentLines } from './segments';
+import type { DynamicKind } from './measurement';
 import type { AngleWindowStats, PhaseWindow, SeriesFrame, SeriesWarning } from './types';
 
 export type PhaseKind = 'pinned' | 'advancing' | 'receding';
@@ -257,6 +258,8 @@ export interface DynamicSummary {
 }
 
 export interface SummaryOptions extends PhaseOptions {
+  /** The kind of series, for which warnings are expected of it (see `isFlagged`). */
+  kind?: DynamicKind;
   /**
    * Windows chosen by the user; they replace the detected ones. `null` means "no such phase";
    * leaving a key out keeps the detected window.
@@ -270,7 +273,7 @@ export function summariseDynamic(
   options: SummaryOptions = {},
 ): DynamicSummary {
   const phases = detectPhases(frames, options);
-  const warnings: SeriesWarning[] = [...frameWarnings(frames), ...phases.warnings];
+  const warnings: SeriesWarning[] = [...frameWarnings(frames, options.kind), ...phases.warnings];
   const chosen = options.windows ?? {};
   const advancingWindow =
     chosen.advancing !== undefined ? chosen.advancing : phases.advancingWindow;
@@ -309,15 +312,22 @@ export function summariseDynamic(
 
 /**
  * The one rule for "this frame needs a look", used by the page's flagged list, the server's
- * counts and the CLI's series notes alike: the frame failed, or it carries a warning other than the
- * needle in the drop (in the needle-in method the needle is there on purpose).
+ * counts and the CLI's series notes alike: the frame failed, or it carries a warning the series
+ * does not expect. The needle in the drop is expected always (in the needle-in method it is there on
+ * purpose); left and right angles that differ are expected on a tilting plate (downhill and uphill
+ * are what it measures).
  */
-export function isFlagged(frame: Pick<SeriesFrame, 'meanDeg' | 'warnings'>): boolean {
-  return frame.meanDeg === null || frame.warnings.some((w) => w.code !== 'needle_in_contact');
+export function isFlagged(
+  frame: Pick<SeriesFrame, 'meanDeg' | 'warnings'>,
+  kind?: DynamicKind,
+): boolean {
+  const expected = (code: string) =>
+    code === 'needle_in_contact' || (kind === 'tilt' && code === 'left_right_disagree');
+  return frame.meanDeg === null || frame.warnings.some((w) => !expected(w.code));
 }
 
 /** Series-level notes about failed and flagged frames (each frame keeps its own warnings). */
-export function frameWarnings(frames: readonly SeriesFrame[]): SeriesWarning[] {
+export function frameWarnings(frames: readonly SeriesFrame[], kind?: DynamicKind): SeriesWarning[] {
   const warnings: SeriesWarning[] = [];
   const failed = frames.filter((f) => f.meanDeg === null).map((f) => f.index);
   if (failed.length)
@@ -325,7 +335,9 @@ export function frameWarnings(frames: readonly SeriesFrame[]): SeriesWarning[] {
       code: 'frames_failed',
       message: `${failed.length} of ${frames.length} frames could not be analysed (frames ${listIndices(failed)}); they are left out of every mean. Each says why in its warnings.`,
     });
-  const flagged = frames.filter((f) => f.meanDeg !== null && isFlagged(f)).map((f) => f.index);
+  const flagged = frames
+    .filter((f) => f.meanDeg !== null && isFlagged(f, kind))
+    .map((f) => f.index);
   if (flagged.length)
     warnings.push({
       code: 'frames_flagged',

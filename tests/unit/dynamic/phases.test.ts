@@ -9,6 +9,8 @@ import { describe, expect, it } from 'vitest';
 import {
   detectPhases,
   fitLine,
+  frameWarnings,
+  isFlagged,
   fitPolynomial,
   noiseFromSecondDifferences,
   segmentLines,
@@ -226,5 +228,36 @@ describe('least squares', () => {
     const y = Array.from({ length: 4000 }, (_, i) => 3 + 0.7 * i + 0.4 * normal());
     expect(noiseFromSecondDifferences(y)).toBeGreaterThan(0.38);
     expect(noiseFromSecondDifferences(y)).toBeLessThan(0.42);
+  });
+});
+
+describe('which frames are flagged', () => {
+  const frame = (index: number, codes: string[], meanDeg: number | null = 95) =>
+    ({
+      index,
+      meanDeg,
+      warnings: codes.map((code) => ({ code, message: code })),
+    }) as unknown as SeriesFrame;
+
+  it('expects the needle in every series and differing sides on a tilting plate only', () => {
+    const sides = frame(0, ['left_right_disagree']);
+    expect(isFlagged(frame(0, ['needle_in_contact']))).toBe(false);
+    expect(isFlagged(sides)).toBe(true);
+    expect(isFlagged(sides, 'grow-and-withdraw')).toBe(true);
+    // Downhill and uphill angles differ on a tilted drop: that is the measurement, not a fault.
+    expect(isFlagged(sides, 'tilt')).toBe(false);
+    expect(isFlagged(frame(0, ['left_right_disagree', 'baseline_off_contact']), 'tilt')).toBe(true);
+    expect(isFlagged(frame(0, [], null), 'tilt')).toBe(true);
+  });
+
+  it('counts the flagged frames of a series by its kind', () => {
+    const frames = [
+      frame(0, []),
+      frame(1, ['left_right_disagree']),
+      frame(2, ['left_right_disagree']),
+    ];
+    expect(frameWarnings(frames, 'tilt')).toEqual([]);
+    expect(frameWarnings(frames)[0]?.code).toBe('frames_flagged');
+    expect(frameWarnings(frames)[0]?.message).toContain('2 analysed frames');
   });
 });
