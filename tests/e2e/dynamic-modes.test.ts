@@ -187,9 +187,13 @@ describe('dynamic wetting, tilting plate and angle over time', () => {
       series: { index: number; meanDeg: number | null; warnings: { code: string }[] }[];
     };
     expect(body.series).toHaveLength(files.length);
+    // On a tilting plate, differing left and right angles are the measurement, not a flag.
+    const expected = new Set(['needle_in_contact', 'left_right_disagree']);
     const storedFlagged = body.series
-      .filter((f) => f.meanDeg === null || f.warnings.some((w) => w.code !== 'needle_in_contact'))
+      .filter((f) => f.meanDeg === null || f.warnings.some((w) => !expected.has(w.code)))
       .map((f) => f.index);
+    // Not every frame: a flag that marks them all tells the user nothing.
+    expect(storedFlagged.length).toBeLessThan(files.length);
     expect(storedFlagged).toEqual(flaggedOnPage);
 
     // The roll-off angle of the batch on the compare page is this measurement's.
