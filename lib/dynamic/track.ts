@@ -21,6 +21,7 @@ import {
   type OpenCv,
   type RegionOfInterest,
 } from '../analysis';
+import { isFlagged } from './phases';
 import type { FrameTracking, FrameWarning, SeriesFrame, SeriesOptions } from './types';
 
 const now = (): number => (typeof performance !== 'undefined' ? performance.now() : Date.now());
@@ -242,9 +243,8 @@ export class SeriesTracker {
       };
     }
     tracking.warmStart = carry.warm === true;
-    // After a frame with warnings (other than the needle in the drop) the next fit starts cold.
-    const flagged = result.warnings.some((w) => w.code !== 'needle_in_contact');
-    this.carried = flagged ? null : (carry.fit ?? null);
+    // After a flagged frame (the series' one rule, whatever its kind) the next fit starts cold.
+    this.carried = isFlagged(result) ? null : (carry.fit ?? null);
     this.baseline = result.baseline;
     this.contactXs = [result.contactLeft[0], result.contactRight[0]];
     this.roi = regionAround(result, image);
